@@ -1,0 +1,61 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import { threadPortCreate } from '../../src/cli/threadPort.ts';
+import { JobCancelled, workerPoolCreate, type WorkerPool } from '../../src/workers/pool.ts';
+import { buffersOf } from '../../src/workers/protocol.ts';
+
+const ENTRY = new URL('./fixtures/testWorker.ts', import.meta.url);
+let pool: WorkerPool | null = null;
+afterEach(() => pool?.destroy());
+
+describe('workerPoolCreate over real Node worker threads', () => {
+  it('runs jobs and returns values in the order asked', async () => {
+    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 2);
+    const out = await Promise.all([1, 2, 3, 4, 5].map((v) => pool!.run<number>('echo', { value: v, delayMs: 5 })));
+    expect(out).toEqual([2, 4, 6, 8, 10]);
+  });
+
+  it('moves buffers by transfer (the sender loses them)', async () => {
+    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    const data = new Float64Array([1, 2, 3.5]);
+    const r = await pool.run<{ sum: number; length: number }>('sum', { data }, buffersOf(data));
+    expect(r).toEqual({ sum: 6.5, length: 3 });
+    expect(data.length).toBe(0); // detached
+  });
+
+  it('a failing command rejects with its message and the pool goes on', async () => {
+    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    await expect(pool.run('fail', { message: 'truth/f1.png: not a PNG' })).rejects.toThrow('truth/f1.png: not a PNG');
+    await expect(pool.run('echo', { value: 4 })).resolves.toBe(8);
+  });
+
+  it('a worker that dies fails its job with a clear error, is replaced, and the rest continue', async () => {
+    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 2);
+    const jobs = [
+      pool.run('echo', { value: 1, delayMs: 30 }),
+      pool.run('die', {}),
+      pool.run('crash', {}),
+      pool.run('echo', { value: 2 }),
+      pool.run('echo', { value: 3 }),
+    ];
+    const settled = await Promise.allSettled(jobs);
+    expect(settled.map((s) => s.status)).toEqual(['fulfilled', 'rejected', 'rejected', 'fulfilled', 'fulfilled']);
+    expect((settled[1] as PromiseRejectedResult).reason.message).toMatch(/worker stopped while running this job \(exit code 7\)/);
+    expect((settled[2] as PromiseRejectedResult).reason.message).toMatch(/worker stopped.*boom in a timer/);
+    expect(pool.restarts()).toBe(2);
+    expect((settled[4] as PromiseFulfilledResult<number>).value).toBe(6);
+  });
+
+  it('cancelAll rejects queued and running jobs with JobCancelled; new jobs run', async () => {
+    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    const first = pool.run('echo', { value: 1, delayMs: 100 });
+    const queued = [2, 3, 4].map((v) => pool!.run('echo', { value: v }));
+    await new Promise((r) => setTimeout(r, 20));
+    pool.cancelAll();
+    const settled = await Promise.allSettled([first, ...queued]);
+    for (const s of settled) {
+      expect(s.status).toBe('rejected');
+      expect((s as PromiseRejectedResult).reason).toBeInstanceOf(JobCancelled);
+    }
+    await expect(pool.run('echo', { value: 21 })).resolves.toBe(42);
+  });
+});
