@@ -1,0 +1,76 @@
+import { createReadStream } from 'node:fs';
+import { realpath, stat } from 'node:fs/promises';
+import type { ServerResponse } from 'node:http';
+import { extname, join, sep } from 'node:path';
+
+const TYPES: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8',
+  '.js': 'text/javascript; charset=utf-8',
+  '.mjs': 'text/javascript; charset=utf-8',
+  '.css': 'text/css; charset=utf-8',
+  '.json': 'application/json; charset=utf-8',
+  '.png': 'image/png',
+  '.jpg': 'image/jpeg',
+  '.jpeg': 'image/jpeg',
+  '.webp': 'image/webp',
+  '.svg': 'image/svg+xml',
+  '.ico': 'image/x-icon',
+  '.wasm': 'application/wasm',
+  '.txt': 'text/plain; charset=utf-8',
+};
+
+/** Outcome of resolving a URL path inside a served folder. */
+export type Resolved = { ok: true; path: string } | { ok: false; status: 400 | 403 | 404; reason: string };
+
+/**
+ * Resolves the URL-encoded `urlPath` (no query) to a file inside `rootReal` (an already-resolved real
+ * path). Refuses, with 403, any path whose decoded segments climb out (`..`), absolute or drive
+ * paths, backslashes, NUL bytes, and symlinks whose target lies outside the root.
+ */
+export async function pathResolveInside(rootReal: string, urlPath: string): Promise<Resolved> {
+  let decoded: string;
+  try {
+    decoded = decodeURIComponent(urlPath);
+  } catch {
+    return { ok: false, status: 400, reason: 'malformed URL encoding' };
+  }
+  if (decoded.includes('\0') || decoded.includes('\\')) return { ok: false, status: 403, reason: 'forbidden characters' };
+  const segments = decoded.split('/').filter((s) => s !== '' && s !== '.');
+  if (segments.some((s) => s === '..')) return { ok: false, status: 403, reason: 'path leaves the served folder' };
+  if (segments.length && /^[a-zA-Z]:$/.test(segments[0])) return { ok: false, status: 403, reason: 'absolute path' };
+  const joined = join(rootReal, ...segments);
+  let real: string;
+  try {
+    real = await realpath(joined);
+  } catch {
+    return { ok: false, status: 404, reason: 'not found' };
+  }
+  if (real !== rootReal && !real.startsWith(rootReal.endsWith(sep) ? rootReal : rootReal + sep)) {
+    return { ok: false, status: 403, reason: 'path leads outside the served folder' };
+  }
+  return { ok: true, path: real };
+}
+
+/** Sends a plain-text error response. */
+export function sendError(res: ServerResponse, status: number, message: string): void {
+  res.writeHead(status, { 'content-type': 'text/plain; charset=utf-8', 'cache-control': 'no-store' });
+  res.end(message + '\n');
+}
+
+/** Streams the regular file `path` with its content type; 404 when it is a folder or missing. */
+export async function sendFile(res: ServerResponse, path: string, head: boolean, cache: string): Promise<void> {
+  let info;
+  try {
+    info = await stat(path);
+  } catch {
+    return sendError(res, 404, 'not found');
+  }
+  if (!info.isFile()) return sendError(res, 404, 'not found');
+  res.writeHead(200, {
+    'content-type': TYPES[extname(path).toLowerCase()] ?? 'application/octet-stream',
+    'content-length': String(info.size),
+    'cache-control': cache,
+  });
+  if (head) return void res.end();
+  createReadStream(path).on('error', () => res.destroy()).pipe(res);
+}

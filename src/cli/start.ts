@@ -1,0 +1,36 @@
+// `npm start [-- DATASET_DIR] [--port N] [--no-build]`: builds the app and serves it on 127.0.0.1,
+// with DATASET_DIR (if given) read-only under /dataset/. Without a dataset the app opens the demo.
+import { stat } from 'node:fs/promises';
+import { fileURLToPath } from 'node:url';
+import { build } from 'vite';
+import { appServerStart } from './appServer.ts';
+import { argsParse, UsageError } from './args.ts';
+
+const ROOT = fileURLToPath(new URL('../..', import.meta.url));
+
+async function main(): Promise<void> {
+  const args = argsParse(process.argv.slice(2), { port: { kind: 'number' }, 'no-build': { kind: 'flag' } });
+  if (args._.length > 1) throw new UsageError(`give at most one dataset folder, got ${args._.length}`);
+  const dataset = args._[0] ?? null;
+  if (dataset) {
+    const info = await stat(dataset).catch(() => null);
+    if (!info?.isDirectory()) throw new UsageError(`${dataset}: not a folder`);
+  }
+  const port = (args.port as number | undefined) ?? 5173;
+  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new UsageError(`--port must be 0..65535, got ${port}`);
+  if (!args['no-build']) {
+    process.stderr.write('building the app…\n');
+    await build({ configFile: `${ROOT}/vite.config.ts`, logLevel: 'warn' });
+  }
+  const { url } = await appServerStart({ appDir: `${ROOT}/dist`, datasetDir: dataset, port });
+  process.stdout.write(`Hairline is serving ${dataset ? `dataset ${dataset}` : 'the Kestrel Quay demo'} at ${url}\n`);
+  process.stdout.write('Only this machine can reach it (127.0.0.1). Press Ctrl+C to stop.\n');
+}
+
+main().catch((e) => {
+  if (e instanceof UsageError || (e as NodeJS.ErrnoException).code === 'EADDRINUSE') {
+    process.stderr.write(`hairline start: ${(e as Error).message}\n`);
+    process.exit(1);
+  }
+  throw e;
+});
