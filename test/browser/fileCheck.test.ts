@@ -1,20 +1,19 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PNG } from 'pngjs';
 import type { Browser } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
-import { appServe, browserLaunch, pageErrors } from './harness.ts';
+import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
 
-let server: ViteDevServer;
+let close: () => Promise<void>;
 let url: string;
 let browser: Browser;
 
 beforeAll(async () => {
-  ({ server, url } = await appServe());
+  ({ close, url } = await appServeBuilt());
   browser = await browserLaunch();
 });
 afterAll(async () => {
   await browser?.close();
-  await server?.close();
+  await close?.();
 });
 
 /** An 8-bit grayscale PNG written by pngjs (an encoder independent of ours). */

@@ -3,6 +3,8 @@
 // --enable-unsafe-swiftshader by default, which, with --disable-gpu, gives a WebGL2 context headless.
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { createServer, type ViteDevServer } from 'vite';
+import type { Server } from 'node:http';
+import { appServerStart } from '../../src/cli/appServer.ts';
 
 export const CHROMIUM_PATH = process.env.HAIRLINE_CHROMIUM ?? '/usr/bin/chromium';
 
@@ -44,4 +46,10 @@ export function pageErrors(page: Page): string[] {
     if (m.type() === 'error') errors.push(`console: ${m.text()}`);
   });
   return errors;
+}
+
+/** Serves the app built by buildOnce.ts (dist-test/) with the real app server, optionally with a dataset. */
+export async function appServeBuilt(datasetDir: string | null = null): Promise<{ url: string; close: () => Promise<void> }> {
+  const { server, url } = await appServerStart({ appDir: 'dist-test', datasetDir, port: 0 });
+  return { url, close: () => new Promise<void>((r) => (server as Server).close(() => r())) };
 }
