@@ -1,0 +1,99 @@
+import { classTableGenerated, type ClassTable } from '../core/classTable.ts';
+import type { FrameJobResult } from '../core/frameJob.ts';
+import type { ScoreSettings } from '../core/metrics/settings.ts';
+import type { FrameFiles } from '../data/pairing.ts';
+import type { DatasetSource } from '../data/sources/source.ts';
+import { JobCancelled, type WorkerPool } from '../workers/pool.ts';
+import { SCORE_COMMANDS, type FileBlob, type FrameScoreRequest } from '../workers/scoreJobs.ts';
+import type { LoadedDataset } from './datasetSlice.ts';
+import type { AppStore } from './store.ts';
+
+/** Returns the table frames are scored with: the dataset's, or a generated one; void id from settings. */
+export function scoringTableOf(dataset: LoadedDataset, settings: ScoreSettings): ClassTable {
+  const base = dataset.table ?? classTableGenerated(-1, settings.ignore);
+  return { ...base, ignore: settings.ignore, classes: base.classes.filter((c) => c.id !== settings.ignore) };
+}
+
+async function blobOf(source: DatasetSource, folder: string, path: string | null): Promise<FileBlob | null> {
+  if (path === null) return null;
+  return { file: `${folder}/${path}`, blob: await source.read(folder, path) };
+}
+
+/** Returns the worker request for one frame, reading its files from the source. */
+export async function frameScoreRequest(
+  dataset: LoadedDataset, frame: FrameFiles, table: ClassTable, settings: ScoreSettings,
+): Promise<FrameScoreRequest> {
+  const { source, pairing } = dataset;
+  const truth = (await blobOf(source, 'truth', frame.truth))!;
+  const preds = await Promise.all(
+    pairing.runs.map(async (run) => ({ run, file: await blobOf(source, `predictions/${run}`, frame.predictions[run]).catch(() => null) })),
+  );
+  const photo = await blobOf(source, 'images', frame.image).catch(() => null);
+  return { name: frame.name, truth, preds, photo, table, settings };
+}
+
+function failedResult(frame: FrameFiles, runs: string[], error: string): FrameJobResult {
+  return { name: frame.name, width: 0, height: 0, error, runs: runs.map((run) => ({ run, stats: null, error })) };
+}
+
+/**
+ * Keeps the store's scores in step with its dataset and settings: on every change it cancels the
+ * pass in flight and scores every frame again in the pool, the frame on screen first, with at most
+ * two jobs per worker in flight so reading files never runs far ahead of scoring. Returns a stop function.
+ */
+export function scoringKeep(store: AppStore, pool: WorkerPool): () => void {
+  let generation = store.getState().scoring.generation;
+  let lastDataset: LoadedDataset | null = null;
+  let lastSettings: ScoreSettings | null = null;
+
+  function restart(): void {
+    const { dataset, settings, frameIndex } = store.getState();
+    pool.cancelAll();
+    generation++;
+    const gen = generation;
+    const frames = dataset?.pairing.frames ?? [];
+    store.getState().scoringStart(gen, frames.length);
+    if (!dataset || frames.length === 0) return;
+    const table = scoringTableOf(dataset, settings);
+    const order = frames.map((_, i) => i);
+    const first = Math.min(frameIndex, frames.length - 1);
+    order.splice(first, 1);
+    order.unshift(first);
+    let next = 0;
+    const window = Math.max(1, pool.size * 2);
+
+    const runOne = async (index: number): Promise<void> => {
+      const frame = frames[index];
+      let result: FrameJobResult;
+      try {
+        const req = await frameScoreRequest(dataset, frame, table, settings);
+        if (gen !== generation) return;
+        result = await pool.run<FrameJobResult>(SCORE_COMMANDS.frameScore, req);
+      } catch (e) {
+        if (e instanceof JobCancelled || gen !== generation) return;
+        result = failedResult(frame, dataset.pairing.runs, (e as Error).message.startsWith('truth/') ? (e as Error).message : `${frame.name}: ${(e as Error).message}`);
+      }
+      if (gen === generation) store.getState().scoringFrameDone(gen, index, result);
+    };
+    const lane = async (): Promise<void> => {
+      while (gen === generation && next < order.length) await runOne(order[next++]);
+    };
+    for (let i = 0; i < window; i++) void lane();
+  }
+
+  const unsubscribe = store.subscribe((s) => {
+    if (s.dataset === lastDataset && s.settings === lastSettings) return;
+    lastDataset = s.dataset;
+    lastSettings = s.settings;
+    restart();
+  });
+  const s = store.getState();
+  lastDataset = s.dataset;
+  lastSettings = s.settings;
+  if (s.dataset) restart();
+  return () => {
+    unsubscribe();
+    generation++;
+    pool.cancelAll();
+  };
+}

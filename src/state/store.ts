@@ -1,0 +1,19 @@
+import { createStore, type StoreApi } from 'zustand/vanilla';
+import { datasetSlice, type DatasetSlice } from './datasetSlice.ts';
+import { scoresSlice, type ScoresSlice } from './scoresSlice.ts';
+import { settingsSlice, type SettingsSlice } from './settingsSlice.ts';
+import { viewSlice, type ViewSlice } from './viewSlice.ts';
+
+/** Everything the app holds: the dataset, score settings, per-frame scores and the view. */
+export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice;
+export type AppStore = StoreApi<AppState>;
+
+/** Returns a new app store combining every slice (usable without React: getState/subscribe). */
+export function appStoreCreate(): AppStore {
+  return createStore<AppState>()((...a) => ({
+    ...datasetSlice(...a),
+    ...settingsSlice(...a),
+    ...scoresSlice(...a),
+    ...viewSlice(...a),
+  }));
+}

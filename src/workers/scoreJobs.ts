@@ -1,0 +1,63 @@
+import type { ClassTable } from '../core/classTable.ts';
+import { frameJobScore, type FileBytes, type FrameJobResult } from '../core/frameJob.ts';
+import type { FrameStats } from '../core/metrics/frameScore.ts';
+import { scoreScratchCreate } from '../core/metrics/scratch.ts';
+import type { ScoreSettings } from '../core/metrics/settings.ts';
+import { buffersOf, type JobOutput } from './protocol.ts';
+
+/** Commands the scoring worker answers. */
+export const SCORE_COMMANDS = { frameScore: 'frameScore' } as const;
+
+/** A file as the page holds it: a Blob (a File, a fetched body, or demo bytes) and its display name. */
+export interface FileBlob {
+  file: string;
+  blob: Blob;
+}
+
+/** Input of `frameScore` in the browser: the frame's files as Blobs (shared with the worker, not copied). */
+export interface FrameScoreRequest {
+  name: string;
+  truth: FileBlob;
+  preds: { run: string; file: FileBlob | null }[];
+  photo: FileBlob | null;
+  table: ClassTable;
+  settings: ScoreSettings;
+}
+
+/** Returns the ArrayBuffers of a frame's counts, to move them back by transfer. */
+export function frameStatsBuffers(stats: FrameStats): ArrayBuffer[] {
+  return buffersOf(
+    stats.confusion, stats.band, stats.biouInter, stats.biouUnion,
+    stats.bfPredMatched, stats.bfPredTotal, stats.bfTruthMatched, stats.bfTruthTotal,
+  );
+}
+
+/** Returns the transfer list of a whole frame result. */
+export function frameResultBuffers(result: FrameJobResult): ArrayBuffer[] {
+  return result.runs.flatMap((r) => (r.stats ? frameStatsBuffers(r.stats) : []));
+}
+
+async function bytesOf(f: FileBlob): Promise<FileBytes> {
+  return { file: f.file, bytes: new Uint8Array(await f.blob.arrayBuffer()) };
+}
+
+const scratch = scoreScratchCreate();
+
+/** The scoring worker's command table; the same core job runs in the CLI's worker threads. */
+export const scoreJobs = {
+  async [SCORE_COMMANDS.frameScore](input: FrameScoreRequest): Promise<JobOutput<FrameJobResult>> {
+    let truth: FileBytes;
+    try {
+      truth = await bytesOf(input.truth);
+    } catch (e) {
+      const error = `${input.truth.file}: could not be read (${(e as Error).message})`;
+      return { value: { name: input.name, width: 0, height: 0, error, runs: input.preds.map((p) => ({ run: p.run, stats: null, error })) } };
+    }
+    const preds = await Promise.all(
+      input.preds.map(async (p) => ({ run: p.run, file: p.file ? await bytesOf(p.file).catch(() => null) : null })),
+    );
+    const photo = input.photo ? await bytesOf(input.photo).catch(() => null) : null;
+    const value = frameJobScore({ name: input.name, truth, preds, photo, table: input.table, settings: input.settings }, scratch);
+    return { value, transfer: frameResultBuffers(value) };
+  },
+};
