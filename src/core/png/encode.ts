@@ -2,7 +2,7 @@ import { zlibSync } from 'fflate';
 import type { LabelMap } from '../labelMap.ts';
 import { ihdrBytes, pngFromChunks, type PngChunk } from './chunkWrite.ts';
 import { pngRowsFilter } from './filterRows.ts';
-import { upngEncodeRgbaNoPalette } from './upng.ts';
+import { upngCompressRgba } from './upng.ts';
 
 /** How a label map is written: grayscale (value = id) or palette (index = id, `colors` flat r,g,b per index). */
 export type LabelPngEncoding =
@@ -78,5 +78,10 @@ export function rgbaToPng(width: number, height: number, rgba: Uint8Array): Uint
   // upng-js reads the pixels as a whole ArrayBuffer (and as 32-bit words), so hand it an exact copy.
   const own = rgba.byteOffset === 0 && rgba.byteLength === rgba.buffer.byteLength && rgba.buffer instanceof ArrayBuffer;
   const buffer = own ? (rgba.buffer as ArrayBuffer) : rgba.slice().buffer;
-  return new Uint8Array(upngEncodeRgbaNoPalette(buffer, width, height));
+  const { colorType, zlib } = upngCompressRgba(buffer, width, height);
+  return pngFromChunks([
+    { type: 'IHDR', data: ihdrBytes(width, height, 8, colorType, 0) },
+    { type: 'IDAT', data: zlib },
+    { type: 'IEND', data: new Uint8Array(0) },
+  ]);
 }

