@@ -58,7 +58,8 @@ function unknownColorsMessage(unknown: Map<number, number>, table: ClassTable, f
   const list = [...unknown].sort((a, b) => b[1] - a[1] || a[0] - b[0]);
   const hint = table.ignoreColor ? '' : ' (if one of them means void, set "ignoreColor" in classes.json)';
   if (list.length === 1) {
-    return fail(file, `${pixelCountText(list[0][1])} have colour ${rgb24ToColor(list[0][0])}, which is not in classes.json${hint}`);
+    const verb = list[0][1] === 1 ? 'has' : 'have';
+    return fail(file, `${pixelCountText(list[0][1])} ${verb} colour ${rgb24ToColor(list[0][0])}, which is not in classes.json${hint}`);
   }
   const total = list.reduce((s, [, n]) => s + n, 0);
   const named = list.slice(0, 3).map(([rgb, n]) => `${rgb24ToColor(rgb)} (${pixelCountText(n)})`);

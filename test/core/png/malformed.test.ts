@@ -123,6 +123,9 @@ describe('labelMapFromPng refuses malformed files with a message naming the file
     expect(decodeError(colours([[known, 796], [0x12ab34, 1204]]), { table })).toBe(
       `${FILE}: 1,204 pixels have colour #12ab34, which is not in classes.json (if one of them means void, set "ignoreColor" in classes.json)`,
     );
+    const withIgnoreColor = testTable([0, 1], 3, 255, '#ffffff');
+    const one = colours([[parseInt(withIgnoreColor.classes[1].color.slice(1), 16), 1999], [0xabcdef, 1]]);
+    expect(decodeError(one, { table: withIgnoreColor })).toBe(`${FILE}: 1 pixel has colour #abcdef, which is not in classes.json`);
     const many = colours([[known, 1000], [0x000001, 10], [0x000002, 500], [0x000003, 300], [0x000004, 190]]);
     expect(decodeError(many, { table })).toBe(
       `${FILE}: 1,000 pixels have 4 colours that are not in classes.json: #000002 (500 pixels), #000003 (300 pixels), #000004 (190 pixels) and 1 more (if one of them means void, set "ignoreColor" in classes.json)`,
