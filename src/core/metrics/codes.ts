@@ -1,0 +1,48 @@
+import type { LabelIds } from '../labelMap.ts';
+import { fail, ok, type Result } from '../result.ts';
+
+/**
+ * Pixel codes: every raw id 0..65535 gets a 16-bit code. Table classes take codes 0..K-1 (their
+ * index in the ascending id list), `ignore` takes K, every other id K+1.. in ascending order. The map
+ * is one-to-one, so two pixels differ in code exactly when they differ in id: boundaries and windows
+ * can be read from codes, while `code < K` says "a class" and `code === K` says "void" in one compare.
+ */
+export const CODE_TABLE_SIZE = 65536;
+
+/** Returns the id → code table (length 65536) for ascending `classIds` and `ignore`. */
+export function codeTableBuild(classIds: readonly number[], ignore: number, out?: Uint16Array): Uint16Array {
+  const table = out ?? new Uint16Array(CODE_TABLE_SIZE);
+  const k = classIds.length;
+  const isClass = new Uint8Array(CODE_TABLE_SIZE);
+  for (let c = 0; c < k; c++) {
+    table[classIds[c]] = c;
+    isClass[classIds[c]] = 1;
+  }
+  table[ignore] = k;
+  let next = k + 1;
+  for (let id = 0; id < CODE_TABLE_SIZE; id++) {
+    if (isClass[id] || id === ignore) continue;
+    table[id] = next++;
+  }
+  return table;
+}
+
+/**
+ * Writes the codes of pixels [start, end) of `ids` into the same positions of `out`.
+ * Hot loop: flat typed arrays, no allocation per pixel.
+ */
+export function labelCodesFill(ids: LabelIds, table: Uint16Array, out: Uint16Array, start: number, end: number): void {
+  for (let i = start; i < end; i++) out[i] = table[ids[i]];
+}
+
+/** Returns the class ids if they are ascending, distinct integers 0..65535 without `ignore`, or the problem. */
+export function classIdsCheck(classIds: readonly number[], ignore: number): Result<readonly number[]> {
+  if (classIds.length === 0) return fail('', 'class list is empty: score at least one class');
+  for (let c = 0; c < classIds.length; c++) {
+    const id = classIds[c];
+    if (!Number.isInteger(id) || id < 0 || id > 65535) return fail('', `class id ${id} is not an integer 0..65535`);
+    if (c > 0 && id <= classIds[c - 1]) return fail('', `class ids must be ascending and distinct (${classIds[c - 1]} then ${id})`);
+    if (id === ignore) return fail('', `class id ${id} is also the "ignore" (void) id`);
+  }
+  return ok(classIds);
+}

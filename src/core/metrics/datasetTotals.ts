@@ -1,0 +1,93 @@
+import { BAND_BINS } from './bandHistogram.ts';
+import type { FrameStats } from './frameScore.ts';
+import { boundaryFOfClass, frameSummary } from './frameSummary.ts';
+
+/**
+ * Dataset sums of frame counts (pixels), over a fixed class list. Float64 so sums pass 2^32; every
+ * dataset score is computed from these sums (VOC convention), except the two per-frame means
+ * METRICS.md defines (frame-mean IoU, dataset BF), kept as running sums.
+ */
+export interface DatasetTotals {
+  classIds: number[];
+  frames: number;
+  confusion: Float64Array;
+  band: Float64Array;
+  biouInter: Float64Array;
+  biouUnion: Float64Array;
+  frameMeanIoUSum: number;
+  frameMeanIoUCount: number;
+  frameBFSum: number;
+  frameBFCount: number;
+  /** Per class: sum and count over frames of that frame's BF for the class (per-image averaging). */
+  bfClassSum: Float64Array;
+  bfClassCount: Float64Array;
+}
+
+/** Returns empty totals over `classIds` (ascending table ids). */
+export function datasetTotalsCreate(classIds: readonly number[]): DatasetTotals {
+  const k = classIds.length;
+  return {
+    classIds: [...classIds],
+    frames: 0,
+    confusion: new Float64Array(k * (k + 1)),
+    band: new Float64Array(BAND_BINS * k * (k + 1)),
+    biouInter: new Float64Array(k),
+    biouUnion: new Float64Array(k),
+    frameMeanIoUSum: 0,
+    frameMeanIoUCount: 0,
+    frameBFSum: 0,
+    frameBFCount: 0,
+    bfClassSum: new Float64Array(k),
+    bfClassCount: new Float64Array(k),
+  };
+}
+
+/**
+ * Adds one frame's counts into `totals`. The frame may score a different class list (a generated
+ * table scores the ids present in each frame): its rows and columns are mapped by id, and its
+ * "invalid" column stays invalid. Ids the totals do not know are a programming error.
+ */
+export function datasetTotalsAdd(totals: DatasetTotals, stats: FrameStats): void {
+  const K = totals.classIds.length;
+  const k = stats.classIds.length;
+  const index = new Map(totals.classIds.map((id, i) => [id, i]));
+  const map = new Int32Array(k + 1);
+  for (let c = 0; c < k; c++) {
+    const at = index.get(stats.classIds[c]);
+    if (at === undefined) throw new Error(`class id ${stats.classIds[c]} is not in the dataset's class list`);
+    map[c] = at;
+  }
+  map[k] = K;
+  const S = K * (K + 1);
+  const s = k * (k + 1);
+  for (let b = 0; b < BAND_BINS; b++) {
+    for (let g = 0; g < k; g++) {
+      const src = b * s + g * (k + 1);
+      const dst = b * S + map[g] * (K + 1);
+      for (let p = 0; p <= k; p++) {
+        const v = stats.band[src + p];
+        if (v) totals.band[dst + map[p]] += v;
+      }
+    }
+  }
+  for (let g = 0; g < k; g++) {
+    for (let p = 0; p <= k; p++) totals.confusion[map[g] * (K + 1) + map[p]] += stats.confusion[g * (k + 1) + p];
+    totals.biouInter[map[g]] += stats.biouInter[g];
+    totals.biouUnion[map[g]] += stats.biouUnion[g];
+    const f = boundaryFOfClass(stats, g);
+    if (f !== null) {
+      totals.bfClassSum[map[g]] += f;
+      totals.bfClassCount[map[g]]++;
+    }
+  }
+  const sum = frameSummary(stats, 0);
+  totals.frames++;
+  if (sum.meanIoU !== null) {
+    totals.frameMeanIoUSum += sum.meanIoU;
+    totals.frameMeanIoUCount++;
+  }
+  if (sum.boundaryF !== null) {
+    totals.frameBFSum += sum.boundaryF;
+    totals.frameBFCount++;
+  }
+}

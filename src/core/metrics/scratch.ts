@@ -1,0 +1,84 @@
+import { bandBinOffsets } from './bandHistogram.ts';
+import { innerBandWorkCreate, type InnerBandWork } from './boundaryIoU.ts';
+import { boundaryFWorkCreate, type BoundaryFWork } from './boundaryF.ts';
+import { codeTableBuild, CODE_TABLE_SIZE } from './codes.ts';
+import { distanceWorkCreate, type DistanceWork } from './distanceCapped.ts';
+import type { EdgeScan } from './edgeRows.ts';
+
+/**
+ * Buffers frameScore reuses from frame to frame (one per thread): per-pixel code, column-distance
+ * and distance maps, edge lists, work rows, and the id → code and distance → bin tables of the last
+ * class list. They grow to the largest frame seen and are never shrunk, so a run over many frames
+ * allocates once.
+ */
+export interface ScoreScratch {
+  pixels: number;
+  width: number;
+  truthCodes: Uint16Array;
+  predCodes: Uint16Array;
+  edges: EdgeScan;
+  dist2: Uint16Array;
+  distance: DistanceWork;
+  innerBand: InnerBandWork;
+  boundaryF: BoundaryFWork;
+  codeTable: Uint16Array;
+  codeKey: string;
+  binOffsets: Int32Array;
+  binKey: string;
+}
+
+/** Returns an empty scratch (buffers are sized by the first frame). */
+export function scoreScratchCreate(): ScoreScratch {
+  return {
+    pixels: 0,
+    width: 0,
+    truthCodes: new Uint16Array(0),
+    predCodes: new Uint16Array(0),
+    edges: { fwd: new Uint8Array(0), listT: new Int32Array(0), listP: new Int32Array(0), nT: 0, nP: 0 },
+    dist2: new Uint16Array(0),
+    distance: distanceWorkCreate(0),
+    innerBand: innerBandWorkCreate(0),
+    boundaryF: boundaryFWorkCreate(),
+    codeTable: new Uint16Array(CODE_TABLE_SIZE),
+    codeKey: '',
+    binOffsets: new Int32Array(0),
+    binKey: '',
+  };
+}
+
+/** Grows the per-pixel maps and work rows of `s` to hold a width × height frame. */
+export function scoreScratchFit(s: ScoreScratch, width: number, height: number): void {
+  const n = width * height;
+  if (s.pixels < n) {
+    s.truthCodes = new Uint16Array(n);
+    s.predCodes = new Uint16Array(n);
+    s.edges = { fwd: new Uint8Array(n), listT: new Int32Array(n), listP: new Int32Array(n), nT: 0, nP: 0 };
+    s.dist2 = new Uint16Array(n);
+    s.pixels = n;
+  }
+  if (s.width < width) {
+    s.distance = distanceWorkCreate(width);
+    s.innerBand = innerBandWorkCreate(width);
+    s.width = width;
+  }
+}
+
+/** Returns the id → code table for this class list and void id, rebuilt only when they change. */
+export function scoreScratchCodeTable(s: ScoreScratch, classIds: readonly number[], ignore: number): Uint16Array {
+  const key = `${ignore}|${classIds.join(',')}`;
+  if (s.codeKey !== key) {
+    codeTableBuild(classIds, ignore, s.codeTable);
+    s.codeKey = key;
+  }
+  return s.codeTable;
+}
+
+/** Returns the squared distance → band bin offset table for `limit` (pixels) and `k` classes. */
+export function scoreScratchBinOffsets(s: ScoreScratch, limit: number, k: number): Int32Array {
+  const key = `${limit}|${k}`;
+  if (s.binKey !== key) {
+    s.binOffsets = bandBinOffsets(limit, k);
+    s.binKey = key;
+  }
+  return s.binOffsets;
+}
