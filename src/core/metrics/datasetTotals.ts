@@ -1,6 +1,8 @@
+import { fail, ok, type Result } from '../result.ts';
 import { BAND_BINS } from './bandHistogram.ts';
 import type { FrameStats } from './frameScore.ts';
-import { boundaryFOfClass, frameSummary } from './frameSummary.ts';
+import { boundaryFOfClass, frameBoundaryF } from './frameSummary.ts';
+import { iouFamily } from './iouFamily.ts';
 
 /**
  * Dataset sums of frame counts (pixels), over a fixed class list. Float64 so sums pass 2^32; every
@@ -80,14 +82,36 @@ export function datasetTotalsAdd(totals: DatasetTotals, stats: FrameStats): void
       totals.bfClassCount[map[g]]++;
     }
   }
-  const sum = frameSummary(stats, 0);
+  const meanIoU = iouFamily(stats.confusion, k).meanIoU;
+  const bf = frameBoundaryF(stats);
   totals.frames++;
-  if (sum.meanIoU !== null) {
-    totals.frameMeanIoUSum += sum.meanIoU;
+  if (meanIoU !== null) {
+    totals.frameMeanIoUSum += meanIoU;
     totals.frameMeanIoUCount++;
   }
-  if (sum.boundaryF !== null) {
-    totals.frameBFSum += sum.boundaryF;
+  if (bf !== null) {
+    totals.frameBFSum += bf;
     totals.frameBFCount++;
   }
+}
+
+/**
+ * Adds the totals `from` into `into` (shards scored apart, e.g. on other threads or machines), or
+ * returns why they cannot be merged: sums only mean something over the same class list.
+ */
+export function datasetTotalsMerge(into: DatasetTotals, from: DatasetTotals): Result<DatasetTotals> {
+  if (into.classIds.join(',') !== from.classIds.join(',')) {
+    return fail('', `cannot merge totals over classes [${from.classIds.join(', ')}] into totals over [${into.classIds.join(', ')}]`);
+  }
+  const arrays = ['confusion', 'band', 'biouInter', 'biouUnion', 'bfClassSum', 'bfClassCount'] as const;
+  for (const key of arrays) {
+    const a = into[key], b = from[key];
+    for (let i = 0; i < a.length; i++) a[i] += b[i];
+  }
+  into.frames += from.frames;
+  into.frameMeanIoUSum += from.frameMeanIoUSum;
+  into.frameMeanIoUCount += from.frameMeanIoUCount;
+  into.frameBFSum += from.frameBFSum;
+  into.frameBFCount += from.frameBFCount;
+  return ok(into);
 }

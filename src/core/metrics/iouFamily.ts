@@ -51,6 +51,24 @@ export function iouFamily(m: ArrayLike<number>, k: number, offset = 0): IoUFamil
 }
 
 /**
+ * Returns the confusion (K × (K+1), pixels) of Band(w) from a band histogram (BAND_BINS × K × (K+1)):
+ * the sum of bins 0..w, i.e. the valid pixels with ceil(d) ≤ w, i.e. d ≤ w (METRICS.md). `w` is
+ * clamped to 0..64.
+ */
+export function bandConfusionAt(band: ArrayLike<number>, k: number, w: number): Float64Array {
+  const stride = k * (k + 1);
+  const top = Math.max(0, Math.min(BAND_WIDTH_MAX, Math.floor(w)));
+  const out = new Float64Array(stride);
+  for (let b = 0; b <= top; b++) for (let i = 0; i < stride; i++) out[i] += band[b * stride + i];
+  return out;
+}
+
+/** Returns the IoU family inside Band(w) (per-class band IoU in `perClass[c].iou`, ratios 0..1). */
+export function bandScoresAt(band: ArrayLike<number>, k: number, w: number): IoUFamily {
+  return iouFamily(bandConfusionAt(band, k, w), k);
+}
+
+/**
  * Returns the confusion of Band(w) for every width w = 0..64 from a band histogram (BAND_BINS × K ×
  * (K+1)): a running prefix sum over bins, so width w holds the pixels with ceil(d) ≤ w (METRICS.md).
  */
@@ -65,7 +83,7 @@ export function bandConfusions(band: ArrayLike<number>, k: number): Float64Array
   return out;
 }
 
-/** Returns mean IoU and pixel accuracy inside Band(w) for w = 0..64. */
+/** Returns mean IoU and pixel accuracy (ratios 0..1, null where undefined) inside Band(w) for w = 0..64. */
 export function bandCurve(band: ArrayLike<number>, k: number): { width: number; meanIoU: number | null; pixelAccuracy: number | null }[] {
   return bandConfusions(band, k).map((m, width) => {
     const f = iouFamily(m, k);
