@@ -21,7 +21,9 @@ export function datasetFromSource(source: DatasetSource): LoadedDataset {
 export function datasetInstall(store: AppStore, dataset: LoadedDataset, frameIndex = 0): void {
   const s = store.getState();
   if (dataset.table) s.settingsSet({ ignore: dataset.table.ignore });
+  const runs = dataset.pairing.runs;
   store.setState({ frameIndex: 0, place: null });
+  s.layersSet({ runA: runs[0] ?? null, runB: null, curtain: { on: false, x: 0 } });
   s.datasetSet(dataset);
   store.getState().frameIndexSet(frameIndex);
 }

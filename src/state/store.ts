@@ -2,10 +2,11 @@ import { createStore, type StoreApi } from 'zustand/vanilla';
 import { datasetSlice, type DatasetSlice } from './datasetSlice.ts';
 import { scoresSlice, type ScoresSlice } from './scoresSlice.ts';
 import { settingsSlice, type SettingsSlice } from './settingsSlice.ts';
+import { shownSlice, type ShownSlice } from './shownSlice.ts';
 import { viewSlice, type ViewSlice } from './viewSlice.ts';
 
 /** Everything the app holds: the dataset, score settings, per-frame scores and the view. */
-export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice;
+export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice & ShownSlice;
 export type AppStore = StoreApi<AppState>;
 
 /** Returns a new app store combining every slice (usable without React: getState/subscribe). */
@@ -15,5 +16,6 @@ export function appStoreCreate(): AppStore {
     ...settingsSlice(...a),
     ...scoresSlice(...a),
     ...viewSlice(...a),
+    ...shownSlice(...a),
   }));
 }

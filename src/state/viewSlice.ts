@@ -25,6 +25,9 @@ export interface ViewSlice {
   sortWorstFirst: boolean;
   pixelGrid: boolean;
   helpOpen: boolean;
+  /** Stepping through frames by itself at `playRate` frames per second. */
+  playing: boolean;
+  playRate: number;
   frameIndexSet(index: number): void;
   layersSet(patch: Partial<LayerSettings>): void;
   placeSet(place: ViewPlace | null): void;
@@ -32,6 +35,8 @@ export interface ViewSlice {
   sortWorstFirstSet(v: boolean): void;
   pixelGridSet(v: boolean): void;
   helpOpenSet(v: boolean): void;
+  playingSet(v: boolean): void;
+  playRateSet(fps: number): void;
 }
 
 /** Returns the view slice of the app store (what is on screen and how). */
@@ -43,6 +48,8 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   sortWorstFirst: true,
   pixelGrid: false,
   helpOpen: false,
+  playing: false,
+  playRate: 4,
   frameIndexSet: (index) => {
     const count = get().dataset?.pairing.frames.length ?? 0;
     const clamped = count === 0 ? 0 : Math.max(0, Math.min(count - 1, Math.round(index)));
@@ -54,4 +61,6 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   sortWorstFirstSet: (sortWorstFirst) => set({ sortWorstFirst }),
   pixelGridSet: (pixelGrid) => set({ pixelGrid }),
   helpOpenSet: (helpOpen) => set({ helpOpen }),
+  playingSet: (playing) => set({ playing }),
+  playRateSet: (fps) => set({ playRate: Math.max(0.5, Math.min(30, fps)) }),
 });

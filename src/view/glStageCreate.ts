@@ -1,5 +1,7 @@
 // Makes the WebGL2 stage, or says why it cannot. pixi.js would otherwise fall back silently to a
 // renderer where custom shaders draw nothing, so WebGL2 is probed first and the result checked.
+// The app's Content-Security-Policy has no 'unsafe-eval'; this makes pixi build its shader glue without eval.
+import 'pixi.js/unsafe-eval';
 import { RendererType, WebGLRenderer } from 'pixi.js';
 import { fail, ok, type Result } from '../core/result.ts';
 import { GlStage } from './glStage.ts';

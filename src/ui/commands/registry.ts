@@ -1,5 +1,18 @@
 import type { AppStore } from '../../state/store.ts';
 
+/** What the viewer offers commands (zoom acts on the canvas, which only the viewer knows). */
+export interface ViewerControls {
+  zoomBy(factor: number): void;
+  fit(): void;
+  oneToOne(): void;
+}
+
+/** What a command acts on: the store, and the viewer when one is mounted. */
+export interface CommandContext {
+  store: AppStore;
+  viewer: ViewerControls | null;
+}
+
 /** One user command: defined once, read by buttons, the keyboard and the help overlay. */
 export interface Command {
   id: string;
@@ -10,8 +23,8 @@ export interface Command {
   /** Keys in `KeyboardEvent.key` terms, with optional `Shift+` / `Ctrl+` prefixes. */
   keys: string[];
   /** Whether the command can run now. */
-  enabled(store: AppStore): boolean;
-  run(store: AppStore): void;
+  enabled(ctx: CommandContext): boolean;
+  run(ctx: CommandContext): void;
 }
 
 /** Returns the key chord of a keyboard event in the notation of `Command.keys` (e.g. `Shift+J`). */

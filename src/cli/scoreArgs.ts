@@ -1,0 +1,73 @@
+import { availableParallelism } from 'node:os';
+import { argsParse, namedDirParse, UsageError } from './args.ts';
+
+/** Options of `npm run score`, validated. */
+export interface ScoreOptions {
+  truth: string;
+  runs: { name: string; dir: string }[];
+  images: string | null;
+  confidence: { name: string; dir: string }[];
+  classes: string | null;
+  ignore: number | null;
+  out: string | null;
+  csv: string | null;
+  workers: number;
+  biouRatio: number;
+  bfTolerance: number;
+}
+
+export const SCORE_USAGE = `usage: npm run score -- --truth DIR --pred [NAME=]DIR [--pred ...] [--classes FILE] [--ignore N]
+       [--images DIR] [--confidence NAME=DIR] [--out report.json] [--csv frames.csv] [--workers N]
+       [--biou-ratio R] [--bf-tolerance T]`;
+
+/** Returns the scorer's options from argv, or throws UsageError naming the mistake. */
+export function scoreOptionsParse(argv: string[]): ScoreOptions {
+  const a = argsParse(argv, {
+    truth: { kind: 'string' },
+    pred: { kind: 'string', repeat: true },
+    images: { kind: 'string' },
+    confidence: { kind: 'string', repeat: true },
+    classes: { kind: 'string' },
+    ignore: { kind: 'number' },
+    out: { kind: 'string' },
+    csv: { kind: 'string' },
+    workers: { kind: 'number' },
+    'biou-ratio': { kind: 'number' },
+    'bf-tolerance': { kind: 'number' },
+    help: { kind: 'flag' },
+  });
+  if (a.help) throw new UsageError(SCORE_USAGE);
+  if (a._.length) throw new UsageError(`unexpected argument "${a._[0]}"`);
+  if (typeof a.truth !== 'string') throw new UsageError('--truth DIR is required');
+  const preds = (a.pred as string[] | undefined) ?? [];
+  if (preds.length === 0) throw new UsageError('--pred DIR is required (give it once per prediction run)');
+  const runs = preds.map((p) => namedDirParse(p, 'pred'));
+  const names = new Set<string>();
+  for (const r of runs) {
+    if (names.has(r.name)) throw new UsageError(`two runs are named "${r.name}"; name them with --pred NAME=DIR`);
+    names.add(r.name);
+  }
+  const confidence = ((a.confidence as string[] | undefined) ?? []).map((c) => namedDirParse(c, 'confidence'));
+  for (const c of confidence) if (!names.has(c.name)) throw new UsageError(`--confidence ${c.name}=…: no run named "${c.name}"`);
+  const ignore = a.ignore as number | undefined;
+  if (ignore !== undefined && (!Number.isInteger(ignore) || ignore < 0 || ignore > 65535)) throw new UsageError(`--ignore must be an integer 0..65535, got ${ignore}`);
+  const workers = (a.workers as number | undefined) ?? availableParallelism();
+  if (!Number.isInteger(workers) || workers < 1 || workers > 256) throw new UsageError(`--workers must be an integer 1..256, got ${workers}`);
+  const biouRatio = (a['biou-ratio'] as number | undefined) ?? 0.02;
+  if (!(biouRatio > 0 && biouRatio <= 1)) throw new UsageError(`--biou-ratio must be in (0, 1], got ${biouRatio}`);
+  const bfTolerance = (a['bf-tolerance'] as number | undefined) ?? 0.0075;
+  if (!(bfTolerance > 0 && bfTolerance <= 1)) throw new UsageError(`--bf-tolerance must be in (0, 1], got ${bfTolerance}`);
+  return {
+    truth: a.truth,
+    runs,
+    images: (a.images as string | undefined) ?? null,
+    confidence,
+    classes: (a.classes as string | undefined) ?? null,
+    ignore: ignore ?? null,
+    out: (a.out as string | undefined) ?? null,
+    csv: (a.csv as string | undefined) ?? null,
+    workers,
+    biouRatio,
+    bfTolerance,
+  };
+}

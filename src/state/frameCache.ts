@@ -1,0 +1,63 @@
+import type { ClassTable } from '../core/classTable.ts';
+import type { WorkerPool } from '../workers/pool.ts';
+import type { FileBlob } from '../workers/scoreJobs.ts';
+import { VIEW_COMMANDS, type DecodedFrame, type FrameDecodeRequest } from '../workers/viewJobs.ts';
+import type { LoadedDataset } from './datasetSlice.ts';
+
+/** Decoded frames kept around the cursor: a small LRU, so memory stays flat however long the dataset. */
+export interface FrameCache {
+  /** Returns the decoded frame (from the cache, or decoded in a view worker). */
+  get(index: number): Promise<DecodedFrame>;
+  /** Starts decoding `index` in the background if it is not cached. */
+  prefetch(index: number): void;
+  /** Indices currently held. */
+  held(): number[];
+}
+
+/** Returns an LRU cache of at most `capacity` decoded frames of `dataset`. */
+export function frameCacheCreate(dataset: LoadedDataset, table: ClassTable, pool: WorkerPool, capacity = 5): FrameCache {
+  const entries = new Map<number, Promise<DecodedFrame>>();
+
+  async function blob(folder: string, path: string | null): Promise<FileBlob | null> {
+    if (path === null) return null;
+    return { file: `${folder}/${path}`, blob: await dataset.source.read(folder, path) };
+  }
+
+  async function decode(index: number): Promise<DecodedFrame> {
+    const frame = dataset.pairing.frames[index];
+    const req: FrameDecodeRequest = {
+      name: frame.name,
+      truth: (await blob('truth', frame.truth))!,
+      preds: await Promise.all(
+        dataset.pairing.runs.map(async (run) => ({ run, file: await blob(`predictions/${run}`, frame.predictions[run]).catch(() => null) })),
+      ),
+      photo: await blob('images', frame.image).catch(() => null),
+      table,
+    };
+    return pool.run<DecodedFrame>(VIEW_COMMANDS.frameDecode, req);
+  }
+
+  function touch(index: number): Promise<DecodedFrame> {
+    let p = entries.get(index);
+    if (p) {
+      entries.delete(index);
+      entries.set(index, p);
+      return p;
+    }
+    p = decode(index);
+    entries.set(index, p);
+    // A failed decode is not kept, so a retry can succeed (e.g. after a file is fixed).
+    p.catch(() => entries.get(index) === p && entries.delete(index));
+    while (entries.size > capacity) entries.delete(entries.keys().next().value!);
+    return p;
+  }
+
+  return {
+    get: (index) => touch(index),
+    prefetch(index) {
+      if (index < 0 || index >= dataset.pairing.frames.length || entries.has(index)) return;
+      touch(index).catch(() => {});
+    },
+    held: () => [...entries.keys()],
+  };
+}

@@ -1,0 +1,111 @@
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { frameOrder, frameRowsOf, rowValue, type FrameRow } from '../state/frameRows.ts';
+import type { FrameScoreKey } from '../state/viewSlice.ts';
+import { countShort, pct } from './format.ts';
+import { useApp, useAppStore } from './storeContext.tsx';
+
+const ROW_H = 24;
+
+const COLUMNS: { key: FrameScoreKey; label: string; title: string }[] = [
+  { key: 'meanIoU', label: 'mIoU', title: 'Mean IoU of the frame (%)' },
+  { key: 'bandIoU', label: 'band', title: 'Mean IoU inside the boundary band at the chosen width (%)' },
+  { key: 'boundaryIoU', label: 'BIoU', title: 'Boundary IoU (%)' },
+  { key: 'boundaryF', label: 'BF', title: 'Boundary F-score (%)' },
+  { key: 'errorPixels', label: 'wrong px', title: 'Valid pixels where the prediction differs from the ground truth' },
+];
+
+function cell(row: FrameRow, key: FrameScoreKey): string {
+  const v = rowValue(row, key);
+  if (v === null) return row.pending ? '…' : '—';
+  return key === 'errorPixels' ? countShort(v) : pct(v);
+}
+
+/** The frame list: every frame with its scores for run A, sortable, virtualised for long datasets. */
+export function FrameList() {
+  const store = useAppStore();
+  const results = useApp((s) => s.results);
+  const dataset = useApp((s) => s.dataset);
+  const runA = useApp((s) => s.layers.runA);
+  const bandWidth = useApp((s) => s.layers.band.width);
+  const sortKey = useApp((s) => s.frameScore);
+  const worstFirst = useApp((s) => s.sortWorstFirst);
+  const current = useApp((s) => s.frameIndex);
+  const rows = useMemo(() => frameRowsOf(store.getState()), [store, results, dataset, runA, bandWidth]);
+  const order = useMemo(() => frameOrder(store.getState()), [store, rows, sortKey, worstFirst]);
+  const scroller = useRef<HTMLDivElement>(null);
+  const [scrollTop, setScrollTop] = useState(0);
+  const [height, setHeight] = useState(400);
+
+  useEffect(() => {
+    const el = scroller.current;
+    if (!el) return;
+    const ro = new ResizeObserver(() => setHeight(el.clientHeight));
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+
+  // Keep the current frame in view when it changes from the keyboard or the timeline.
+  useEffect(() => {
+    const el = scroller.current;
+    if (!el) return;
+    const at = order.indexOf(current);
+    if (at < 0) return;
+    const top = at * ROW_H;
+    if (top < el.scrollTop) el.scrollTop = top;
+    else if (top + ROW_H > el.scrollTop + el.clientHeight) el.scrollTop = top + ROW_H - el.clientHeight;
+  }, [current, order]);
+
+  const first = Math.max(0, Math.floor(scrollTop / ROW_H) - 5);
+  const last = Math.min(order.length, Math.ceil((scrollTop + height) / ROW_H) + 5);
+
+  const sortBy = (key: FrameScoreKey) => {
+    const s = store.getState();
+    if (s.frameScore === key) s.sortWorstFirstSet(!s.sortWorstFirst);
+    else {
+      s.frameScoreSet(key);
+      s.sortWorstFirstSet(true);
+    }
+  };
+
+  return (
+    <div className="frame-list">
+      <div className="fl-head">
+        <span className="fl-name">frame</span>
+        {COLUMNS.map((c) => (
+          <button key={c.key} className={c.key === sortKey ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => sortBy(c.key)}>
+            {c.key === 'bandIoU' ? `${c.label} ${bandWidth}` : c.label}
+            {c.key === sortKey ? (worstFirst ? ' ▲' : ' ▼') : ''}
+          </button>
+        ))}
+      </div>
+      <div className="fl-scroll" ref={scroller} onScroll={(e) => setScrollTop(e.currentTarget.scrollTop)}>
+        <div style={{ height: order.length * ROW_H, position: 'relative' }}>
+          {order.slice(first, last).map((index, i) => {
+            const row = rows[index];
+            return (
+              <div
+                key={index}
+                className={`fl-row${index === current ? ' fl-current' : ''}${row.error ? ' fl-error' : ''}`}
+                style={{ top: (first + i) * ROW_H, height: ROW_H }}
+                title={row.error ?? row.name}
+                data-frame={row.name}
+                onClick={() => store.getState().frameIndexSet(index)}
+              >
+                <span className="fl-name">{row.name}</span>
+                {row.error ? (
+                  <span className="fl-err">failed</span>
+                ) : (
+                  COLUMNS.map((c) => (
+                    <span key={c.key} className="fl-col">
+                      {cell(row, c.key)}
+                    </span>
+                  ))
+                )}
+              </div>
+            );
+          })}
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,45 @@
+import { useEffect, useRef } from 'react';
+import { classTableFind } from '../core/classTable.ts';
+import { truthBoundaryDistanceAt } from '../core/pointDistance.ts';
+import { scoringTableOf } from '../state/scoringRun.ts';
+import type { Viewer } from '../view/viewer.ts';
+import { useAppStore } from './storeContext.tsx';
+
+/**
+ * The line under the viewer: pixel position, ground-truth class, each run's class and the distance to
+ * the nearest ground-truth boundary. Written straight into the DOM on pointer moves (no re-render).
+ */
+export function Readout({ viewer }: { viewer: Viewer }) {
+  const store = useAppStore();
+  const line = useRef<HTMLDivElement>(null);
+  useEffect(
+    () =>
+      viewer.onPointer((p) => {
+        const el = line.current;
+        if (!el) return;
+        const s = store.getState();
+        const f = s.shown;
+        if (!p || !f?.truth || !s.dataset) {
+          el.textContent = 'point at the frame to read classes';
+          return;
+        }
+        const table = scoringTableOf(s.dataset, s.settings);
+        const name = (id: number) => (id === table.ignore ? 'void' : (classTableFind(table, id)?.name ?? `not a class (${id})`));
+        const i = p.y * f.width + p.x;
+        const parts = [`x ${p.x}  y ${p.y}`, `truth: ${name(f.truth.ids[i])}`];
+        for (const run of s.dataset.pairing.runs) {
+          const m = f.preds[run];
+          if (m) parts.push(`${run}: ${name(m.ids[i])}`);
+        }
+        const d = truthBoundaryDistanceAt(f.truth, p.x, p.y);
+        parts.push(d === null ? 'boundary > 64 px' : `boundary ${d.toFixed(2)} px`);
+        el.textContent = parts.join('   ·   ');
+      }),
+    [viewer, store],
+  );
+  return (
+    <div className="readout" ref={line} data-testid="readout">
+      point at the frame to read classes
+    </div>
+  );
+}

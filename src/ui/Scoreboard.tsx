@@ -1,0 +1,130 @@
+import { useState } from 'react';
+import { shownRun } from '../state/frameRows.ts';
+import { BandCurve } from './BandCurve.tsx';
+import { ConfusionMap } from './ConfusionMap.tsx';
+import { pct } from './format.ts';
+import type { ScopeScores } from './scoreboardData.ts';
+import { useApp, useAppStore } from './storeContext.tsx';
+import { useScopes } from './useScopes.ts';
+
+const TABS = ['scores', 'confusion', 'band'] as const;
+type Tab = (typeof TABS)[number];
+const TAB_NAMES: Record<Tab, string> = { scores: 'Scores', confusion: 'Confusion matrix', band: 'Band curve' };
+
+function Headline({ label, d, f }: { label: string; d: number | null | undefined; f: number | null | undefined }) {
+  return (
+    <tr>
+      <th>{label}</th>
+      <td data-scope="dataset">{pct(d)}</td>
+      <td data-scope="frame">{pct(f)}</td>
+    </tr>
+  );
+}
+
+function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: ScopeScores | null; w: number }) {
+  const rows = dataset?.rows ?? frame?.rows ?? [];
+  const frameRow = new Map((frame?.rows ?? []).map((r) => [r.id, r]));
+  return (
+    <>
+      <table className="headline" data-testid="headline">
+        <thead>
+          <tr>
+            <th />
+            <th>dataset</th>
+            <th>this frame</th>
+          </tr>
+        </thead>
+        <tbody>
+          <Headline label="mean IoU" d={dataset?.meanIoU} f={frame?.meanIoU} />
+          <Headline label="pixel accuracy" d={dataset?.pixelAccuracy} f={frame?.pixelAccuracy} />
+          <Headline label="mean class accuracy" d={dataset?.meanAccuracy} f={frame?.meanAccuracy} />
+          <Headline label="freq.-weighted IoU" d={dataset?.fwIoU} f={frame?.fwIoU} />
+          <Headline label={`band IoU at ${w} px`} d={dataset?.bandIoU} f={frame?.bandIoU} />
+          <Headline label="Boundary IoU" d={dataset?.boundaryIoU} f={frame?.boundaryIoU} />
+          <Headline label="Boundary F" d={dataset?.boundaryF} f={frame?.boundaryF} />
+          <Headline label="mean of frame mIoU" d={dataset?.frameMeanIoU} f={null} />
+        </tbody>
+      </table>
+      <table className="classes" data-testid="class-table">
+        <thead>
+          <tr>
+            <th>class</th>
+            <th title="IoU, dataset / this frame (%)">IoU</th>
+            <th title={`IoU inside the ${w}-pixel boundary band (%)`}>band {w}</th>
+            <th title="Boundary IoU (%)">BIoU</th>
+            <th title="Boundary F (%)">BF</th>
+            <th title="Share of valid ground-truth pixels (%)">share</th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((r) => {
+            const fr = frameRow.get(r.id);
+            return (
+              <tr key={r.id} data-class={r.id}>
+                <td>
+                  <span className="swatch" style={{ background: r.color }} /> {r.name}
+                </td>
+                <td>
+                  {pct(r.iou)} <span className="dim">{pct(fr?.iou)}</span>
+                </td>
+                <td>
+                  {pct(r.bandIoU)} <span className="dim">{pct(fr?.bandIoU)}</span>
+                </td>
+                <td>
+                  {pct(r.boundaryIoU)} <span className="dim">{pct(fr?.boundaryIoU)}</span>
+                </td>
+                <td>
+                  {pct(r.boundaryF)} <span className="dim">{pct(fr?.boundaryF)}</span>
+                </td>
+                <td>{pct(r.share)}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      <p className="dim small">Each cell: dataset, then this frame in gray. Dataset scores sum pixels over all frames; Boundary F is the mean over frames.</p>
+    </>
+  );
+}
+
+/** The scoreboard: dataset and current frame side by side, for run A (and run B on the band curve). */
+export function Scoreboard() {
+  const store = useAppStore();
+  const [tab, setTab] = useState<Tab>('scores');
+  const run = useApp(shownRun);
+  const runB = useApp((s) => s.layers.runB);
+  const w = useApp((s) => s.layers.band.width);
+  const band = useApp((s) => s.layers.band);
+  const { dataset, frame, classes } = useScopes(run);
+  const scopesB = useScopes(runB);
+  return (
+    <div className="scoreboard">
+      <div className="tabs" role="tablist">
+        {TABS.map((t) => (
+          <button key={t} role="tab" aria-selected={tab === t} className={tab === t ? 'tab on' : 'tab'} onClick={() => setTab(t)}>
+            {TAB_NAMES[t]}
+          </button>
+        ))}
+      </div>
+      <div className="band-slider">
+        <label>
+          band width <b data-testid="band-width">{w}</b> px
+          <input
+            type="range"
+            min={0}
+            max={64}
+            value={w}
+            aria-label="band width"
+            onChange={(e) => store.getState().layersSet({ band: { ...band, width: Number(e.currentTarget.value) } })}
+          />
+        </label>
+        <span className="dim">run {run ?? '—'}</span>
+      </div>
+      <div className="tab-body">
+        {tab === 'scores' && <ScoresTab dataset={dataset} frame={frame} w={w} />}
+        {tab === 'confusion' && <ConfusionMap dataset={dataset} frame={frame} classes={classes} run={run} />}
+        {tab === 'band' && <BandCurve runA={run} runB={runB} a={dataset} aFrame={frame} b={scopesB.dataset} w={w} />}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,77 @@
+import { useAppStore, useApp, useAppShallow } from './storeContext.tsx';
+import { OpenFolderButton } from './OpenFolder.tsx';
+
+const NO_RUNS: string[] = [];
+
+function ScoringProgress() {
+  const { done, total, failed, finishedAt } = useAppShallow((s) => ({
+    done: s.scoring.done,
+    total: s.scoring.total,
+    failed: s.scoring.failed,
+    finishedAt: s.scoring.finishedAt,
+  }));
+  if (total === 0) return null;
+  const running = finishedAt === null;
+  return (
+    <div className={running ? 'progress running' : 'progress'} role="status" aria-live="polite" data-done={done} data-total={total}>
+      <div className="progress-bar">
+        <div className="progress-fill" style={{ width: `${(done / total) * 100}%` }} />
+      </div>
+      <span>
+        {running ? `scoring ${done} / ${total}` : `scored ${total} frames`}
+        {failed ? ` · ${failed} failed` : ''}
+      </span>
+    </div>
+  );
+}
+
+function RunPicker({ which }: { which: 'runA' | 'runB' }) {
+  const store = useAppStore();
+  const runs = useApp((s) => s.dataset?.pairing.runs ?? NO_RUNS);
+  const value = useApp((s) => s.layers[which]);
+  if (runs.length === 0) return null;
+  return (
+    <label className="run-picker">
+      {which === 'runA' ? 'run A' : 'compare with'}
+      <select
+        value={value ?? ''}
+        onChange={(e) => {
+          const v = e.currentTarget.value || null;
+          const s = store.getState();
+          s.layersSet(which === 'runB' ? { runB: v, compare: { ...s.layers.compare, on: v !== null } } : { runA: v });
+        }}
+      >
+        {which === 'runB' && <option value="">(none)</option>}
+        {runs.map((r) => (
+          <option key={r} value={r}>
+            {r}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
+/** The bar across the top: dataset, runs, scoring progress, open and help. */
+export function TopBar() {
+  const store = useAppStore();
+  const title = useApp((s) => s.dataset?.title ?? 'no dataset');
+  const tableError = useApp((s) => s.dataset?.tableError ?? null);
+  return (
+    <header className="top">
+      <h1>Hairline</h1>
+      <span className="ds-title" title={tableError ?? undefined}>
+        {title}
+        {tableError && <span className="warn"> · classes.json problem</span>}
+      </span>
+      <RunPicker which="runA" />
+      <RunPicker which="runB" />
+      <div className="spacer" />
+      <ScoringProgress />
+      <OpenFolderButton />
+      <button onClick={() => store.getState().helpOpenSet(true)} title="Keys (?)">
+        ?
+      </button>
+    </header>
+  );
+}

@@ -1,0 +1,113 @@
+import { useEffect, useRef, useState } from 'react';
+import { compositePaletteFromTable } from '../core/composite/compositePalette.ts';
+import type { CompositeFrame } from '../core/composite/compositeFrame.ts';
+import type { AppStore } from '../state/store.ts';
+import { scoringTableOf } from '../state/scoringRun.ts';
+import type { Viewer } from '../view/viewer.ts';
+import { viewerCreate } from '../view/viewer.ts';
+import type { WorkerPool } from '../workers/pool.ts';
+import { VIEW_COMMANDS } from '../workers/viewJobs.ts';
+import type { DecodedFrame } from '../workers/viewJobs.ts';
+import { Readout } from './Readout.tsx';
+import { useApp, useAppStore } from './storeContext.tsx';
+
+const NO_NOTES: string[] = [];
+
+function compositeFrameOf(f: DecodedFrame): CompositeFrame {
+  return { photo: f.photo, truth: f.truth!, preds: f.preds, bandBins: f.bandBins };
+}
+
+/**
+ * Wires a viewer to the store without React re-renders: each store change the viewer cares about is
+ * passed straight to it (it redraws at most once per animation frame). Without WebGL the same layers
+ * are coloured by frameComposite in a view worker and shown as an image.
+ */
+function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool): () => void {
+  let composing = 0;
+  const recompose = () => {
+    if (viewer.mode !== 'none') return;
+    const s = store.getState();
+    if (!s.shown || !s.dataset) return viewer.compositeSet(null);
+    const ticket = ++composing;
+    const palette = compositePaletteFromTable(scoringTableOf(s.dataset, s.settings));
+    // Copies (not transfers): the decoded frame stays with the cache for the next redraw.
+    void pool.run<Uint8Array>(VIEW_COMMANDS.frameComposite, { frame: compositeFrameOf(s.shown), layers: s.layers, palette }).then(
+      (rgba) => ticket === composing && viewer.compositeSet(rgba),
+      () => {},
+    );
+  };
+  const apply = (s: ReturnType<AppStore['getState']>, prev: ReturnType<AppStore['getState']> | null) => {
+    if (!prev || s.dataset !== prev.dataset || s.settings.ignore !== prev.settings.ignore) {
+      if (s.dataset) viewer.paletteSet(compositePaletteFromTable(scoringTableOf(s.dataset, s.settings)));
+    }
+    if (!prev || s.shown !== prev.shown) viewer.frameSet(s.shown ? compositeFrameOf(s.shown) : null);
+    if (!prev || s.layers !== prev.layers) viewer.layersSet(s.layers);
+    if (!prev || s.pixelGrid !== prev.pixelGrid) viewer.gridSet(s.pixelGrid);
+    if (!prev || s.place !== prev.place) {
+      if (s.place === null) viewer.viewFit();
+      else {
+        const v = viewer.viewGet();
+        if (v.cx !== s.place.cx || v.cy !== s.place.cy || v.scale !== s.place.scale) viewer.viewSet(s.place);
+      }
+    }
+    if (viewer.mode === 'none' && (!prev || s.shown !== prev.shown || s.layers !== prev.layers || s.dataset !== prev.dataset)) recompose();
+  };
+  apply(store.getState(), null);
+  const unsub = store.subscribe((s, prev) => apply(s, prev));
+  let timer = 0;
+  const unView = viewer.onViewChange((v) => {
+    clearTimeout(timer);
+    // The URL and the store follow the view a moment after panning or zooming stops.
+    timer = window.setTimeout(() => store.getState().placeSet({ cx: v.cx, cy: v.cy, scale: v.scale }), 150);
+  });
+  return () => {
+    unsub();
+    unView();
+    clearTimeout(timer);
+  };
+}
+
+/** The centre pane: the viewer, a readout under the cursor, and a note when a frame could not be shown. */
+export function ViewerPane({ pool, onViewer }: { pool: WorkerPool; onViewer: (v: Viewer | null) => void }) {
+  const store = useAppStore();
+  const host = useRef<HTMLDivElement>(null);
+  const [viewer, setViewer] = useState<Viewer | null>(null);
+  const [failure, setFailure] = useState<string | null>(null);
+  const shownError = useApp((s) => s.shownError);
+  const notes = useApp((s) => s.shown?.notes ?? NO_NOTES);
+  const loading = useApp((s) => s.dataset !== null && s.shownIndex !== s.frameIndex && s.shownError === null);
+
+  useEffect(() => {
+    let made: Viewer | null = null;
+    let unbind = () => {};
+    let cancelled = false;
+    viewerCreate(host.current!, { grid: true }).then(
+      (v) => {
+        if (cancelled) return v.destroy();
+        made = v;
+        unbind = viewerBind(store, v, pool);
+        setViewer(v);
+        onViewer(v);
+        (window as unknown as { hairlineViewer?: Viewer }).hairlineViewer = v;
+      },
+      (e: Error) => setFailure(`The viewer could not start: ${e.message}`),
+    );
+    return () => {
+      cancelled = true;
+      unbind();
+      made?.destroy();
+      onViewer(null);
+    };
+  }, [store, pool, onViewer]);
+
+  return (
+    <div className="viewer-pane">
+      <div className="viewer-host" ref={host} data-mode={viewer?.mode ?? 'starting'} />
+      {failure && <div className="viewer-note bad">{failure}</div>}
+      {shownError && <div className="viewer-note bad" role="alert">{shownError}</div>}
+      {!shownError && notes.length > 0 && <div className="viewer-note">{notes.join(' · ')}</div>}
+      {loading && <div className="viewer-loading">decoding…</div>}
+      {viewer && <Readout viewer={viewer} />}
+    </div>
+  );
+}

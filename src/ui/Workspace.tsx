@@ -1,0 +1,95 @@
+import { useCallback, useRef, useState } from 'react';
+import type { Viewer } from '../view/viewer.ts';
+import type { WorkerPool } from '../workers/pool.ts';
+import type { CommandContext } from './commands/registry.ts';
+import { FrameList } from './FrameList.tsx';
+import { HelpOverlay } from './HelpOverlay.tsx';
+import { LayerBar } from './LayerBar.tsx';
+import { filesOpen } from './OpenFolder.tsx';
+import { droppedFiles } from './pickedFiles.ts';
+import { Scoreboard } from './Scoreboard.tsx';
+import { useApp, useAppStore } from './storeContext.tsx';
+import { Timeline } from './Timeline.tsx';
+import { TopBar } from './TopBar.tsx';
+import { useCommandKeys } from './useCommandKeys.ts';
+import { ViewerPane } from './ViewerPane.tsx';
+
+function EmptyState() {
+  const loading = useApp((s) => s.datasetLoading);
+  return (
+    <div className="empty">
+      <h2>{loading ?? 'No dataset open'}</h2>
+      {!loading && (
+        <p>
+          Drop a dataset folder here (<code>images/</code>, <code>truth/</code>, <code>predictions/&lt;run&gt;/</code>, optional{' '}
+          <code>classes.json</code>) or use <b>Open folder…</b>. Nothing leaves this machine.
+        </p>
+      )}
+    </div>
+  );
+}
+
+/** The inspection workspace: frames on the left, the viewer in the middle, the scoreboard on the right. */
+export function Workspace({ viewPool }: { viewPool: WorkerPool }) {
+  const store = useAppStore();
+  const viewer = useRef<Viewer | null>(null);
+  const hasDataset = useApp((s) => s.dataset !== null);
+  const datasetError = useApp((s) => s.datasetError);
+  const [dropping, setDropping] = useState(false);
+  const onViewer = useCallback((v: Viewer | null) => (viewer.current = v), []);
+  const context = useCallback(
+    (): CommandContext => ({
+      store,
+      viewer: viewer.current && {
+        zoomBy: (f: number) => viewer.current!.zoomBy(f),
+        fit: () => store.getState().placeSet(null),
+        oneToOne: () => viewer.current!.viewOneToOne(),
+      },
+    }),
+    [store],
+  );
+  useCommandKeys(context);
+
+  return (
+    <div
+      className={dropping ? 'workspace dropping' : 'workspace'}
+      onDragOver={(e) => {
+        if (![...e.dataTransfer.types].includes('Files')) return;
+        e.preventDefault();
+        setDropping(true);
+      }}
+      onDragLeave={(e) => e.currentTarget === e.target && setDropping(false)}
+      onDrop={async (e) => {
+        e.preventDefault();
+        setDropping(false);
+        await filesOpen(store, await droppedFiles(e.dataTransfer));
+      }}
+    >
+      <TopBar />
+      {datasetError && (
+        <div className="banner bad" role="alert">
+          {datasetError}
+          <button onClick={() => store.getState().datasetErrorSet(null)}>dismiss</button>
+        </div>
+      )}
+      {hasDataset ? (
+        <div className="panes">
+          <aside className="left">
+            <FrameList />
+          </aside>
+          <section className="center">
+            <LayerBar />
+            <ViewerPane pool={viewPool} onViewer={onViewer} />
+          </section>
+          <aside className="right">
+            <Scoreboard />
+          </aside>
+        </div>
+      ) : (
+        <EmptyState />
+      )}
+      {hasDataset && <Timeline />}
+      <HelpOverlay />
+    </div>
+  );
+}

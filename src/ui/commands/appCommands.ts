@@ -1,0 +1,131 @@
+import type { LayerKey } from '../../core/composite/layerSettings.ts';
+import { frameOrder } from '../../state/frameRows.ts';
+import type { AppState } from '../../state/store.ts';
+import type { Command, CommandContext } from './registry.ts';
+
+const hasFrames = ({ store }: CommandContext) => (store.getState().dataset?.pairing.frames.length ?? 0) > 0;
+const hasViewer = (ctx: CommandContext) => ctx.viewer !== null && hasFrames(ctx);
+const frameCount = (s: AppState) => s.dataset?.pairing.frames.length ?? 0;
+
+function layerToggle(key: LayerKey, label: string, keys: string[]): Command {
+  return {
+    id: `layer.${key}`,
+    label,
+    group: 'Layers',
+    keys,
+    enabled: hasFrames,
+    run: ({ store }) => {
+      const layers = store.getState().layers;
+      store.getState().layersSet({ [key]: { ...layers[key], on: !layers[key].on } });
+    },
+  };
+}
+
+/** Moves along the frame list's current order (the order the user sorted by) by `step`. */
+function frameStepInOrder(ctx: CommandContext, step: number): void {
+  const s = ctx.store.getState();
+  const order = frameOrder(s);
+  const at = order.indexOf(s.frameIndex);
+  const next = order[Math.max(0, Math.min(order.length - 1, (at < 0 ? -1 : at) + step))];
+  if (next !== undefined) s.frameIndexSet(next);
+}
+
+/** Every command of the workspace, in the order the help overlay lists them. */
+export const APP_COMMANDS: Command[] = [
+  {
+    id: 'frame.next', label: 'Next frame', group: 'Frames', keys: ['ArrowRight', 'J'], enabled: hasFrames,
+    run: ({ store }) => store.getState().frameIndexSet(store.getState().frameIndex + 1),
+  },
+  {
+    id: 'frame.prev', label: 'Previous frame', group: 'Frames', keys: ['ArrowLeft', 'K'], enabled: hasFrames,
+    run: ({ store }) => store.getState().frameIndexSet(store.getState().frameIndex - 1),
+  },
+  {
+    id: 'frame.first', label: 'First frame', group: 'Frames', keys: ['Home'], enabled: hasFrames,
+    run: ({ store }) => store.getState().frameIndexSet(0),
+  },
+  {
+    id: 'frame.last', label: 'Last frame', group: 'Frames', keys: ['End'], enabled: hasFrames,
+    run: ({ store }) => store.getState().frameIndexSet(frameCount(store.getState()) - 1),
+  },
+  {
+    id: 'frame.worse', label: 'Next in list order (worst first when sorted so)', group: 'Frames', keys: ['W'], enabled: hasFrames,
+    run: (ctx) => frameStepInOrder(ctx, 1),
+  },
+  {
+    id: 'frame.better', label: 'Previous in list order', group: 'Frames', keys: ['Shift+W'], enabled: hasFrames,
+    run: (ctx) => frameStepInOrder(ctx, -1),
+  },
+  {
+    id: 'play.toggle', label: 'Play / pause', group: 'Frames', keys: ['Space'], enabled: hasFrames,
+    run: ({ store }) => store.getState().playingSet(!store.getState().playing),
+  },
+  layerToggle('photo', 'Photo', ['1']),
+  layerToggle('truth', 'Ground truth', ['2']),
+  layerToggle('pred', 'Prediction (run A)', ['3']),
+  layerToggle('disagree', 'Disagreement', ['4']),
+  layerToggle('void', 'Void', ['5']),
+  layerToggle('band', 'Boundary band', ['6']),
+  layerToggle('compare', 'Fixed / broke (A → B)', ['7']),
+  {
+    id: 'layer.curtain', label: 'Curtain: truth left, prediction right', group: 'Layers', keys: ['C'], enabled: hasFrames,
+    run: ({ store }) => {
+      const { layers, dataset, frameIndex, results } = store.getState();
+      const width = results[frameIndex]?.width || 0;
+      const x = layers.curtain.x > 0 ? layers.curtain.x : Math.round(width / 2);
+      const on = !layers.curtain.on;
+      store.getState().layersSet({
+        curtain: { on, x },
+        truth: { ...layers.truth, on: on ? true : layers.truth.on },
+        pred: { ...layers.pred, on: on ? true : layers.pred.on },
+      });
+      void dataset;
+    },
+  },
+  {
+    id: 'band.wider', label: 'Band width +1 px', group: 'Layers', keys: [']'], enabled: hasFrames,
+    run: ({ store }) => {
+      const { band } = store.getState().layers;
+      store.getState().layersSet({ band: { ...band, width: Math.min(64, band.width + 1) } });
+    },
+  },
+  {
+    id: 'band.narrower', label: 'Band width −1 px', group: 'Layers', keys: ['['], enabled: hasFrames,
+    run: ({ store }) => {
+      const { band } = store.getState().layers;
+      store.getState().layersSet({ band: { ...band, width: Math.max(0, band.width - 1) } });
+    },
+  },
+  {
+    id: 'solo.off', label: 'Stop showing one class only', group: 'Layers', keys: ['Escape'], enabled: ({ store }) => store.getState().layers.solo.on,
+    run: ({ store }) => store.getState().layersSet({ solo: { ...store.getState().layers.solo, on: false } }),
+  },
+  {
+    id: 'run.next', label: 'Next run as A', group: 'Runs', keys: ['R'], enabled: ({ store }) => (store.getState().dataset?.pairing.runs.length ?? 0) > 1,
+    run: ({ store }) => {
+      const s = store.getState();
+      const runs = s.dataset!.pairing.runs;
+      const at = runs.indexOf(s.layers.runA ?? '');
+      s.layersSet({ runA: runs[(at + 1) % runs.length] });
+    },
+  },
+  {
+    id: 'run.swap', label: 'Swap runs A and B', group: 'Runs', keys: ['X'], enabled: ({ store }) => store.getState().layers.runB !== null,
+    run: ({ store }) => {
+      const { layers } = store.getState();
+      store.getState().layersSet({ runA: layers.runB, runB: layers.runA });
+    },
+  },
+  { id: 'view.in', label: 'Zoom in', group: 'View', keys: ['+', '='], enabled: hasViewer, run: ({ viewer }) => viewer!.zoomBy(1.5) },
+  { id: 'view.out', label: 'Zoom out', group: 'View', keys: ['-', '_'], enabled: hasViewer, run: ({ viewer }) => viewer!.zoomBy(1 / 1.5) },
+  { id: 'view.fit', label: 'Fit frame', group: 'View', keys: ['F'], enabled: hasViewer, run: ({ viewer }) => viewer!.fit() },
+  { id: 'view.actual', label: 'Actual pixels (1:1)', group: 'View', keys: ['O'], enabled: hasViewer, run: ({ viewer }) => viewer!.oneToOne() },
+  {
+    id: 'view.grid', label: 'Pixel grid (when zoomed in)', group: 'View', keys: ['G'], enabled: hasFrames,
+    run: ({ store }) => store.getState().pixelGridSet(!store.getState().pixelGrid),
+  },
+  {
+    id: 'help', label: 'Show / hide this help', group: 'Help', keys: ['?'], enabled: () => true,
+    run: ({ store }) => store.getState().helpOpenSet(!store.getState().helpOpen),
+  },
+];
