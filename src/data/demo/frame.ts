@@ -1,0 +1,106 @@
+// One demo frame, generated alone from its index: photo, true scene, ground truth with the planned
+// label mistakes, and both runs' predictions; then the same as PNG file bytes.
+import { labelMapToPng } from '../../core/png/encode.ts';
+import type { LabelMap } from '../../core/labelMap.ts';
+import { demoCamera } from './camera.ts';
+import { demoPalette, DEMO_IGNORE } from './classes.ts';
+import { photoFinish } from './finish.ts';
+import { demoMistakePlan } from './mistakePlan.ts';
+import { mistakesApply, type DemoMistake } from './mistakes.ts';
+import { demoFrameName, type DemoOptions } from './options.ts';
+import { deflateFast, photoRgbToPng, type Deflate } from './photoPng.ts';
+import { predictionLabels } from './predict.ts';
+import { sceneRender } from './render.ts';
+import { DEMO_RUNS, type DemoRunName } from './runs.ts';
+import { demoScene } from './scene.ts';
+
+/** A frame as pixels: RGB photo, label maps and the truth's mistakes. */
+export interface DemoFrameRaster {
+  name: string;
+  width: number;
+  height: number;
+  /** 8-bit RGB, width*height*3. */
+  photo: Uint8Array;
+  /** The true scene's classes, before label mistakes (what predictions are made from). */
+  scene: LabelMap;
+  /** Instance id per pixel of the true scene (0 = ground, sky, water). */
+  instances: Uint16Array;
+  /** The ground truth as written: the true scene with the label mistakes. */
+  truth: LabelMap;
+  preds: Record<DemoRunName, LabelMap>;
+  mistakes: DemoMistake[];
+}
+
+/** A frame as file bytes. */
+export interface DemoFrame {
+  name: string;
+  photoPng: Uint8Array;
+  truthPng: Uint8Array;
+  predPngs: Record<DemoRunName, Uint8Array>;
+  mistakes: DemoMistake[];
+}
+
+/** Palette entries of run-b's PNGs: every class and the out-of-table ids the runs emit. */
+const PRED_PALETTE_ENTRIES = 16;
+
+function indexCheck(index: number, o: DemoOptions): void {
+  if (!Number.isInteger(index) || index < 0 || index >= o.frames) {
+    throw new RangeError(`demo frame index ${index} is outside 0..${o.frames - 1}`);
+  }
+}
+
+/** Returns frame `index` (0-based) of the demo as pixels; options must be checked (demoOptionsCheck). */
+export function demoFrameRaster(index: number, o: DemoOptions): DemoFrameRaster {
+  indexCheck(index, o);
+  const scene = demoScene(o.seed);
+  const cam = demoCamera(index, o.frames, o.width, o.height);
+  const name = demoFrameName(index);
+  const clean = sceneRender(scene, cam, { instClass: scene.baseClass, hoodClass: DEMO_IGNORE, photo: true });
+  const photo = photoFinish(clean.rgb!, o.width, o.height, o.seed, index);
+  const planned = demoMistakePlan(o).filter((m) => m.frame === index);
+  const truth = clean.label.slice();
+  const mistakes = mistakesApply(truth, clean, planned, scene, cam, name);
+  const visible = new Uint32Array(scene.baseClass.length);
+  for (let i = 0; i < clean.inst.length; i++) visible[clean.inst[i]]++;
+  const ctx = { scene, cam, frames: o.frames, visible, exempt: new Set(planned.map((m) => m.inst)) };
+  const map = (ids: Uint8Array): LabelMap => ({ width: o.width, height: o.height, ids });
+  const preds = {} as Record<DemoRunName, LabelMap>;
+  for (const run of DEMO_RUNS) preds[run] = map(predictionLabels(run, ctx));
+  return { name, width: o.width, height: o.height, photo, scene: map(clean.label), instances: clean.inst, truth: map(truth), preds, mistakes };
+}
+
+/** Returns the answer-key entries of frame `index`, rendering labels only (no photo, no predictions). */
+export function demoFrameMistakes(index: number, o: DemoOptions): DemoMistake[] {
+  indexCheck(index, o);
+  const planned = demoMistakePlan(o).filter((m) => m.frame === index);
+  if (planned.length === 0) return [];
+  const scene = demoScene(o.seed);
+  const cam = demoCamera(index, o.frames, o.width, o.height);
+  const clean = sceneRender(scene, cam, { instClass: scene.baseClass, hoodClass: DEMO_IGNORE, photo: false });
+  return mistakesApply(clean.label.slice(), clean, planned, scene, cam, demoFrameName(index));
+}
+
+/**
+ * Returns frame `index` as PNG bytes: RGB photo, 8-bit gray truth and run-a, 8-bit palette run-b
+ * (so both label encodings are exercised). `deflate` compresses the photo (Node may pass its zlib).
+ */
+export function demoFrame(index: number, o: DemoOptions, deflate: Deflate = deflateFast): DemoFrame {
+  const r = demoFrameRaster(index, o);
+  return {
+    name: r.name,
+    photoPng: photoRgbToPng(r.width, r.height, r.photo, deflate),
+    truthPng: labelMapToPng(r.truth, { kind: 'gray', bitDepth: 8 }),
+    predPngs: {
+      'run-a': labelMapToPng(r.preds['run-a'], { kind: 'gray', bitDepth: 8 }),
+      'run-b': labelMapToPng(r.preds['run-b'], { kind: 'palette', colors: demoPalette(PRED_PALETTE_ENTRIES) }),
+    },
+    mistakes: r.mistakes,
+  };
+}
+
+/** Returns every answer-key entry of the sequence, in frame order. */
+export function demoAnswerKey(o: DemoOptions): DemoMistake[] {
+  const out: DemoMistake[] = [];
+  for (let i = 0; i < o.frames; i++) out.push(...demoFrameMistakes(i, o));
+  return out;
+}

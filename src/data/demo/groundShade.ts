@@ -1,0 +1,133 @@
+// Looks of the background: sky with clouds on a plane high above, and the concrete deck with slab
+// seams, wheel tracks, painted lines and flush rails. Called once per pixel; no allocation. Thin
+// painted lines use box-filter coverage of the pixel footprint, so they fade instead of breaking up.
+import type { DemoCamera } from './camera.ts';
+import { DEMO_CLASS } from './classes.ts';
+import { CRANE_RAIL_X, LANE_X, QUAY_EDGE_X } from './layout.ts';
+import { fbm2 as fbm2Imported, noise2 as noise2Imported } from './random.ts';
+
+// Module-local copies: some loaders turn imported bindings into getters, far too slow per pixel.
+const fbm2 = fbm2Imported;
+const noise2 = noise2Imported;
+const WATER = DEMO_CLASS.water;
+const VEGETATION = DEMO_CLASS.vegetation;
+const RAIL = DEMO_CLASS.rail;
+const EDGE_X = QUAY_EDGE_X;
+const RAIL_A = CRANE_RAIL_X[0];
+const RAIL_B = CRANE_RAIL_X[1];
+const LANE_A = LANE_X.underCrane;
+const LANE_B = LANE_X.ours;
+const LANE_C = LANE_X.oncoming;
+
+const CLOUD_HEIGHT = 1500;
+const HAZE_R = 198;
+const HAZE_G = 208;
+const HAZE_B = 216;
+
+/** Returns the share 0..1 of a `foot`-wide pixel at p covered by lines of `width` repeating every `period`. */
+export function lineCover(p: number, foot: number, period: number, width: number, offset = 0): number {
+  const q = p - offset;
+  const c = period * Math.round(q / period);
+  const lo = Math.max(q - foot / 2, c - width / 2);
+  const hi = Math.min(q + foot / 2, c + width / 2);
+  return hi > lo ? (hi - lo) / foot : 0;
+}
+
+/** Returns the share 0..1 of a `foot`-wide pixel at p inside [a, b]. */
+export function spanCover(p: number, foot: number, a: number, b: number): number {
+  const lo = Math.max(p - foot / 2, a);
+  const hi = Math.min(p + foot / 2, b);
+  return hi > lo ? Math.min(1, (hi - lo) / foot) : 0;
+}
+
+/** Writes the sky colour of pixel (x, y) into rgb[o..o+2]. */
+export function shadeSky(rgb: Float32Array, o: number, cam: DemoCamera, x: number, y: number, seed: number): void {
+  const e = (cam.cy - y - 0.5) / cam.f; // tangent of elevation
+  const w = Math.sqrt(Math.min(1, Math.max(0, e / 0.75)));
+  let r = 206 + (70 - 206) * w;
+  let g = 218 + (124 - 218) * w;
+  let b = 230 + (194 - 230) * w;
+  if (e > 0.004) {
+    const dx = (x + 0.5 - cam.cx) / cam.f;
+    const k = CLOUD_HEIGHT / e;
+    const px = cam.x + k * (dx * cam.cos + cam.sin);
+    const pz = cam.z + k * (cam.cos - dx * cam.sin);
+    const n = fbm2(px / 2600 + cam.time * 0.003, pz / 1900, seed + 31, 4);
+    let a = (n - 0.47) / 0.2;
+    a = a < 0 ? 0 : a > 1 ? 1 : a;
+    a *= Math.min(1, e / 0.06);
+    const shade = 0.78 + 0.3 * noise2(px / 700, pz / 520, seed + 37);
+    r += (238 * shade - r) * a;
+    g += (240 * shade - g) * a;
+    b += (244 * shade - b) * a;
+  }
+  rgb[o] = r;
+  rgb[o + 1] = g;
+  rgb[o + 2] = b;
+}
+
+// Darkening 0..1 of the two wheel tracks either side of a lane centre at distance dx m.
+function wheelTrack(dx: number): number {
+  const d = Math.abs(Math.abs(dx) - 0.95);
+  return d < 0.6 ? 1 - 0.1 * (1 - d / 0.6) : 1;
+}
+
+/** Writes the colour of ground class `cls` at world (X, Z), depth z m, footprint footX×footZ m, haze 0..1. */
+export function shadeDeck(
+  rgb: Float32Array, o: number, cls: number, X: number, Z: number, z: number, footX: number, footZ: number, haze: number,
+  seed: number,
+): void {
+  let r: number, g: number, b: number;
+  if (cls === WATER) {
+    const n = noise2(X * 0.3, Z * 0.08, seed + 5);
+    r = 30 + 14 * n;
+    g = 62 + 18 * n;
+    b = 76 + 18 * n;
+  } else if (cls === VEGETATION) {
+    const n = noise2(X * 0.05, Z * 0.05, seed + 6);
+    r = 84 + 20 * n;
+    g = 104 + 22 * n;
+    b = 78 + 10 * n;
+  } else if (cls === RAIL) {
+    const n = noise2(Z * 0.5, X, seed + 8);
+    r = 150 + 40 * n;
+    g = 150 + 40 * n;
+    b = 156 + 40 * n;
+  } else {
+    let k = 0.86 + 0.24 * noise2(X * 0.045, Z * 0.045, seed + 9);
+    if (z < 60) {
+      // detail that would only alias further away: grain, slab seams
+      k *= 1 + (1 - z / 60) * 0.1 * (noise2(X * 3.1, Z * 3.1, seed + 10) - 0.5);
+      k *= 0.92 + 0.08 * noise2(X * 0.4, Z * 0.4, seed + 11);
+      k *= 1 - 0.35 * (lineCover(X, footX, 6, 0.04) + lineCover(Z, footZ, 6, 0.04, 3));
+    }
+    if (X > LANE_A - 2 && X < LANE_C + 2) k *= wheelTrack(X - LANE_A) * wheelTrack(X - LANE_B) * wheelTrack(X - LANE_C);
+    if (Math.abs(X - RAIL_A) < 0.32 || Math.abs(X - RAIL_B) < 0.32) k *= 0.55; // rail channel
+    r = 152 * k;
+    g = 147 * k;
+    b = 138 * k;
+    // painted lines: yellow dashed lane edges, a white yard line, the yellow quay-edge line, a crossing
+    const reach = footX + 0.6;
+    let yel = 0;
+    let wht = 0;
+    let edge = 0;
+    if (Math.abs(X + 3.8) < reach) yel += lineCover(X, footX, 1e9, 0.15, -3.8) * lineCover(Z, footZ, 6, 3);
+    if (Math.abs(X - 3.4) < reach) yel += lineCover(X, footX, 1e9, 0.15, 3.4) * lineCover(Z, footZ, 6, 3);
+    if (X < EDGE_X + 0.6 + footX) {
+      yel += spanCover(X, footX, EDGE_X + 0.25, EDGE_X + 0.55);
+      edge = spanCover(X, footX, EDGE_X, EDGE_X + 0.25);
+    }
+    if (Math.abs(X - 9.6) < reach) wht += lineCover(X, footX, 1e9, 0.15, 9.6);
+    if (Z > 25 && Z < 31 && X > -5 && X < 10) wht += lineCover(X, footX, 1, 0.5) * spanCover(Z, footZ, 26, 30) * spanCover(X, footX, -4, 9);
+    if (yel > 0 || wht > 0 || edge > 0) {
+      yel = Math.min(1, yel) * (0.8 + 0.2 * k);
+      wht = Math.min(1, wht) * (0.8 + 0.2 * k);
+      r += (204 - r) * yel + (214 - r) * wht + (60 - r) * edge;
+      g += (168 - g) * yel + (214 - g) * wht + (60 - g) * edge;
+      b += (52 - b) * yel + (206 - b) * wht + (62 - b) * edge;
+    }
+  }
+  rgb[o] = r + (HAZE_R - r) * haze;
+  rgb[o + 1] = g + (HAZE_G - g) * haze;
+  rgb[o + 2] = b + (HAZE_B - b) * haze;
+}
