@@ -25,7 +25,7 @@ export interface DemoWriteSummary {
 const FOLDERS = ['images', 'truth', ...DEMO_RUNS.map((r) => join('predictions', r))];
 const FRAME_FILE = /^kq-\d{4}\.png$/;
 
-/** Node's zlib at its fastest level: the same PNG format as the browser path, a few times quicker. */
+/** Node's zlib at its fastest level: the same file format as the portable path, several times quicker. */
 const deflateNode = (data: Uint8Array) => new Uint8Array(deflateSync(data, { level: 1 }));
 
 /** Generates frame `index` and writes its four PNGs under `dir`; returns its answer-key entries. */

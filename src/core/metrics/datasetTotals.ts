@@ -115,3 +115,38 @@ export function datasetTotalsMerge(into: DatasetTotals, from: DatasetTotals): Re
   into.frameBFCount += from.frameBFCount;
   return ok(into);
 }
+
+/**
+ * Returns totals over the ascending union of `totals.classIds` and `extraIds` holding the same sums
+ * (rows and columns moved by id), for a dataset without a class table whose ids appear as frames
+ * arrive. Returns `totals` itself when no id is new.
+ */
+export function datasetTotalsWiden(totals: DatasetTotals, extraIds: readonly number[]): DatasetTotals {
+  const known = new Set(totals.classIds);
+  if (extraIds.every((id) => known.has(id))) return totals;
+  const ids = [...new Set([...totals.classIds, ...extraIds])].sort((a, b) => a - b);
+  const out = datasetTotalsCreate(ids);
+  const K = ids.length, k = totals.classIds.length;
+  const pos = new Map(ids.map((id, i) => [id, i]));
+  const map = new Int32Array(k + 1);
+  for (let c = 0; c < k; c++) map[c] = pos.get(totals.classIds[c])!;
+  map[k] = K;
+  for (let b = 0; b < BAND_BINS; b++) {
+    for (let g = 0; g < k; g++) {
+      for (let p = 0; p <= k; p++) out.band[b * K * (K + 1) + map[g] * (K + 1) + map[p]] = totals.band[b * k * (k + 1) + g * (k + 1) + p];
+    }
+  }
+  for (let g = 0; g < k; g++) {
+    for (let p = 0; p <= k; p++) out.confusion[map[g] * (K + 1) + map[p]] = totals.confusion[g * (k + 1) + p];
+    out.biouInter[map[g]] = totals.biouInter[g];
+    out.biouUnion[map[g]] = totals.biouUnion[g];
+    out.bfClassSum[map[g]] = totals.bfClassSum[g];
+    out.bfClassCount[map[g]] = totals.bfClassCount[g];
+  }
+  out.frames = totals.frames;
+  out.frameMeanIoUSum = totals.frameMeanIoUSum;
+  out.frameMeanIoUCount = totals.frameMeanIoUCount;
+  out.frameBFSum = totals.frameBFSum;
+  out.frameBFCount = totals.frameBFCount;
+  return out;
+}

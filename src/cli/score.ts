@@ -1,0 +1,127 @@
+// `npm run score -- --truth DIR --pred [NAME=]DIR ...`: scores a dataset headless with the same core
+// code as the browser, in a pool of worker threads; writes the METRICS.md JSON report.
+import type { ClassTable } from '../core/classTable.ts';
+import type { FrameJobResult } from '../core/frameJob.ts';
+import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';
+import { frameSummary } from '../core/metrics/frameSummary.ts';
+import { reportFrameLine, scoreReport, type ReportFrameLine, type ScoreReport } from '../core/metrics/report.ts';
+import { workerPoolCreate } from '../workers/pool.ts';
+import { UsageError } from './args.ts';
+import { progressCreate } from './progress.ts';
+import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
+import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
+import { framesCsv, summaryText, textWrite, type FrameCsvRow } from './scoreReportWrite.ts';
+import { threadPortCreate } from './threadPort.ts';
+
+const THREAD = new URL('./scoreThread.ts', import.meta.url);
+
+/** Exit codes: every frame scored / bad arguments or unreadable folder / some frames failed. */
+export const EXIT = { ok: 0, usage: 1, someFailed: 3 } as const;
+
+async function run(options: ScoreOptions): Promise<number> {
+  const ds = await scoreDatasetOpen(options);
+  const { pairing } = ds;
+  for (const u of pairing.unpaired) process.stderr.write(`not paired: ${u.folder}/${u.file}: ${u.reason}\n`);
+  if (pairing.frames.length === 0) throw new UsageError(`--truth ${options.truth}: no label PNGs found`);
+  const generated = ds.table === null;
+  const table: ClassTable = ds.table ?? { ignore: ds.settings.ignore, ignoreColor: null, classes: [], generated: true };
+  const runs = pairing.runs;
+  const n = pairing.frames.length;
+
+  const totals = new Map<string, DatasetTotals>(runs.map((r) => [r, datasetTotalsCreate(table.classes.map((c) => c.id))]));
+  const lines = new Map<string, (ReportFrameLine | undefined)[]>(runs.map((r) => [r, new Array(n)]));
+  const csvRows: (FrameCsvRow[] | undefined)[] = new Array(n);
+  let done = 0;
+  let failed = 0;
+  const progress = progressCreate(n);
+
+  const take = (index: number, result: FrameJobResult) => {
+    let anyFailed = false;
+    const rows: FrameCsvRow[] = [];
+    for (const r of result.runs) {
+      const error = result.error ?? r.error;
+      if (r.stats && !error) {
+        let t = totals.get(r.run)!;
+        if (generated) totals.set(r.run, (t = datasetTotalsWiden(t, r.stats.classIds)));
+        datasetTotalsAdd(t, r.stats);
+      } else anyFailed = true;
+      lines.get(r.run)![index] = reportFrameLine(result.name, error ? null : r.stats, error);
+      const s = r.stats && !error ? frameSummary(r.stats, 3) : null;
+      rows.push({
+        frame: result.name, run: r.run, meanIoU: s?.meanIoU ?? null, pixelAccuracy: s?.pixelAccuracy ?? null, bandIoU3: s?.bandIoU ?? null,
+        boundaryIoU: s?.boundaryIoU ?? null, boundaryF: s?.boundaryF ?? null, errorPixels: s?.errorPixels ?? null, error,
+      });
+    }
+    csvRows[index] = rows;
+    done++;
+    if (anyFailed) failed++;
+    progress.tick(done, failed, result.name);
+  };
+
+  const pool = workerPoolCreate(() => threadPortCreate(THREAD), Math.min(options.workers, n));
+  try {
+    let next = 0;
+    // A bounded window keeps memory flat: at most two frames per thread are read or in flight.
+    const lane = async () => {
+      while (next < n) {
+        const index = next++;
+        let result: FrameJobResult;
+        try {
+          result = await pool.run<FrameJobResult>('frameScore', scoreJobOf(ds, options, table, index));
+        } catch (e) {
+          const error = `${pairing.frames[index].name}: ${(e as Error).message}`;
+          result = { name: pairing.frames[index].name, width: 0, height: 0, error, runs: runs.map((r) => ({ run: r, stats: null, error })) };
+        }
+        take(index, result);
+      }
+    };
+    await Promise.all(Array.from({ length: Math.min(n, pool.size * 2) }, lane));
+  } finally {
+    pool.destroy();
+  }
+  progress.end(done, failed);
+
+  const classesOf = (t: DatasetTotals) => (generated ? t.classIds.map((id) => ({ id, name: String(id) })) : table.classes);
+  const reports = runs.map((r) => scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]));
+  const report: ScoreReport & { runs?: Record<string, ScoreReport['dataset']>; unpaired?: unknown } = reports[0];
+  const runBlocks = Object.fromEntries(runs.map((r, i) => [r, reports[i].dataset]));
+  if (runs.length > 1) report.runs = runBlocks;
+  report.unpaired = pairing.unpaired;
+  const json = JSON.stringify(report, null, 2) + '\n';
+  if (options.out) await textWrite(options.out, json);
+  else process.stdout.write(json);
+  if (options.csv) await textWrite(options.csv, framesCsv(csvRows.flatMap((r) => r ?? [])));
+
+  const worst = report.frames
+    .filter((f) => f.meanIoU !== null)
+    .sort((a, b) => a.meanIoU! - b.meanIoU!)
+    .slice(0, 5)
+    .map((f) => ({ run: runs[0], name: f.name, meanIoU: f.meanIoU }));
+  (options.out ? process.stdout : process.stderr).write(summaryText(report, runBlocks, worst));
+  return failed > 0 ? EXIT.someFailed : EXIT.ok;
+}
+
+async function main(): Promise<void> {
+  let options: ScoreOptions;
+  try {
+    options = scoreOptionsParse(process.argv.slice(2));
+  } catch (e) {
+    if (e instanceof UsageError) {
+      process.stderr.write(e.message === SCORE_USAGE ? `${SCORE_USAGE}\n` : `hairline score: ${e.message}\n${SCORE_USAGE}\n`);
+      process.exit(EXIT.usage);
+    }
+    throw e;
+  }
+  try {
+    process.exitCode = await run(options);
+  } catch (e) {
+    if (e instanceof UsageError) {
+      process.stderr.write(`hairline score: ${e.message}\n`);
+      process.exit(EXIT.usage);
+    }
+    process.stderr.write(`hairline score: ${(e as Error).message}\n`);
+    process.exit(EXIT.usage);
+  }
+}
+
+await main();

@@ -1,0 +1,73 @@
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { classTableFromText, type ClassTable } from '../core/classTable.ts';
+import { datasetPair, type Pairing } from '../data/pairing.ts';
+import { UsageError } from './args.ts';
+import { filesUnder } from './listFiles.ts';
+import type { ScoreOptions } from './scoreArgs.ts';
+import type { FrameScorePaths } from './scoreThread.ts';
+import type { ScoreSettings } from '../core/metrics/settings.ts';
+
+/** The dataset the scorer was pointed at: frames paired by stem, the class table, and what did not pair. */
+export interface ScoreDataset {
+  pairing: Pairing;
+  table: ClassTable | null;
+  settings: ScoreSettings;
+}
+
+/** Returns the class table from --classes with --ignore applied, or throws UsageError saying what is wrong. */
+async function tableRead(options: ScoreOptions): Promise<ClassTable | null> {
+  if (!options.classes) return null;
+  let text: string;
+  try {
+    text = await readFile(options.classes, 'utf8');
+  } catch (e) {
+    throw new UsageError(`--classes ${options.classes}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  const r = classTableFromText(text, options.classes);
+  if (!r.ok) throw new UsageError(r.error);
+  const table = r.value;
+  if (options.ignore !== null && options.ignore !== table.ignore) {
+    const clash = table.classes.find((c) => c.id === options.ignore);
+    if (clash) throw new UsageError(`--ignore ${options.ignore} is the id of class "${clash.name}" in ${options.classes}`);
+    return { ...table, ignore: options.ignore };
+  }
+  return table;
+}
+
+/** Lists the folders, pairs frames by stem and reads the class table. */
+export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreDataset> {
+  const table = await tableRead(options);
+  const truth = await filesUnder(options.truth, 'truth');
+  const predictions: Record<string, string[]> = {};
+  for (const r of options.runs) predictions[r.name] = await filesUnder(r.dir, 'pred');
+  const confidence: Record<string, string[]> = {};
+  for (const c of options.confidence) confidence[c.name] = await filesUnder(c.dir, 'confidence');
+  const images = options.images ? await filesUnder(options.images, 'images') : [];
+  const pairing = datasetPair({ truth, predictions, images, confidence });
+  // datasetPair sorts runs by name; the scorer keeps the order given (the first --pred is the report's run).
+  pairing.runs = options.runs.map((r) => r.name);
+  const settings: ScoreSettings = {
+    ignore: table?.ignore ?? options.ignore ?? 255,
+    biouDilationRatio: options.biouRatio,
+    bfTolerance: options.bfTolerance,
+  };
+  return { pairing, table, settings };
+}
+
+/** Returns the worker-thread job for frame `index`: file paths and the names used in messages. */
+export function scoreJobOf(ds: ScoreDataset, options: ScoreOptions, table: ClassTable, index: number): FrameScorePaths {
+  const f = ds.pairing.frames[index];
+  const runDir = new Map(options.runs.map((r) => [r.name, r.dir]));
+  return {
+    name: f.name,
+    truth: { file: `truth/${f.truth}`, path: join(options.truth, f.truth) },
+    preds: ds.pairing.runs.map((run) => {
+      const file = f.predictions[run];
+      return { run, file: file === null ? null : { file: `${run}/${file}`, path: join(runDir.get(run)!, file) } };
+    }),
+    photo: options.images && f.image ? { file: `images/${f.image}`, path: join(options.images, f.image) } : null,
+    table,
+    settings: ds.settings,
+  };
+}

@@ -1,0 +1,65 @@
+import { createWriteStream } from 'node:fs';
+import type { ScoreReport } from '../core/metrics/report.ts';
+
+/** One CSV row per frame and run. */
+export interface FrameCsvRow {
+  frame: string;
+  run: string;
+  meanIoU: number | null;
+  pixelAccuracy: number | null;
+  bandIoU3: number | null;
+  boundaryIoU: number | null;
+  boundaryF: number | null;
+  errorPixels: number | null;
+  error: string | null;
+}
+
+const CSV_COLUMNS: (keyof FrameCsvRow)[] = ['frame', 'run', 'meanIoU', 'pixelAccuracy', 'bandIoU3', 'boundaryIoU', 'boundaryF', 'errorPixels', 'error'];
+
+/** Returns `v` as a CSV field (RFC 4180: quoted when it holds a comma, quote or line break). */
+export function csvField(v: string | number | null): string {
+  if (v === null) return '';
+  const s = String(v);
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** Returns the CSV text (header + rows, CRLF line ends as RFC 4180 has them). */
+export function framesCsv(rows: FrameCsvRow[]): string {
+  const lines = [CSV_COLUMNS.join(',')];
+  for (const r of rows) lines.push(CSV_COLUMNS.map((c) => csvField(r[c])).join(','));
+  return lines.join('\r\n') + '\r\n';
+}
+
+/** Writes `text` to `path`, resolving when it is on disk; rejects with the OS reason. */
+export function textWrite(path: string, text: string): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const s = createWriteStream(path);
+    s.on('error', reject);
+    s.end(text, () => resolve());
+  });
+}
+
+function p(v: number | null): string {
+  return v === null ? '   —  ' : (v * 100).toFixed(2).padStart(6);
+}
+
+/** Returns the short summary table printed after scoring (per run: mIoU, band IoU at 3 px, BIoU, BF; worst frames). */
+export function summaryText(report: ScoreReport, runs: Record<string, ScoreReport['dataset']>, worst: { run: string; name: string; meanIoU: number | null }[]): string {
+  const lines: string[] = [];
+  lines.push('run              mean IoU  band IoU@3px  Boundary IoU  Boundary F   (%)');
+  for (const [run, d] of Object.entries(runs)) {
+    const band3 = d.band.find((b) => b.width === 3)?.meanIoU ?? null;
+    lines.push(`${run.slice(0, 16).padEnd(16)} ${p(d.meanIoU)}     ${p(band3)}        ${p(d.boundaryIoU.mean)}      ${p(d.boundaryF.mean)}`);
+  }
+  if (worst.length) {
+    lines.push('', `worst frames by mean IoU (${worst[0].run}):`);
+    for (const w of worst) lines.push(`  ${w.name.padEnd(24)} ${p(w.meanIoU)}`);
+  }
+  const failed = report.frames.filter((f) => f.error);
+  if (failed.length) {
+    lines.push('', `${failed.length} frame${failed.length === 1 ? '' : 's'} failed:`);
+    for (const f of failed.slice(0, 10)) lines.push(`  ${f.error}`);
+    if (failed.length > 10) lines.push(`  … and ${failed.length - 10} more (see the report)`);
+  }
+  return lines.join('\n') + '\n';
+}
