@@ -3,6 +3,7 @@ import { datasetFromSource, datasetInstall } from '../state/datasetLoad.ts';
 import { scoringKeep } from '../state/scoringRun.ts';
 import { shownKeep } from '../state/shownKeep.ts';
 import { appStoreCreate, type AppStore } from '../state/store.ts';
+import { urlViewApply, urlViewDecode, urlViewKeep, type UrlView } from '../state/urlState.ts';
 import type { WorkerPool } from '../workers/pool.ts';
 import { scorePoolCreate, viewPoolCreate } from '../workers/scorePool.ts';
 
@@ -19,8 +20,9 @@ export function appStart(): AppRuntime {
   const store = appStoreCreate();
   const scorePool = scorePoolCreate();
   const viewPool = viewPoolCreate();
-  const stops = [scoringKeep(store, scorePool), shownKeep(store, viewPool)];
-  void datasetOpenInitial(store);
+  const fromUrl = urlViewDecode(location.hash);
+  const stops = [scoringKeep(store, scorePool), shownKeep(store, viewPool), urlViewKeep(store)];
+  void datasetOpenInitial(store, fromUrl);
   return {
     store,
     scorePool,
@@ -33,13 +35,14 @@ export function appStart(): AppRuntime {
   };
 }
 
-async function datasetOpenInitial(store: AppStore): Promise<void> {
+async function datasetOpenInitial(store: AppStore, fromUrl: UrlView): Promise<void> {
   const s = store.getState();
   s.datasetLoadingSet('Looking for a dataset…');
   try {
     const served = await servedSourceOpen();
     if (served) {
       datasetInstall(store, datasetFromSource(served));
+      if (fromUrl.dataset === 'served') urlViewApply(store, fromUrl);
       return;
     }
     s.datasetLoadingSet(null);
