@@ -8,7 +8,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
-import { browserLaunch, pageErrors } from './harness.ts';
+import { chromium } from 'playwright-core';
+import { browserLaunch, CHROMIUM_ARGS, CHROMIUM_PATH, pageErrors } from './harness.ts';
 import { viewerPageServe } from './viewerServe.ts';
 import type { FrameSpec } from './pages/viewerPage.ts';
 
@@ -128,5 +129,28 @@ describe('viewer (WebGL2 in headless Chromium)', () => {
     expect(await call('readoutAt', 10, 10)).toBeNull();
     expect(await call('readoutAt', 320, 200)).toEqual({ x: 32, y: 20 });
     expect(errors).toEqual([]);
+  });
+});
+
+describe('viewer without WebGL (Chromium with --disable-3d-apis)', () => {
+  it("reports mode 'none' with a reason and shows the CPU composite it is given, pixel for pixel", async () => {
+    const noGl = await chromium.launch({ executablePath: CHROMIUM_PATH, args: [...CHROMIUM_ARGS, '--disable-3d-apis'] });
+    try {
+      const p = await noGl.newPage({ viewport: { width: 800, height: 600 } });
+      const errs = pageErrors(p);
+      await p.goto(pageUrl);
+      await p.waitForFunction(() => document.title === 'viewer test page ready', null, { timeout: 120_000 });
+      const info = (await p.evaluate(() => (window as unknown as { hl: Hl }).hl.setup({ width: 640, height: 400 }))) as Record<string, unknown>;
+      expect(info.mode).toBe('none');
+      expect(String(info.reason)).toMatch(/WebGL2/);
+      const r = (await p.evaluate(() => (window as unknown as { hl: Hl }).hl.cpuCheck({ seed: 109, width: 64, height: 40 }))) as Record<string, unknown>;
+      expect(r.mode).toBe('none');
+      expect(r.scale).toBe(10);
+      expect(String(r.wrongLength)).toMatch(/composite holds 8 bytes; the 64×40 frame needs 10240/);
+      expect(r.differing).toBe(0);
+      expect(errs).toEqual([]);
+    } finally {
+      await noGl.close();
+    }
   });
 });

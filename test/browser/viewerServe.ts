@@ -12,6 +12,8 @@ export async function viewerPageServe(): Promise<{ pageUrl: string; server: Vite
   const server = await createServer({
     configFile: 'vite.config.ts',
     logLevel: 'error',
+    // Own dependency cache: other dev servers running at the same time pre-bundle differently.
+    cacheDir: 'node_modules/.vite-viewer-test',
     optimizeDeps: { include: ['pixi.js'] },
     server: { port: 0, host: '127.0.0.1', strictPort: false, hmr: false, fs: { allow: [REPO] } },
   });

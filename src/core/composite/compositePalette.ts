@@ -22,7 +22,7 @@ export type MarkColors = Record<MarkKey, number>;
 
 /**
  * Our own choice of overlay colours: saturated hues kept apart from each other (magenta vs amber for
- * the two disagreement kinds, green vs vermilion for fixed vs broke) and a light/dark stripe pair so
+ * the two disagreement kinds, green vs crimson for fixed vs broke) and a light/dark stripe pair so
  * the void hatch stays visible over bright and dark photos alike.
  */
 export const MARK_COLORS: Readonly<MarkColors> = {
@@ -30,7 +30,7 @@ export const MARK_COLORS: Readonly<MarkColors> = {
   wrong: 0xff1fb4,
   invalid: 0xffc400,
   fixed: 0x19e36a,
-  broke: 0xff4a12,
+  broke: 0xff0050,
   band: 0x4fb3ff,
   hatchLight: 0xeeeae0,
   hatchDark: 0x2a2630,

@@ -1,5 +1,6 @@
 // Test page for the viewer: builds seeded random frames in the page, draws them with the WebGL viewer
 // and compares the read-back pixels with frameComposite's bytes. Driven by test/browser/viewer.test.ts.
+import type { ClassTable } from '../../../src/core/classTable.ts';
 import { compositePaletteFromTable } from '../../../src/core/composite/compositePalette.ts';
 import { frameComposite } from '../../../src/core/composite/frameComposite.ts';
 import { layerSettingsDefault, LAYER_KEYS, type LayerSettings } from '../../../src/core/composite/layerSettings.ts';
@@ -115,13 +116,14 @@ function show(spec: FrameSpec, layers: Partial<LayerSettings> | 'everything', vi
 }
 
 /** Times `count` redraws, each after one layer toggle; returns milliseconds per redraw (gl.finish included). */
-function redrawTime(spec: FrameSpec, count: number): { median: number; all: number[] } {
+function redrawTime(spec: FrameSpec, count: number, only?: string[]): { median: number; all: number[]; backToBack: number } {
   const v = viewer!;
   const { frame, palette } = build(spec);
   v.frameSet(frame);
   v.paletteSet(palette);
   const runs = Object.keys(frame.preds);
   const s = everything(runs, spec.width, spec.height);
+  if (only) for (const k of LAYER_KEYS) s[k].on = only.includes(k);
   v.layersSet(s);
   v.viewOneToOne();
   v.viewSet({ cx: spec.width / 2, cy: spec.height / 2, scale: 1 });
@@ -140,7 +142,16 @@ function redrawTime(spec: FrameSpec, count: number): { median: number; all: numb
     all.push(performance.now() - t0);
   }
   const sorted = [...all].sort((a, b) => a - b);
-  return { median: sorted[Math.floor(sorted.length / 2)], all };
+  // Back to back: `count` toggled redraws, then one wait for the GPU; the mean per redraw.
+  const t0 = performance.now();
+  for (let i = 0; i < count; i++) {
+    s.disagree = { ...s.disagree, on: !s.disagree.on };
+    v.layersSet({ ...s });
+    v.renderNow();
+  }
+  gl.readPixels(0, 0, 1, 1, gl.RGBA, gl.UNSIGNED_BYTE, px);
+  const backToBack = (performance.now() - t0) / count;
+  return { median: sorted[Math.floor(sorted.length / 2)], all, backToBack };
 }
 
 /** Simulates pointer input at CSS (x, y) in the host and returns the readout it produced. */
@@ -154,6 +165,57 @@ function readoutAt(x: number, y: number): { x: number; y: number } | null {
   return got;
 }
 
+/** Mode 'none': shows frameComposite's bytes through compositeSet and compares every image pixel on the canvas. */
+function cpuCheck(spec: FrameSpec): { mode: string; reason: string | null; wrongLength: string | null; differing: number; scale: number } {
+  const v = viewer!;
+  const { frame, palette } = build(spec);
+  v.frameSet(frame);
+  v.paletteSet(palette);
+  const layers = everything(Object.keys(frame.preds), spec.width, spec.height);
+  v.layersSet(layers);
+  const rgba = frameComposite(frame, layers, palette);
+  if (!rgba.ok) throw new Error(rgba.error);
+  const bad = v.compositeSet(new Uint8Array(8));
+  const set = v.compositeSet(rgba.value);
+  if (!set.ok) throw new Error(set.error);
+  v.gridSet(false);
+  v.renderNow();
+  const canvas = document.querySelector('#host canvas') as HTMLCanvasElement;
+  const img = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+  const view = v.viewGet();
+  const ox = Math.round(canvas.width / 2 - view.cx * view.scale), oy = Math.round(canvas.height / 2 - view.cy * view.scale);
+  let differing = 0;
+  for (let y = 0; y < spec.height; y++) {
+    for (let x = 0; x < spec.width; x++) {
+      const sx = Math.floor(ox + (x + 0.5) * view.scale), sy = Math.floor(oy + (y + 0.5) * view.scale);
+      for (let c = 0; c < 4; c++) if (img[(sy * canvas.width + sx) * 4 + c] !== rgba.value[(y * spec.width + x) * 4 + c]) differing++;
+    }
+  }
+  return { mode: v.mode, reason: v.info.reason, wrongLength: bad.ok ? null : bad.error, differing, scale: view.scale };
+}
+
+function bytesOf(b64: string): Uint8Array {
+  return Uint8Array.from(atob(b64), (c) => c.charCodeAt(0));
+}
+
+/** Shows a frame sent from Node as base64 parts (8-bit maps), with a class table, for screenshots. */
+function showSent(
+  sent: { width: number; height: number; photo: string; truth: string; preds: Record<string, string>; bins: string; table: ClassTable },
+  layers: LayerSettings,
+  view?: { cx: number; cy: number; scale: number },
+) {
+  const v = viewer!;
+  const map = (b64: string) => ({ width: sent.width, height: sent.height, ids: bytesOf(b64) });
+  const preds = Object.fromEntries(Object.entries(sent.preds).map(([k, b]) => [k, map(b)]));
+  const r = v.frameSet({ photo: bytesOf(sent.photo), truth: map(sent.truth), preds, bandBins: bytesOf(sent.bins) });
+  if (!r.ok) throw new Error(r.error);
+  v.paletteSet(compositePaletteFromTable(sent.table));
+  v.layersSet(layers);
+  if (view) v.viewSet(view);
+  else v.viewFit();
+  v.renderNow();
+}
+
 Object.assign(window, {
   hl: {
     setup,
@@ -163,6 +225,8 @@ Object.assign(window, {
     readoutAt,
     everything: (spec: FrameSpec) => everything(Object.keys(build(spec).frame.preds), spec.width, spec.height),
     uploads: () => uploads,
+    cpuCheck,
+    showSent,
     viewSet: (view: { cx: number; cy: number; scale: number }) => viewer!.viewSet(view),
     /** Loads `spec` into the viewer without drawing. */
     load: (spec: FrameSpec) => {
