@@ -145,7 +145,8 @@ export class GlStage {
   pixelsRead(rect: PixelBox): Result<Uint8Array> {
     if (this.draws.length === 0) return fail('viewer', 'no frame to read back');
     const out = new Uint8Array(rect.width * rect.height * 4);
-    const chunk = Math.min(2048, this.renderer.gl.getParameter(this.renderer.gl.MAX_RENDERBUFFER_SIZE) as number);
+    // Read in pieces no larger than a tile (the GPU's limits, or a forced smaller size in tests).
+    const chunk = Math.min(2048, this.tileSize, this.renderer.gl.getParameter(this.renderer.gl.MAX_RENDERBUFFER_SIZE) as number);
     const saved = { x: this.world.x, y: this.world.y, s: this.world.scale.x };
     try {
       for (let y0 = 0; y0 < rect.height; y0 += chunk) {

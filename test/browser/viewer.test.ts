@@ -62,21 +62,23 @@ describe('viewer (WebGL2 in headless Chromium)', () => {
     expect(info.maxTextureSize as number).toBeGreaterThanOrEqual(2048);
   });
 
-  const cases: { name: string; spec: FrameSpec; tileSize?: number; minTiles: number }[] = [
+  const cases: { name: string; spec: FrameSpec; tileSize?: number; minTiles: number; settings?: number }[] = [
     { name: '8-bit ids, odd width', spec: { seed: 101, width: 37, height: 23 }, minTiles: 1 },
     { name: '8-bit ids, wider frame', spec: { seed: 102, width: 160, height: 96 }, minTiles: 1 },
     { name: '16-bit ids', spec: { seed: 103, width: 61, height: 45, wide: true }, minTiles: 1 },
     { name: 'no photo, no band bins, one run', spec: { seed: 104, width: 50, height: 30, photo: false, bins: false, runs: 1 }, minTiles: 1 },
     { name: 'forced 64-pixel tiles (8-bit)', spec: { seed: 105, width: 203, height: 141 }, tileSize: 64, minTiles: 12 },
     { name: 'forced 50-pixel tiles (16-bit)', spec: { seed: 106, width: 177, height: 103, wide: true }, tileSize: 50, minTiles: 12 },
+    { name: 'wider than one 2048-pixel read-back piece', spec: { seed: 110, width: 2300, height: 21 }, minTiles: 1, settings: 6 },
   ];
   for (const c of cases) {
     it(`draws exactly frameComposite's bytes: ${c.name}`, async () => {
       await call('setup', { tileSize: c.tileSize });
       const all = await call('everything', c.spec);
-      const r = await call<Check>('check', c.spec, seeds(c.spec.seed * 100, 24), [all]);
+      const n = c.settings ?? 24;
+      const r = await call<Check>('check', c.spec, seeds(c.spec.seed * 100, n), [all]);
       expect(r.tiles).toBeGreaterThanOrEqual(c.minTiles);
-      expect(r.settings).toBe(25);
+      expect(r.settings).toBe(n + 1);
       expect(r.firstDifference).toBeNull();
       expect(r.differingBytes).toBe(0);
     });

@@ -88,6 +88,17 @@ function check(spec: FrameSpec, layerSeeds: number[], extra: LayerSettings[] = [
       }
     }
   }
+  // A part of the frame read back alone matches the same part composed alone.
+  const rect = { x: 3, y: 2, width: spec.width - 7, height: spec.height - 5 };
+  const part = v.pixelsRead(rect);
+  const partWant = frameComposite(frame, all[all.length - 1], palette, { rect });
+  if (!part.ok || !partWant.ok) throw new Error('part read failed');
+  for (let i = 0; i < partWant.value.length; i++) {
+    if (part.value[i] !== partWant.value[i]) {
+      differing++;
+      first ??= `part ${JSON.stringify(rect)}, byte ${i}: gpu ${part.value[i]} cpu ${partWant.value[i]}`;
+    }
+  }
   return { tiles: set.value.tiles, settings: all.length, differingBytes: differing, firstDifference: first };
 }
 
