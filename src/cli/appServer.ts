@@ -57,7 +57,11 @@ async function handle(req: IncomingMessage, res: ServerResponse, appReal: string
   const path = raw.split('?')[0].split('#')[0];
 
   if (path === '/dataset/index.json') {
-    if (!dataReal) return sendError(res, 404, 'no dataset folder was given to npm start');
+    // Without a dataset the page opens the demo; a 200 "none" keeps the probe out of the error console.
+    if (!dataReal) {
+      res.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
+      return void res.end(head ? undefined : JSON.stringify({ title: null, files: null }));
+    }
     const files = await datasetFiles(dataReal);
     const body = JSON.stringify({ title: basename(dataReal), files });
     res.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });

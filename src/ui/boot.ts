@@ -1,3 +1,4 @@
+import { demoSourceOpen } from '../data/sources/demoSource.ts';
 import { servedSourceOpen } from '../data/sources/servedSource.ts';
 import { datasetFromSource, datasetInstall } from '../state/datasetLoad.ts';
 import { scoringKeep } from '../state/scoringRun.ts';
@@ -15,7 +16,7 @@ export interface AppRuntime {
   stop(): void;
 }
 
-/** Creates the store and pools and starts scoring and frame decoding; opens the served dataset if there is one. */
+/** Creates the store and pools and starts scoring and frame decoding; opens the served dataset, else the demo. */
 export function appStart(): AppRuntime {
   const store = appStoreCreate();
   const scorePool = scorePoolCreate();
@@ -45,7 +46,8 @@ async function datasetOpenInitial(store: AppStore, fromUrl: UrlView): Promise<vo
       if (fromUrl.dataset === 'served') urlViewApply(store, fromUrl);
       return;
     }
-    s.datasetLoadingSet(null);
+    datasetInstall(store, datasetFromSource(demoSourceOpen()));
+    if (fromUrl.dataset === 'demo' || fromUrl.dataset === null) urlViewApply(store, fromUrl);
   } catch (e) {
     s.datasetErrorSet(`Could not open the served dataset: ${(e as Error).message}`);
   }

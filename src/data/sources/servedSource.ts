@@ -1,11 +1,12 @@
 import { listingFromPaths, type DatasetSource } from './source.ts';
 
-/** Returns the dataset folder that `npm start -- DIR` serves, or null when it serves none (404). */
+/** Returns the dataset folder that `npm start -- DIR` serves, or null when it serves none. */
 export async function servedSourceOpen(base = '/dataset/'): Promise<DatasetSource | null> {
   const res = await fetch(`${base}index.json`, { cache: 'no-store' });
   if (res.status === 404) return null;
   if (!res.ok) throw new Error(`the server could not list the dataset folder (HTTP ${res.status})`);
-  const index = (await res.json()) as { title: string; files: string[] };
+  const index = (await res.json()) as { title: string | null; files: string[] | null };
+  if (index.files === null || index.title === null) return null;
   const { listing, classesPath } = listingFromPaths(index.files);
   const url = (path: string) => `${base}file/${path.split('/').map(encodeURIComponent).join('/')}`;
   let classesText: string | null = null;
