@@ -26,12 +26,18 @@ function labelIdsMaxCheck(ids: LabelMap['ids'], max: number, what: string): void
   }
 }
 
+/** A zlib (RFC 1950) compressor: returns the compressed stream of `data`. */
+export type ZlibCompress = (data: Uint8Array) => Uint8Array;
+
+const zlibLevel6: ZlibCompress = (data) => zlibSync(data, { level: 6 });
+
 /**
  * Encodes a label map as a PNG with exactly these ids (gray 8/16-bit, or 8-bit palette where index = id).
  * Returns the PNG file bytes. Throws a RangeError on a malformed map or an id the encoding cannot hold
- * (the maps come from our own code, not from user files).
+ * (the maps come from our own code, not from user files). `compress` may swap in a faster zlib
+ * (Node's native one) where many maps are written; the ids are the same either way.
  */
-export function labelMapToPng(map: LabelMap, encoding: LabelPngEncoding): Uint8Array {
+export function labelMapToPng(map: LabelMap, encoding: LabelPngEncoding, compress: ZlibCompress = zlibLevel6): Uint8Array {
   labelMapSizeCheck(map);
   const { width, height, ids } = map;
   const chunks: PngChunk[] = [];
@@ -62,7 +68,7 @@ export function labelMapToPng(map: LabelMap, encoding: LabelPngEncoding): Uint8A
     chunks.push({ type: 'PLTE', data: colors });
   }
   const filtered = pngRowsFilter(raw, height, width * bytesPerPixel, bytesPerPixel);
-  chunks.push({ type: 'IDAT', data: zlibSync(filtered, { level: 6 }) });
+  chunks.push({ type: 'IDAT', data: compress(filtered) });
   chunks.push({ type: 'IEND', data: new Uint8Array(0) });
   return pngFromChunks(chunks);
 }

@@ -43,19 +43,9 @@ export function hoodPass(t: RasterTarget, cam: DemoCamera, cls: number): void {
   }
 }
 
-/** Returns 8-bit RGB of the photo: [1 2 1] blur, vignette and sensor noise seeded by (seed, frame). */
+/** Returns 8-bit RGB of the photo: a soft 5-tap lens blur, vignette and sensor noise seeded by (seed, frame). */
 export function photoFinish(rgb: Float32Array, width: number, height: number, seed: number, frame: number): Uint8Array {
   const w3 = width * 3;
-  const tmp = new Float32Array(rgb.length);
-  for (let y = 0; y < height; y++) {
-    const row = y * w3;
-    for (let k = 0; k < 3; k++) {
-      tmp[row + k] = 3 * rgb[row + k] + rgb[row + k + 3];
-      const e = row + w3 - 3 + k;
-      tmp[e] = 3 * rgb[e] + rgb[e - 3];
-    }
-    for (let c = row + 3, end = row + w3 - 3; c < end; c++) tmp[c] = rgb[c - 3] + 2 * rgb[c] + rgb[c + 3];
-  }
   const out = new Uint8ClampedArray(width * height * 3);
   const cx = width / 2;
   const cy = height / 2;
@@ -64,19 +54,22 @@ export function photoFinish(rgb: Float32Array, width: number, height: number, se
   for (let x = 0; x < width; x++) colFall[x] = (x + 0.5 - cx) ** 2 * norm;
   const fseed = hash3(seed, frame, 77);
   for (let y = 0; y < height; y++) {
-    const up = (y > 0 ? y - 1 : y) * w3;
-    const mid = y * w3;
-    const down = (y < height - 1 ? y + 1 : y) * w3;
+    const up = (y > 0 ? -w3 : 0);
+    const down = (y < height - 1 ? w3 : 0);
     const rowFall = (y + 0.5 - cy) ** 2 * norm;
     let o = y * w3;
-    for (let x = 0, c = 0; x < width; x++, c += 3, o += 3) {
-      const v = (1 - rowFall - colFall[x]) * 0.0625; // 1/16 undoes the two [1 2 1] passes
+    for (let x = 0; x < width; x++, o += 3) {
+      const left = x > 0 ? -3 : 0;
+      const right = x < width - 1 ? 3 : 0;
+      const v = (1 - rowFall - colFall[x]) * 0.125; // taps weigh 4 + 1 + 1 + 1 + 1
       const h = hash3(x, y, fseed);
       // sum of two uniforms: a cheap bell-shaped grain, luminance mostly, a little chroma
       const lum = (((h & 255) + ((h >>> 8) & 255)) / 255 - 1) * 5;
-      out[o] = (tmp[up + c] + 2 * tmp[mid + c] + tmp[down + c]) * v + lum + (((h >>> 16) & 31) - 15.5) * 0.08;
-      out[o + 1] = (tmp[up + c + 1] + 2 * tmp[mid + c + 1] + tmp[down + c + 1]) * v + lum + (((h >>> 21) & 31) - 15.5) * 0.08;
-      out[o + 2] = (tmp[up + c + 2] + 2 * tmp[mid + c + 2] + tmp[down + c + 2]) * v + lum + (((h >>> 26) & 31) - 15.5) * 0.08;
+      for (let k = 0; k < 3; k++) {
+        const c = o + k;
+        const blur = 4 * rgb[c] + rgb[c + left] + rgb[c + right] + rgb[c + up] + rgb[c + down];
+        out[c] = blur * v + lum + (((h >>> (16 + 5 * k)) & 31) - 15.5) * 0.08;
+      }
     }
   }
   return new Uint8Array(out.buffer);

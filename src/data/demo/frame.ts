@@ -1,6 +1,6 @@
 // One demo frame, generated alone from its index: photo, true scene, ground truth with the planned
 // label mistakes, and both runs' predictions; then the same as PNG file bytes.
-import { labelMapToPng } from '../../core/png/encode.ts';
+import { labelMapToPng, type ZlibCompress } from '../../core/png/encode.ts';
 import type { LabelMap } from '../../core/labelMap.ts';
 import { demoCamera } from './camera.ts';
 import { demoPalette, DEMO_IGNORE } from './classes.ts';
@@ -8,7 +8,7 @@ import { photoFinish } from './finish.ts';
 import { demoMistakePlan } from './mistakePlan.ts';
 import { mistakesApply, type DemoMistake } from './mistakes.ts';
 import { demoFrameName, type DemoOptions } from './options.ts';
-import { deflateFast, photoRgbToPng, type Deflate } from './photoPng.ts';
+import { photoRgbToPng, zlibFast } from './photoPng.ts';
 import { predictionLabels } from './predict.ts';
 import { sceneRender } from './render.ts';
 import { DEMO_RUNS, type DemoRunName } from './runs.ts';
@@ -40,6 +40,12 @@ export interface DemoFrame {
   mistakes: DemoMistake[];
 }
 
+/** Compressors for the frame's files: photos (noisy, little to match) and label maps (long runs). */
+export interface DemoZlib {
+  photo?: ZlibCompress;
+  labels?: ZlibCompress;
+}
+
 /** Palette entries of run-b's PNGs: every class and the out-of-table ids the runs emit. */
 const PRED_PALETTE_ENTRIES = 16;
 
@@ -55,8 +61,9 @@ export function demoFrameRaster(index: number, o: DemoOptions): DemoFrameRaster 
   const scene = demoScene(o.seed);
   const cam = demoCamera(index, o.frames, o.width, o.height);
   const name = demoFrameName(index);
-  const clean = sceneRender(scene, cam, { instClass: scene.baseClass, hoodClass: DEMO_IGNORE, photo: true });
-  const photo = photoFinish(clean.rgb!, o.width, o.height, o.seed, index);
+  const render = sceneRender(scene, cam, { instClass: scene.baseClass, hoodClass: DEMO_IGNORE, photo: true });
+  const photo = photoFinish(render.rgb!, o.width, o.height, o.seed, index);
+  const clean = { ...render, label: render.label.slice(), inst: render.inst.slice() };
   const planned = demoMistakePlan(o).filter((m) => m.frame === index);
   const truth = clean.label.slice();
   const mistakes = mistakesApply(truth, clean, planned, scene, cam, name);
@@ -76,23 +83,26 @@ export function demoFrameMistakes(index: number, o: DemoOptions): DemoMistake[] 
   if (planned.length === 0) return [];
   const scene = demoScene(o.seed);
   const cam = demoCamera(index, o.frames, o.width, o.height);
-  const clean = sceneRender(scene, cam, { instClass: scene.baseClass, hoodClass: DEMO_IGNORE, photo: false });
+  const render = sceneRender(scene, cam, { instClass: scene.baseClass, hoodClass: DEMO_IGNORE, photo: false });
+  const clean = { ...render, label: render.label.slice(), inst: render.inst.slice() };
   return mistakesApply(clean.label.slice(), clean, planned, scene, cam, demoFrameName(index));
 }
 
 /**
  * Returns frame `index` as PNG bytes: RGB photo, 8-bit gray truth and run-a, 8-bit palette run-b
- * (so both label encodings are exercised). `deflate` compresses the photo (Node may pass its zlib).
+ * (so both label encodings are exercised). `zlib` may swap in faster compressors (Node's own) for
+ * the photo and the label maps; the portable default runs anywhere.
  */
-export function demoFrame(index: number, o: DemoOptions, deflate: Deflate = deflateFast): DemoFrame {
+export function demoFrame(index: number, o: DemoOptions, zlib: DemoZlib = {}): DemoFrame {
   const r = demoFrameRaster(index, o);
+  const labels = zlib.labels ?? zlibFast;
   return {
     name: r.name,
-    photoPng: photoRgbToPng(r.width, r.height, r.photo, deflate),
-    truthPng: labelMapToPng(r.truth, { kind: 'gray', bitDepth: 8 }),
+    photoPng: photoRgbToPng(r.width, r.height, r.photo, zlib.photo ?? zlibFast),
+    truthPng: labelMapToPng(r.truth, { kind: 'gray', bitDepth: 8 }, labels),
     predPngs: {
-      'run-a': labelMapToPng(r.preds['run-a'], { kind: 'gray', bitDepth: 8 }),
-      'run-b': labelMapToPng(r.preds['run-b'], { kind: 'palette', colors: demoPalette(PRED_PALETTE_ENTRIES) }),
+      'run-a': labelMapToPng(r.preds['run-a'], { kind: 'gray', bitDepth: 8 }, labels),
+      'run-b': labelMapToPng(r.preds['run-b'], { kind: 'palette', colors: demoPalette(PRED_PALETTE_ENTRIES) }, labels),
     },
     mistakes: r.mistakes,
   };

@@ -8,11 +8,12 @@ import {
   SHORE_FAR_Z, SHORE_LEFT_X, TRACK_RAIL_HALF, TRACK_RAIL_X,
 } from './layout.ts';
 import type { RasterTarget } from './raster.ts';
-import { shadeDeck as shadeDeckImported, shadeSky as shadeSkyImported } from './groundShade.ts';
+import { deckTone as deckToneImported, shadeDeck as shadeDeckImported, shadeSky as shadeSkyImported } from './groundShade.ts';
 
 // Module-local copies: some loaders turn imported bindings into getters, far too slow per pixel.
 const shadeDeck = shadeDeckImported;
 const shadeSky = shadeSkyImported;
+const deckTone = deckToneImported;
 const VEGETATION = DEMO_CLASS.vegetation;
 const WATER = DEMO_CLASS.water;
 const RAIL = DEMO_CLASS.rail;
@@ -32,6 +33,7 @@ const TR1 = TRACK_RAIL_X[1];
 const TR_HALF = TRACK_RAIL_HALF;
 /** Rows closer than this (px) to the horizon count as sky. */
 const HORIZON_EPS = 0.02;
+/** Sky and deck tone vary slowly across a row: sampled every this many pixels and interpolated. */
 const SKY_STEP = 4;
 const HAZE_DISTANCE = 1700;
 
@@ -79,7 +81,8 @@ export function backgroundShade(t: RasterTarget, cam: DemoCamera, seed: number):
   if (!rgb) return;
   const { width, height, label, inst } = t;
   const { f, cx, cy } = cam;
-  const sky = new Float32Array((Math.ceil(width / SKY_STEP) + 2) * 3);
+  const sky = new Float32Array((Math.ceil(width / SKY_STEP) + 3) * 3);
+  const tone = new Float32Array(Math.ceil(width / SKY_STEP) + 3);
   for (let y = 0; y < height; y++) {
     const row = y * width;
     const below = y + 0.5 - cy;
@@ -108,10 +111,13 @@ export function backgroundShade(t: RasterTarget, cam: DemoCamera, seed: number):
     const dZ = -dxc * cam.sin;
     const footZ = (zc * zc) / (f * cam.y);
     const haze = 1 - Math.exp(-zc / HAZE_DISTANCE);
+    for (let k = 0, x = 0; x <= width + SKY_STEP; k++, x += SKY_STEP) tone[k] = deckTone(X0 + dX * x, Z0 + dZ * x, zc, seed);
     for (let x = 0; x < width; x++) {
       const i = row + x;
       if (inst[i] !== 0) continue;
-      shadeDeck(rgb, i * 3, label[i], X0 + dX * x, Z0 + dZ * x, zc, dxc, footZ, haze, seed);
+      const k = (x / SKY_STEP) | 0;
+      const tn = tone[k] + (tone[k + 1] - tone[k]) * ((x - k * SKY_STEP) / SKY_STEP);
+      shadeDeck(rgb, i * 3, label[i], X0 + dX * x, Z0 + dZ * x, zc, dxc, footZ, haze, tn, seed);
     }
   }
 }

@@ -28,6 +28,9 @@ const HAZE_B = 216;
 export function lineCover(p: number, foot: number, period: number, width: number, offset = 0): number {
   const q = p - offset;
   const c = period * Math.round(q / period);
+  const d = q - c;
+  const reach = (foot + width) * 0.5;
+  if (d >= reach || d <= -reach) return 0;
   const lo = Math.max(q - foot / 2, c - width / 2);
   const hi = Math.min(q + foot / 2, c + width / 2);
   return hi > lo ? (hi - lo) / foot : 0;
@@ -72,17 +75,27 @@ function wheelTrack(dx: number): number {
   return d < 0.6 ? 1 - 0.1 * (1 - d / 0.6) : 1;
 }
 
-/** Writes the colour of ground class `cls` at world (X, Z), depth z m, footprint footX×footZ m, haze 0..1. */
+/** Returns the brightness factor of the concrete at world (X, Z), depth z m: stains, grain, wheel tracks. */
+export function deckTone(X: number, Z: number, z: number, seed: number): number {
+  let k = 0.86 + 0.24 * noise2(X * 0.045, Z * 0.045, seed + 9);
+  if (z < 60) k *= 1 + (1 - z / 60) * 0.14 * (noise2(X * 2.3, Z * 2.3, seed + 10) - 0.5);
+  if (X > LANE_A - 2 && X < LANE_C + 2) k *= wheelTrack(X - LANE_A) * wheelTrack(X - LANE_B) * wheelTrack(X - LANE_C);
+  return k;
+}
+
+/**
+ * Writes the colour of ground class `cls` at world (X, Z), depth z m, footprint footX×footZ m, haze
+ * 0..1; `tone` is deckTone there (smooth, so callers may interpolate it between samples).
+ */
 export function shadeDeck(
   rgb: Float32Array, o: number, cls: number, X: number, Z: number, z: number, footX: number, footZ: number, haze: number,
-  seed: number,
+  tone: number, seed: number,
 ): void {
   let r: number, g: number, b: number;
   if (cls === WATER) {
-    const n = noise2(X * 0.3, Z * 0.08, seed + 5);
-    r = 30 + 14 * n;
-    g = 62 + 18 * n;
-    b = 76 + 18 * n;
+    r = 36;
+    g = 70;
+    b = 84;
   } else if (cls === VEGETATION) {
     const n = noise2(X * 0.05, Z * 0.05, seed + 6);
     r = 84 + 20 * n;
@@ -94,14 +107,8 @@ export function shadeDeck(
     g = 150 + 40 * n;
     b = 156 + 40 * n;
   } else {
-    let k = 0.86 + 0.24 * noise2(X * 0.045, Z * 0.045, seed + 9);
-    if (z < 60) {
-      // detail that would only alias further away: grain, slab seams
-      k *= 1 + (1 - z / 60) * 0.1 * (noise2(X * 3.1, Z * 3.1, seed + 10) - 0.5);
-      k *= 0.92 + 0.08 * noise2(X * 0.4, Z * 0.4, seed + 11);
-      k *= 1 - 0.35 * (lineCover(X, footX, 6, 0.04) + lineCover(Z, footZ, 6, 0.04, 3));
-    }
-    if (X > LANE_A - 2 && X < LANE_C + 2) k *= wheelTrack(X - LANE_A) * wheelTrack(X - LANE_B) * wheelTrack(X - LANE_C);
+    let k = tone;
+    if (z < 60) k *= 1 - 0.35 * (lineCover(X, footX, 6, 0.04) + lineCover(Z, footZ, 6, 0.04, 3)); // slab seams
     if (Math.abs(X - RAIL_A) < 0.32 || Math.abs(X - RAIL_B) < 0.32) k *= 0.55; // rail channel
     r = 152 * k;
     g = 147 * k;

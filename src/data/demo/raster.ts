@@ -26,6 +26,27 @@ export function rasterTargetCreate(width: number, height: number, photo: boolean
   return { width, height, label: new Uint8Array(n), inst: new Uint16Array(n), depth, rgb: photo ? new Float32Array(n * 3) : null };
 }
 
+const scratch = new Map<string, RasterTarget>();
+
+/**
+ * Returns a reusable target for width×height (one per `slot`), reset to empty depth and instances;
+ * labels and colours are left as they are because every render writes every pixel of them. Saves
+ * allocating and collecting megabytes per render; the caller must copy out what it keeps.
+ */
+export function rasterScratch(width: number, height: number, photo: boolean, slot: number): RasterTarget {
+  const key = `${width}x${height}/${photo ? 1 : 0}/${slot}`;
+  let t = scratch.get(key);
+  if (!t) {
+    if (scratch.size >= 8) scratch.clear();
+    t = rasterTargetCreate(width, height, photo);
+    scratch.set(key, t);
+    return t;
+  }
+  t.depth.fill(Infinity);
+  t.inst.fill(0);
+  return t;
+}
+
 /** The plane and surface frame of the face being drawn, in camera space (metres). */
 export const faceState = { nx: 0, ny: 0, nz: 1, nd: 1, ux: 1, uy: 0, uz: 0, ou: 0, vx: 0, vy: 1, vz: 0, ov: 0 };
 /** The segment being drawn: screen end points (px), inverse depths (1/m), half-widths (px), length (m). */

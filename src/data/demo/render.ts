@@ -5,7 +5,7 @@ import type { DemoCamera } from './camera.ts';
 import { Drawer } from './draw.ts';
 import { hoodPass } from './finish.ts';
 import { backgroundShade, groundPass } from './ground.ts';
-import { rasterTargetCreate, type RasterTarget } from './raster.ts';
+import { rasterScratch, type RasterTarget } from './raster.ts';
 import type { DemoScene } from './scene.ts';
 import { waterPass } from './water.ts';
 
@@ -16,9 +16,12 @@ export interface RenderSpec {
   photo: boolean;
 }
 
-/** Returns the buffers of `scene` seen by `cam` and drawn as `spec` says. */
+/**
+ * Returns the buffers of `scene` seen by `cam` and drawn as `spec` says. They are scratch buffers,
+ * reused by the next render of the same size and kind: copy out what must be kept.
+ */
 export function sceneRender(scene: DemoScene, cam: DemoCamera, spec: RenderSpec): RasterTarget {
-  const t = rasterTargetCreate(cam.width, cam.height, spec.photo);
+  const t = rasterScratch(cam.width, cam.height, spec.photo, 0);
   groundPass(t, cam);
   const d = new Drawer(cam, t, spec.instClass);
   const objs = scene.objects;

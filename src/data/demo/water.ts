@@ -36,7 +36,7 @@ export function waterPass(t: RasterTarget, cam: DemoCamera, seed: number): void 
       const X = X0 + dxc * cam.cos * x;
       const Z = Z0 - dxc * cam.sin * x;
       const n1 = noise2(X * 0.45, Z * 0.09 + cam.time * 0.12, seed + 51);
-      const n2 = noise2(X * 1.3, Z * 0.3 - cam.time * 0.2, seed + 52);
+      const n2 = 0.5 + 0.5 * Math.sin(X * 1.9 + Z * 0.37 + n1 * 6 - cam.time * 0.4);
       const ripple = n1 * 0.7 + n2 * 0.3;
       let mx = Math.round(x + (ripple - 0.5) * amp * 2.2);
       mx = mx < 0 ? 0 : mx >= width ? width - 1 : mx;
