@@ -25,6 +25,7 @@ import { viewOrigin, type ViewState } from './viewTransform.ts';
 
 interface TileDraw {
   mesh: Mesh<MeshGeometry, Shader>;
+  geometry: MeshGeometry;
   shader: Shader;
 }
 
@@ -61,7 +62,8 @@ export class GlStage {
   /** Uploads the frame's textures and builds its tiles; returns the tiles. */
   frameSet(frame: CompositeFrame | null): PixelBox[] {
     for (const d of this.draws) {
-      d.mesh.destroy();
+      d.mesh.destroy(); // leaves geometry and shader alive: free them too
+      d.geometry.destroy();
       d.shader.destroy();
     }
     this.draws = [];
@@ -94,7 +96,7 @@ export class GlStage {
       const mesh = new Mesh({ geometry, shader });
       mesh.position.set(t.x, t.y);
       this.world.addChild(mesh);
-      return { mesh, shader };
+      return { mesh, geometry, shader };
     });
     return tiles;
   }

@@ -84,6 +84,21 @@ describe('viewer (WebGL2 in headless Chromium)', () => {
     });
   }
 
+  it('stays exact while stepping frame to frame on one viewer (sizes, id widths and palettes change)', async () => {
+    await call('setup', { tileSize: 64 });
+    const specs: FrameSpec[] = [
+      { seed: 111, width: 90, height: 70 },
+      { seed: 112, width: 90, height: 70 },
+      { seed: 113, width: 130, height: 41, wide: true },
+      { seed: 114, width: 90, height: 70, photo: false },
+    ];
+    for (const spec of specs) {
+      const r = await call<Check>('check', spec, seeds(spec.seed * 10, 4));
+      expect(r.firstDifference, `frame seed ${spec.seed}`).toBeNull();
+    }
+    expect(errors).toEqual([]);
+  });
+
   it('changes only uniforms on layer, opacity, colour-mode, solo, band and curtain changes (no texture uploads)', async () => {
     await call('setup', { tileSize: 64 });
     const spec: FrameSpec = { seed: 107, width: 150, height: 90 };
