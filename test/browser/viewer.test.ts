@@ -135,6 +135,28 @@ describe('viewer (WebGL2 in headless Chromium)', () => {
     expect(r.error).toMatch(/8193×2 pixels; the viewer shows frames up to 8192 pixels on the long side/);
   });
 
+  it('zooms at the cursor with the wheel and pans by dragging (real mouse input)', async () => {
+    await call('setup', { width: 640, height: 400 });
+    await call('load', { seed: 108, width: 64, height: 40 });
+    const box = (await page.locator('#host').boundingBox())!;
+    type View = { cx: number; cy: number; scale: number };
+    expect((await call<View>('viewGet')).scale).toBe(10);
+    await page.mouse.move(box.x + 105, box.y + 155); // image point (10.5, 15.5)
+    await page.mouse.wheel(0, -240); // one doubling
+    await page.waitForFunction(() => (window as unknown as { hl: { viewGet(): View } }).hl.viewGet().scale > 10);
+    const zoomed = await call<View>('viewGet');
+    expect(zoomed.scale).toBeCloseTo(20, 6);
+    // The image point under the cursor stayed there: centre moved halfway towards it.
+    expect(zoomed.cx).toBeCloseTo(32 + (10.5 - 32) / 2, 6);
+    expect(zoomed.cy).toBeCloseTo(20 + (15.5 - 20) / 2, 6);
+    await page.mouse.down();
+    await page.mouse.move(box.x + 145, box.y + 135, { steps: 4 });
+    await page.mouse.up();
+    const panned = await call<View>('viewGet');
+    expect(panned.cx).toBeCloseTo(zoomed.cx - 40 / 20, 6);
+    expect(panned.cy).toBeCloseTo(zoomed.cy + 20 / 20, 6);
+  });
+
   it('reads out the integer image pixel under the pointer, null outside the image', async () => {
     await call('setup', { width: 640, height: 400 });
     await call('load', { seed: 108, width: 64, height: 40 });
