@@ -16,9 +16,10 @@ export function distanceWorkCreate(width: number): DistanceWork {
 export const DISTANCE_LIMIT_MAX = 254;
 
 /**
- * Writes into `out[o .. o+width)` the squared Euclidean distances (pixels²) of one row, given in
- * `g` the row's column distances (rows to the nearest marked pixel in the same column, any value
- * > limit meaning "farther"). Exact wherever the result is ≤ limit²; larger values are written as
+ * Writes into `out[o .. o+width)` the squared Euclidean distances (pixels²) of row o/width. Column
+ * distances (rows to the nearest marked pixel in the same column; any value > limit means "farther")
+ * are completed on the way: the smaller of the distance from above, `fwd[o + x]`, and one more than
+ * the row below's, `below[x]`, which is then replaced by this row's. Exact wherever the result is ≤ limit²; larger values are written as
  * limit² + 1. One row of Felzenszwalb & Huttenlocher, "Distance Transforms of Sampled Functions"
  * (Theory of Computing 8, 2012): the lower envelope of parabolas (x−q)² + g(q)². Capping is exact
  * because a minimiser within `limit` has column distance ≤ limit. Envelope tests are
@@ -26,12 +27,17 @@ export const DISTANCE_LIMIT_MAX = 254;
  * square, so there is no division per pixel.
  * Hot loop: flat typed arrays, no allocation or closure per pixel.
  */
-export function distanceRow(g: Int32Array, width: number, limit: number, out: Uint16Array, o: number, work: DistanceWork): void {
+export function distanceRow(
+  fwd: Uint8Array | Uint16Array, o: number, width: number, limit: number, out: Uint16Array, work: DistanceWork,
+): void {
   const farSq = limit * limit + 1;
-  const { site, siteF, siteH } = work;
+  const { below, site, siteF, siteH } = work;
   let top = -1;
   for (let q = 0; q < width; q++) {
-    const gq = g[q];
+    const fromAbove = fwd[o + q];
+    const fromBelow = below[q] + 1;
+    const gq = fromBelow < fromAbove ? fromBelow : fromAbove;
+    below[q] = gq;
     if (gq > limit) continue;
     const f = gq * gq;
     const h = f + q * q;
@@ -69,18 +75,6 @@ export function distanceRow(g: Int32Array, width: number, limit: number, out: Ui
 }
 
 /**
- * Writes into `below` the final column distances of row `y` (capped at `far`): the smaller of the
- * distance from above (`fwd`, already capped) and one more than the row below's.
- */
-export function columnDistanceUp(fwd: Uint8Array | Uint16Array, o: number, width: number, below: Int32Array): void {
-  for (let x = 0; x < width; x++) {
-    const up = fwd[o + x];
-    const down = below[x] + 1;
-    below[x] = down < up ? down : up;
-  }
-}
-
-/**
  * Writes into `out` the squared Euclidean distance (pixels²) from every pixel to the nearest pixel
  * with `marks[i] ≠ 0`, exact wherever it is ≤ limit²; larger distances and "no marked pixel" are
  * written as limit² + 1. `limit` ≤ DISTANCE_LIMIT_MAX.
@@ -101,8 +95,5 @@ export function distanceSquaredCapped(
     }
   }
   work.below.fill(far, 0, width);
-  for (let y = height - 1; y >= 0; y--) {
-    columnDistanceUp(out, y * width, width, work.below);
-    distanceRow(work.below, width, limit, out, y * width, work);
-  }
+  for (let y = height - 1; y >= 0; y--) distanceRow(out, y * width, width, limit, out, work);
 }

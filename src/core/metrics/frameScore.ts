@@ -92,11 +92,7 @@ export function frameScore(
   labelCodesFill(truth.ids, table, tc, 0, width);
   labelCodesFill(pred.ids, table, pc, 0, width);
   for (let y = 0; y < height; y++) {
-    if (y + 1 < height) {
-      labelCodesFill(truth.ids, table, tc, (y + 1) * width, (y + 2) * width);
-      labelCodesFill(pred.ids, table, pc, (y + 1) * width, (y + 2) * width);
-    }
-    edgeRowScan(tc, pc, width, height, y, k, limit + 1, edges);
+    edgeRowScan(truth.ids, pred.ids, table, tc, pc, width, height, y, k, limit + 1, edges);
     innerBandRow(tc, pc, width, y, dil, k, s.innerBand, biouInter, biouUnion);
   }
   innerBandTail(tc, pc, width, height, dil, k, biouInter, biouUnion);
@@ -109,7 +105,7 @@ export function frameScore(
 
   const bf = { predMatched: new Uint32Array(k), predTotal: new Uint32Array(k), truthMatched: new Uint32Array(k), truthTotal: new Uint32Array(k) };
   const shortcut = r <= limit ? s.dist2 : null;
-  boundaryFCounts(tc, pc, edges.listT, edges.nT, edges.listP, edges.nP, shortcut, width, height, k, r2, s.boundaryF, bf);
+  boundaryFCounts(tc, pc, edges, shortcut, width, height, k, r2, s.boundaryF, bf);
 
   return ok({
     width, height, classIds: [...classIds], confusion, band, biouInter, biouUnion,

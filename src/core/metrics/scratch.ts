@@ -3,7 +3,7 @@ import { innerBandWorkCreate, type InnerBandWork } from './boundaryIoU.ts';
 import { boundaryFWorkCreate, type BoundaryFWork } from './boundaryF.ts';
 import { codeTableBuild, CODE_TABLE_SIZE } from './codes.ts';
 import { distanceWorkCreate, type DistanceWork } from './distanceCapped.ts';
-import type { EdgeScan } from './edgeRows.ts';
+import { edgeScanCreate, type EdgeScan } from './edgeRows.ts';
 
 /**
  * Buffers frameScore reuses from frame to frame (one per thread): per-pixel code, column-distance
@@ -34,7 +34,7 @@ export function scoreScratchCreate(): ScoreScratch {
     width: 0,
     truthCodes: new Uint16Array(0),
     predCodes: new Uint16Array(0),
-    edges: { fwd: new Uint8Array(0), listT: new Int32Array(0), listP: new Int32Array(0), nT: 0, nP: 0 },
+    edges: edgeScanCreate(0, 0),
     dist2: new Uint16Array(0),
     distance: distanceWorkCreate(0),
     innerBand: innerBandWorkCreate(0),
@@ -49,12 +49,13 @@ export function scoreScratchCreate(): ScoreScratch {
 /** Grows the per-pixel maps and work rows of `s` to hold a width × height frame. */
 export function scoreScratchFit(s: ScoreScratch, width: number, height: number): void {
   const n = width * height;
-  if (s.pixels < n) {
-    s.truthCodes = new Uint16Array(n);
-    s.predCodes = new Uint16Array(n);
-    s.edges = { fwd: new Uint8Array(n), listT: new Int32Array(n), listP: new Int32Array(n), nT: 0, nP: 0 };
-    s.dist2 = new Uint16Array(n);
-    s.pixels = n;
+  if (s.pixels < n || s.edges.rowT.length < height + 1) {
+    const size = Math.max(n, s.pixels);
+    s.truthCodes = new Uint16Array(size);
+    s.predCodes = new Uint16Array(size);
+    s.edges = edgeScanCreate(size, Math.max(height, s.edges.rowT.length - 1));
+    s.dist2 = new Uint16Array(size);
+    s.pixels = size;
   }
   if (s.width < width) {
     s.distance = distanceWorkCreate(width);
