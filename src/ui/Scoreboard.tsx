@@ -1,5 +1,7 @@
 import { useState } from 'react';
 import { shownRun } from '../state/frameRows.ts';
+import { stateReport } from '../state/stateReport.ts';
+import { downloadBlob } from './download.ts';
 import { BandCurve } from './BandCurve.tsx';
 import { ConfusionMap } from './ConfusionMap.tsx';
 import { pct } from './format.ts';
@@ -118,7 +120,16 @@ export function Scoreboard() {
             onChange={(e) => store.getState().layersSet({ band: { ...band, width: Number(e.currentTarget.value) } })}
           />
         </label>
-        <span className="dim">run {run ?? '—'}</span>
+        <button
+          disabled={!run}
+          title="Save the scores of run A as the same JSON report the headless scorer writes"
+          onClick={() => {
+            const report = run ? stateReport(store.getState(), run) : null;
+            if (report) downloadBlob(`hairline-report-${run}.json`, new Blob([JSON.stringify(report, null, 2)], { type: 'application/json' }));
+          }}
+        >
+          save report
+        </button>
       </div>
       <div className="tab-body">
         {tab === 'scores' && <ScoresTab dataset={dataset} frame={frame} w={w} />}

@@ -1,4 +1,8 @@
+import { demoOptionsCheck, type DemoOptions } from '../data/demo/options.ts';
 import { demoSourceOpen } from '../data/sources/demoSource.ts';
+import type { Result } from '../core/result.ts';
+import type { ScoreReport } from '../core/metrics/report.ts';
+import { stateReport } from '../state/stateReport.ts';
 import { servedSourceOpen } from '../data/sources/servedSource.ts';
 import { datasetFromSource, datasetInstall } from '../state/datasetLoad.ts';
 import { scoringKeep } from '../state/scoringRun.ts';
@@ -13,6 +17,8 @@ export interface AppRuntime {
   store: AppStore;
   scorePool: WorkerPool;
   viewPool: WorkerPool;
+  /** The JSON report of `run` over the frames scored so far, as the headless scorer writes it. */
+  report(run: string): ScoreReport | null;
   stop(): void;
 }
 
@@ -28,6 +34,7 @@ export function appStart(): AppRuntime {
     store,
     scorePool,
     viewPool,
+    report: (run) => stateReport(store.getState(), run),
     stop() {
       for (const s of stops) s();
       scorePool.destroy();
@@ -46,9 +53,29 @@ async function datasetOpenInitial(store: AppStore, fromUrl: UrlView): Promise<vo
       if (fromUrl.dataset === 'served') urlViewApply(store, fromUrl);
       return;
     }
-    datasetInstall(store, datasetFromSource(demoSourceOpen()));
+    const demo = demoOptionsFromQuery(new URLSearchParams(location.search));
+    if (!demo.ok) {
+      s.datasetErrorSet(demo.error);
+      return;
+    }
+    datasetInstall(store, datasetFromSource(demoSourceOpen(demo.value)));
     if (fromUrl.dataset === 'demo' || fromUrl.dataset === null) urlViewApply(store, fromUrl);
   } catch (e) {
     s.datasetErrorSet(`Could not open the served dataset: ${(e as Error).message}`);
   }
+}
+
+/** Returns the demo's options from `?demo-size=WxH&demo-frames=N&demo-seed=S` (defaults otherwise). */
+export function demoOptionsFromQuery(q: URLSearchParams): Result<DemoOptions> {
+  const partial: Partial<DemoOptions> = {};
+  const size = q.get('demo-size');
+  if (size !== null) {
+    const m = /^(\d+)x(\d+)$/.exec(size);
+    if (!m) return { ok: false, error: `demo-size in the address: expected WIDTHxHEIGHT such as 2048x1024, got "${size}"` };
+    partial.width = Number(m[1]);
+    partial.height = Number(m[2]);
+  }
+  if (q.has('demo-frames')) partial.frames = Number(q.get('demo-frames'));
+  if (q.has('demo-seed')) partial.seed = Number(q.get('demo-seed'));
+  return demoOptionsCheck(partial, 'demo options in the address');
 }
