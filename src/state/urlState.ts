@@ -26,7 +26,7 @@ export function urlViewEncode(s: AppState): string {
   if (frame) p.set('f', frame);
   if (s.layers.runA) p.set('a', s.layers.runA);
   if (s.layers.runB) p.set('b', s.layers.runB);
-  p.set('l', LAYER_KEYS.filter((k) => k !== 'highlight').map((k) => `${SHORT[k]}${s.layers[k].on ? '+' : '-'}${s.layers[k].opacity}`).join('.'));
+  p.set('l', LAYER_KEYS.filter((k) => k !== 'highlight').map((k) => `${SHORT[k]}${s.layers[k].on ? 'y' : 'n'}${s.layers[k].opacity}`).join('.'));
   p.set('w', String(s.layers.band.width));
   if (s.layers.solo.on) p.set('solo', String(s.layers.solo.classId));
   if (s.layers.curtain.on) p.set('cur', String(s.layers.curtain.x));
@@ -40,10 +40,11 @@ export function urlViewDecode(hash: string): UrlView {
   const num = (v: string | null) => (v !== null && v.trim() !== '' && Number.isFinite(Number(v)) ? Number(v) : null);
   const layers: UrlView['layers'] = {};
   for (const part of (p.get('l') ?? '').split('.')) {
-    const m = /^([a-z]{2})([+-])(\d{1,3})$/.exec(part);
+    // y/n, not +/-: a '+' in a query string reads back as a space.
+    const m = /^([a-z]{2})([yn])(\d{1,3})$/.exec(part);
     if (!m) continue;
     const key = (Object.keys(SHORT) as LayerKey[]).find((k) => SHORT[k] === m[1]);
-    if (key) layers[key] = { on: m[2] === '+', opacity: Math.min(255, Number(m[3])) };
+    if (key) layers[key] = { on: m[2] === 'y', opacity: Math.min(255, Number(m[3])) };
   }
   let place: ViewPlace | null = null;
   const z = (p.get('z') ?? '').split(',').map(Number);

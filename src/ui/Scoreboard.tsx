@@ -3,15 +3,16 @@ import { shownRun } from '../state/frameRows.ts';
 import { stateReport } from '../state/stateReport.ts';
 import { downloadBlob } from './download.ts';
 import { BandCurve } from './BandCurve.tsx';
+import { CompareTab } from './CompareTab.tsx';
 import { ConfusionMap } from './ConfusionMap.tsx';
 import { pct } from './format.ts';
 import type { ScopeScores } from './scoreboardData.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 import { useScopes } from './useScopes.ts';
 
-const TABS = ['scores', 'confusion', 'band'] as const;
+const TABS = ['scores', 'confusion', 'band', 'compare'] as const;
 type Tab = (typeof TABS)[number];
-const TAB_NAMES: Record<Tab, string> = { scores: 'Scores', confusion: 'Confusion matrix', band: 'Band curve' };
+const TAB_NAMES: Record<Tab, string> = { scores: 'Scores', confusion: 'Confusion', band: 'Band curve', compare: 'A vs B' };
 
 function Headline({ label, d, f }: { label: string; d: number | null | undefined; f: number | null | undefined }) {
   return (
@@ -135,6 +136,7 @@ export function Scoreboard() {
         {tab === 'scores' && <ScoresTab dataset={dataset} frame={frame} w={w} />}
         {tab === 'confusion' && <ConfusionMap dataset={dataset} frame={frame} classes={classes} run={run} />}
         {tab === 'band' && <BandCurve runA={run} runB={runB} a={dataset} aFrame={frame} b={scopesB.dataset} w={w} />}
+        {tab === 'compare' && <CompareTab runA={run} runB={runB} />}
       </div>
     </div>
   );
