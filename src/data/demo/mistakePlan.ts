@@ -19,7 +19,7 @@ export interface PlannedMistake {
   inst: number;
   /** Class painted on the object (wrong-class, class-swap, void-over-object); -1 when found on applying. */
   labelledClass: number;
-  /** Shift of a sloppy outline, in pixels at 1024 px wide. */
+  /** Shift of a sloppy outline, in pixels at 1024 px wide (never under 4 px at any size). */
   dx: number;
   dy: number;
 }
@@ -34,10 +34,13 @@ export const LOOK_ALIKE: Partial<Record<number, number>> = {
 
 // Target classes per kind and visible size limits in pixels of the 256-wide planning render.
 const TARGETS: Record<MistakeKind, { classes: number[]; min: number; max: number }> = {
-  'wrong-class': { classes: [C.container, C.building, C.truck, C.vegetation, C.crane], min: 30, max: 2500 },
-  unlabelled: { classes: [C.person, C.bollard, C.truck, C.container, C.lightMast], min: 4, max: 500 },
-  'sloppy-outline': { classes: [C.truck, C.person, C.container, C.building, C.vegetation], min: 16, max: 1200 },
-  'void-over-object': { classes: [C.person, C.truck, C.bollard, C.container], min: 5, max: 700 },
+  'wrong-class': { classes: [C.truck, C.building, C.container, C.vegetation, C.crane], min: 30, max: 2500 },
+  // objects whose background is another class (a stacked box has more boxes behind it) and that
+  // both runs can see (thin masts are broken up by run-a anyway)
+  unlabelled: { classes: [C.person, C.truck, C.bollard], min: 8, max: 500 },
+  // objects large enough that an outline several pixels off stands out from a model's rounded edge
+  'sloppy-outline': { classes: [C.truck, C.container, C.building, C.vegetation], min: 24, max: 1200 },
+  'void-over-object': { classes: [C.person, C.bollard, C.truck, C.container], min: 5, max: 700 },
   'class-swap': { classes: [C.truck, C.container], min: 20, max: 2500 },
 };
 
@@ -67,29 +70,35 @@ function planMistakes(frames: number, seed: number, visible: Uint32Array[], clsO
   const rng = new Rng(seed ^ 0x51a7e);
   const out: PlannedMistake[] = [];
   const used = new Set<string>();
-  const candidates = (f: number, kind: MistakeKind) => {
+  // Candidates of the first class (in the kind's order, starting at `turn`) that has any, so the
+  // mistakes do not all land on the yard's many containers.
+  const candidates = (f: number, kind: MistakeKind, turn = 0) => {
     const t = TARGETS[kind];
-    const list: number[] = [];
-    for (let inst = 1; inst < visible[f].length; inst++) {
-      const n = visible[f][inst];
-      if (n >= t.min && n <= t.max && t.classes.includes(clsOf(inst)) && !used.has(`${f}/${inst}`)) list.push(inst);
+    for (let c = 0; c < t.classes.length; c++) {
+      const cls = t.classes[(c + turn) % t.classes.length];
+      const list: number[] = [];
+      for (let inst = 1; inst < visible[f].length; inst++) {
+        const n = visible[f][inst];
+        if (n >= t.min && n <= t.max && clsOf(inst) === cls && !used.has(`${f}/${inst}`)) list.push(inst);
+      }
+      if (list.length > 0) return list;
     }
-    return list;
+    return [];
   };
   const add = (frame: number, kind: MistakeKind, inst: number) => {
     used.add(`${frame}/${inst}`);
     const cls = clsOf(inst);
     const labelledClass = kind === 'void-over-object' ? 255 : kind === 'wrong-class' || kind === 'class-swap' ? LOOK_ALIKE[cls]! : -1;
     const a = rng.range(0, Math.PI * 2);
-    const len = rng.range(4, 7);
+    const len = rng.range(6, 9);
     out.push({ frame, kind, inst, labelledClass, dx: Math.round(Math.cos(a) * len), dy: Math.round(Math.sin(a) * len) });
   };
   // class swaps: one 3-frame run, and a 2-frame run in longer sequences
   const runs = frames >= 24 ? [3, 2] : frames >= 3 ? [3] : [];
-  for (const len of runs) {
+  for (const [r, len] of runs.entries()) {
     for (let tries = 0; tries < 40; tries++) {
       const start = rng.int(frames - len + 1);
-      const all = candidates(start, 'class-swap').filter((inst) => {
+      const all = candidates(start, 'class-swap', r).filter((inst) => {
         for (let f = start; f < start + len; f++) if (visible[f][inst] < TARGETS['class-swap'].min || used.has(`${f}/${inst}`)) return false;
         return true;
       });
@@ -107,7 +116,7 @@ function planMistakes(frames: number, seed: number, visible: Uint32Array[], clsO
     const hi = Math.max(lo + 1, Math.floor(((k + 1) * frames) / singles));
     for (let tries = 0; tries < 12; tries++) {
       const f = tries < 6 ? lo + rng.int(hi - lo) : rng.int(frames);
-      const list = candidates(f, kind);
+      const list = candidates(f, kind, Math.floor(k / kinds.length));
       if (list.length === 0) continue;
       add(f, kind, rng.pick(list));
       break;
