@@ -38,8 +38,11 @@ export function pngChunksRead(bytes: Uint8Array, file: string, header: PngHeader
     const length = view.getUint32(off);
     const t = bytes.subarray(off + 4, off + 8);
     const type = String.fromCharCode(t[0], t[1], t[2], t[3]);
-    if (!isLetter(t[0]) || !isLetter(t[1]) || !isLetter(t[2]) || !isLetter(t[3]) || length > 0x7fffffff) {
+    if (!isLetter(t[0]) || !isLetter(t[1]) || !isLetter(t[2]) || !isLetter(t[3])) {
       return fail(file, `is damaged: garbage where a chunk should start at byte ${countText(off)} (type "${printable(type)}")`);
+    }
+    if (length > 0x7fffffff) {
+      return fail(file, `is damaged: its ${type} chunk at byte ${countText(off)} claims ${countText(length)} bytes, above PNG's limit of 2^31−1`);
     }
     const end = off + 12 + length;
     if (end > bytes.length) {

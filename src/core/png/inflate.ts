@@ -1,36 +1,99 @@
-import { unzlibSync } from 'fflate';
+import { Inflate } from 'fflate';
 import { countText } from '../countText.ts';
 import { fail, ok, type Result } from '../result.ts';
+import { adler32 } from './adler32.ts';
+
+/** Most bytes one byte of deflate data can inflate to: a 258-byte copy coded in 2 bits (RFC 1951 §3.2.5). */
+const DEFLATE_RATIO_MAX = 1032;
+/** Output past the image's end still inflated to reach the stream's end and check its checksum; more is cut off. */
+const EXCESS_MAX = 1 << 20;
+
+/**
+ * Returns how many compressed bytes to hand the inflater at a time: 1/64 of the image's bytes, 1 to
+ * 16 KB. Each step inflates to at most 1032 × its size, so a stream that holds far more than the
+ * header promises (a deflate bomb) costs at most EXCESS_MAX + 17 MB of work and buffer past the image's
+ * end. Small images get small steps since their first inflate runs before the JIT has warmed up
+ * (measured: 8 MB of bomb output in one step took 400 ms cold, 30 ms warm).
+ */
+function inflateStep(expected: number): number {
+  return Math.min(16384, Math.max(1024, expected >> 6));
+}
+
+/**
+ * fflate 0.8.3 (pinned in package.json) keeps a stream's progress in `s`: `f` is set once the final
+ * block has started and `l` holds the open block's code table (cleared at each block's end). Its public
+ * API cannot tell "the stream has ended" from "more input is needed"; the fuzz tests in test/core/png
+ * fail if this reading goes wrong.
+ */
+function inflateEnded(inflater: Inflate): boolean {
+  const s = (inflater as unknown as { s: { f?: number; l?: unknown } }).s;
+  return !!s.f && !s.l;
+}
+
+/** Returns an error for a zlib header (RFC 1950 §2.2) that is not deflate, has a bad check or needs a preset dictionary. */
+function zlibHeaderCheck(cmf: number, flg: number, file: string): Result<void> {
+  if ((cmf & 15) !== 8 || cmf >> 4 > 7 || ((cmf << 8) | flg) % 31 !== 0) {
+    return fail(file, 'is damaged: its compressed image data cannot be decompressed (invalid zlib data)');
+  }
+  if (flg & 32) return fail(file, 'is damaged: its compressed image data cannot be decompressed (invalid zlib data: need dictionary)');
+  return ok(undefined);
+}
+
+/** Returns the last four bytes of the stream split over `parts` as a big-endian integer (where zlib keeps its Adler-32). */
+function streamTail32(parts: Uint8Array[]): number {
+  const tail: number[] = [];
+  for (let p = parts.length - 1; p >= 0 && tail.length < 4; p--) {
+    for (let i = parts[p].length - 1; i >= 0 && tail.length < 4; i--) tail.unshift(parts[p][i]);
+  }
+  return tail.reduce((v, byte) => v * 256 + byte, 0);
+}
 
 /**
  * Inflates the zlib stream split over `parts` into a buffer of exactly `expected` bytes; returns it,
- * or an error when the stream is corrupt or holds fewer bytes than the image needs. Output past
- * `expected` is dropped, so a file can never make this allocate more than its header promised.
- * The Adler-32 checksum is not verified: every chunk's CRC already covers the same bytes.
+ * or an error when the stream is corrupt, stops early, holds fewer bytes than the image needs or fails
+ * its Adler-32 checksum. The checksum matters although every chunk has a CRC: a CRC proves the bytes
+ * arrived as written, not that they are a sound stream (fflate decodes some broken streams without
+ * complaint). A stream too short to possibly hold `expected` bytes is refused before allocating; one
+ * holding more than EXCESS_MAX past the image is cut off there, the image kept, its checksum unchecked.
  */
 export function pngInflate(parts: Uint8Array[], totalLength: number, expected: number, file: string): Result<Uint8Array> {
-  let data: Uint8Array;
-  if (parts.length === 1) data = parts[0];
-  else {
-    data = new Uint8Array(totalLength);
-    let off = 0;
-    for (const p of parts) {
-      data.set(p, off);
-      off += p.length;
-    }
+  if (totalLength < 2) return fail(file, 'is truncated or damaged: its compressed image data stops before the image is complete');
+  const flat = parts.flatMap((p) => Array.from(p.subarray(0, 2))).slice(0, 2);
+  const header = zlibHeaderCheck(flat[0], flat[1], file);
+  if (!header.ok) return header;
+  if (expected > DEFLATE_RATIO_MAX * totalLength) {
+    return fail(file, `is damaged: its ${countText(totalLength)} bytes of compressed image data cannot hold the ${countText(expected)} bytes the image needs`);
   }
-  let out: Uint8Array;
+  const out = new Uint8Array(expected);
+  let produced = 0, checksum = 1;
+  const inflater = new Inflate((chunk) => {
+    const n = Math.min(chunk.length, expected - produced);
+    if (n > 0) out.set(n === chunk.length ? chunk : chunk.subarray(0, n), produced);
+    produced += chunk.length;
+    checksum = adler32(chunk, checksum);
+  });
   try {
-    out = unzlibSync(data, { out: new Uint8Array(expected) });
-  } catch (e) {
-    const why = (e as Error).message || String(e);
-    if (/unexpected EOF/i.test(why)) {
-      return fail(file, 'is truncated or damaged: its compressed image data stops before the image is complete');
+    const step = inflateStep(expected);
+    let skip = 2; // the zlib header, checked above
+    for (const part of parts) {
+      for (let off = Math.min(skip, part.length); off < part.length && !inflateEnded(inflater); off += step) {
+        inflater.push(part.subarray(off, off + step), false);
+        if (produced > expected + EXCESS_MAX) return ok(out);
+      }
+      skip = Math.max(0, skip - part.length);
     }
-    return fail(file, `is damaged: its compressed image data cannot be decompressed (${why})`);
+  } catch (e) {
+    return fail(file, `is damaged: its compressed image data cannot be decompressed (${(e as Error).message || String(e)})`);
   }
-  if (out.length < expected) {
-    return fail(file, `is damaged: its image data holds ${countText(out.length)} bytes, the image needs ${countText(expected)}`);
+  if (!inflateEnded(inflater)) {
+    const where = produced >= expected ? 'its end' : 'the image is complete';
+    return fail(file, `is truncated or damaged: its compressed image data stops before ${where}`);
+  }
+  if (produced < expected) {
+    return fail(file, `is damaged: its image data holds ${countText(produced)} bytes, the image needs ${countText(expected)}`);
+  }
+  if (checksum !== streamTail32(parts)) {
+    return fail(file, 'is damaged: its image data fails its checksum (Adler-32), so its pixels cannot be trusted');
   }
   return ok(out);
 }

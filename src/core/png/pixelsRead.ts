@@ -1,4 +1,4 @@
-import { countText } from '../countText.ts';
+import { countText, pixelCountText } from '../countText.ts';
 import { fail, ok, type Result } from '../result.ts';
 import { adam7Deinterlace, adam7PassSize, pngRawSize } from './adam7.ts';
 import { pngChunksRead } from './chunkRead.ts';
@@ -23,7 +23,10 @@ export function pngSizeCheck(header: PngHeader, maxPixels: number, file: string)
   const pixels = header.width * header.height;
   if (pixels > maxPixels) {
     const mp = (n: number) => `${countText(Math.round(n / 1e6))} megapixels`;
-    return fail(file, `is ${countText(header.width)}×${countText(header.height)} pixels (${mp(pixels)}), above the limit of ${mp(maxPixels)}; refusing to decode it`);
+    // Exact counts where rounding to megapixels would hide the excess ("100 megapixels, above the limit of 100").
+    const exact = maxPixels < 1e6 || mp(pixels) === mp(maxPixels);
+    const [size, limit] = exact ? [pixelCountText(pixels), pixelCountText(maxPixels)] : [mp(pixels), mp(maxPixels)];
+    return fail(file, `is ${countText(header.width)}×${countText(header.height)} pixels (${size}), above the limit of ${limit}; refusing to decode it`);
   }
   return ok(undefined);
 }
