@@ -1,0 +1,90 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import { threadPortCreate } from '../../src/cli/threadPort.ts';
+import type { LabelMap } from '../../src/core/labelMap.ts';
+import { labelMapToPng } from '../../src/core/png/encode.ts';
+import type { DatasetSource } from '../../src/data/sources/source.ts';
+import { datasetFromSource, datasetInstall } from '../../src/state/datasetLoad.ts';
+import { scoringKeep } from '../../src/state/scoringRun.ts';
+import { appStoreCreate, type AppStore } from '../../src/state/store.ts';
+import { workerPoolCreate, type WorkerPool } from '../../src/workers/pool.ts';
+
+const ENTRY = new URL('./fixtures/scoreWorkerThread.ts', import.meta.url);
+let pool: WorkerPool | null = null;
+let stop: (() => void) | null = null;
+afterEach(() => {
+  stop?.();
+  pool?.destroy();
+});
+
+function png(ids: number[], w: number): Blob {
+  const map: LabelMap = { width: w, height: ids.length / w, ids: Uint8Array.from(ids) };
+  return new Blob([labelMapToPng(map, { kind: 'gray', bitDepth: 8 }) as BlobPart]);
+}
+
+/** A small in-memory dataset: 6 frames of 4×2 pixels; `dies` kills the worker scoring it. */
+function sourceMake(names: string[]): DatasetSource {
+  const truth = png([0, 0, 1, 1, 0, 0, 1, 1], 4);
+  const pred = png([0, 1, 1, 1, 0, 0, 1, 255], 4);
+  return {
+    kind: 'folder',
+    title: 'tiny',
+    listing: { images: [], truth: names.map((n) => `${n}.png`), predictions: { r: names.map((n) => `${n}.png`) } },
+    classesText: JSON.stringify({ ignore: 255, classes: [{ id: 0, name: 'a', color: '#000001' }, { id: 1, name: 'b', color: '#000002' }] }),
+    read: async (folder) => (folder === 'truth' ? truth : pred),
+  };
+}
+
+function settled(store: AppStore): Promise<void> {
+  return new Promise((resolve) => {
+    const check = () => {
+      const s = store.getState().scoring;
+      if (s.total > 0 && s.done === s.total) {
+        unsub();
+        resolve();
+      }
+    };
+    const unsub = store.subscribe(check);
+    check();
+  });
+}
+
+describe('scoringKeep: the pipeline that keeps scores in step with the dataset and settings', () => {
+  it('scores every frame; a worker that dies marks its frame with an error, and the rest are scored', async () => {
+    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 2);
+    const store = appStoreCreate();
+    stop = scoringKeep(store, pool);
+    datasetInstall(store, datasetFromSource(sourceMake(['f1', 'f2', 'dies', 'f4', 'f5', 'f6'])));
+    await settled(store);
+    const { results, scoring } = store.getState();
+    expect(scoring.failed).toBe(1);
+    const dead = results[store.getState().dataset!.pairing.frames.findIndex((f) => f.name === 'dies')]!;
+    expect(dead.error).toMatch(/^dies: the worker stopped while running this job \(exit code 9\)/);
+    const ok = results.filter((r) => r && !r.error);
+    expect(ok).toHaveLength(5);
+    // 8 pixels: truth 0 0 1 1 / 0 0 1 1, prediction 0 1 1 1 / 0 0 1 255 → 6 right of 8.
+    for (const r of ok) expect(r!.runs[0].stats!.confusion.reduce((a, b) => a + b, 0)).toBe(8);
+    expect(pool.restarts()).toBe(1);
+  });
+
+  it('a settings change cancels the pass in flight and rescores with the new settings', async () => {
+    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    const store = appStoreCreate();
+    stop = scoringKeep(store, pool);
+    datasetInstall(store, datasetFromSource(sourceMake(['a1', 'a2', 'a3', 'a4', 'a5', 'a6', 'a7', 'a8'])));
+    const gen1 = store.getState().scoring.generation;
+    await new Promise((r) => setTimeout(r, 30));
+    expect(store.getState().scoring.done).toBeLessThan(8);
+    // Class 1 becomes the void id: its ground-truth pixels leave every score.
+    store.getState().settingsSet({ ignore: 1 });
+    const gen2 = store.getState().scoring.generation;
+    expect(gen2).toBeGreaterThan(gen1);
+    await settled(store);
+    const s = store.getState();
+    expect(s.scoring.generation).toBe(gen2);
+    expect(s.scoring.done).toBe(8);
+    expect(s.results.every((r) => r && !r.error)).toBe(true);
+    // Results of the cancelled pass never land in the new one: every frame counts 4 valid pixels, not 8.
+    expect(s.scoring.failed).toBe(0);
+    for (const r of s.results) expect(r!.runs[0].stats!.confusion.reduce((a, b) => a + b, 0)).toBe(4);
+  });
+});
