@@ -1,28 +1,54 @@
-import { diskBitsAny, diskHalfWidths } from './diskBits.ts';
+import { coarseSquareAny, COARSE_ROWS, COARSE_SHIFT, diskBitsAny, diskHalfWidths } from './diskBits.ts';
 import type { EdgeScan } from './edgeRows.ts';
 
 /** Reusable buffers for boundaryFCounts; they grow to the largest frame and class count seen. */
 export interface BoundaryFWork {
   slot: Int32Array;
+  /** Per class present: one bit per pixel of its boundary pixels, and the coarse OR of every 8 rows. */
   bitsT: Uint32Array; bitsP: Uint32Array;
+  coarseT: Uint32Array; coarseP: Uint32Array;
   halfR2: number; half: Int32Array;
 }
 
 /** Returns empty Boundary F buffers (they are sized on first use). */
 export function boundaryFWorkCreate(): BoundaryFWork {
   const none = new Int32Array(0);
-  return { slot: none, bitsT: new Uint32Array(0), bitsP: new Uint32Array(0), halfR2: -1, half: none };
+  const empty = new Uint32Array(0);
+  return { slot: none, bitsT: empty, bitsP: empty, coarseT: empty, coarseP: empty, halfR2: -1, half: none };
 }
 
 /** Per-class Boundary F counts of one frame (pixels): matched and total boundary pixels of P and of G. */
 export interface BoundaryFCounts { predMatched: Uint32Array; predTotal: Uint32Array; truthMatched: Uint32Array; truthTotal: Uint32Array }
 
-function workFit(work: BoundaryFWork, k: number, planes: number): void {
+function workFit(work: BoundaryFWork, k: number, planes: number, coarse: number): void {
   if (work.slot.length < k) work.slot = new Int32Array(k);
   if (work.bitsT.length < planes) {
     work.bitsT = new Uint32Array(planes);
     work.bitsP = new Uint32Array(planes);
   }
+  if (work.coarseT.length < coarse) {
+    work.coarseT = new Uint32Array(coarse);
+    work.coarseP = new Uint32Array(coarse);
+  }
+}
+
+/** Disk rows tried before the coarse test: |dy| ≤ 3 finds most matches of a boundary a few pixels off. */
+const NEAR_STEPS = 7;
+
+/**
+ * Returns true when the plane at `slot` holds a bit within the disk around (x, y): near rows first,
+ * then, unless the coarse plane rules the whole square out, the remaining rows.
+ */
+function diskHit(
+  bits: Uint32Array, coarse: Uint32Array, slot: number, plane: number, coarsePlane: number,
+  wordsPerRow: number, width: number, height: number, x: number, y: number, half: Int32Array,
+): boolean {
+  const steps = 2 * half.length - 1;
+  const near = steps < NEAR_STEPS ? steps : NEAR_STEPS;
+  if (diskBitsAny(bits, slot * plane, wordsPerRow, width, height, x, y, half, 0, near)) return true;
+  if (near === steps) return false;
+  if (!coarseSquareAny(coarse, slot * coarsePlane, wordsPerRow, width, height, x, y, half.length - 1)) return false;
+  return diskBitsAny(bits, slot * plane, wordsPerRow, width, height, x, y, half, near, steps);
 }
 
 /**
@@ -31,7 +57,8 @@ function workFit(work: BoundaryFWork, k: number, planes: number): void {
  * (each in ∂P of its predicted class; void truth already left out), both row by row. A boundary
  * pixel is matched when one of the other side's same-class boundary pixels lies within squared
  * distance `r2` (pixels², from squaredDistanceLimit). Each side's boundary pixels go into one bit
- * plane per class present, and each query scans the disk's rows in those bits, nearest rows first.
+ * plane per class present, and each query scans the disk's rows in those bits, nearest rows first,
+ * with a coarse plane (OR of 8 rows) to dismiss pixels that have no match anywhere near.
  * `truthDist2` (squared distance to the truth boundary, exact up to r2, or null) answers precision
  * for a ∂P_c pixel whose truth is also c: its nearest truth-boundary pixel lies in ∂G_c, because
  * the open disk up to it holds no boundary pixel, so it has one value, c.
@@ -43,8 +70,9 @@ export function boundaryFCounts(
 ): void {
   const wordsPerRow = (width + 31) >> 5;
   const plane = wordsPerRow * height;
+  const coarsePlane = wordsPerRow * Math.ceil(height / COARSE_ROWS);
   const { listT, listP, rowT, rowP, nT, nP } = scan;
-  workFit(work, k, 0);
+  workFit(work, k, 0, 0);
   const slot = work.slot;
   slot.fill(-1, 0, k);
   let slots = 0;
@@ -58,15 +86,15 @@ export function boundaryFCounts(
     if (slot[c] < 0) slot[c] = slots++;
     out.predTotal[c]++;
   }
-  workFit(work, k, slots * plane);
-  const { bitsT, bitsP } = work;
+  workFit(work, k, slots * plane, slots * coarsePlane);
+  const { bitsT, bitsP, coarseT, coarseP } = work;
   if (work.halfR2 !== r2) {
     work.half = diskHalfWidths(r2);
     work.halfR2 = r2;
   }
   const half = work.half;
-  bitsWrite(bitsT, listT, rowT, height, truth, slot, plane, width, wordsPerRow, true);
-  bitsWrite(bitsP, listP, rowP, height, pred, slot, plane, width, wordsPerRow, true);
+  bitsWrite(bitsT, coarseT, listT, rowT, height, truth, slot, plane, coarsePlane, width, wordsPerRow);
+  bitsWrite(bitsP, coarseP, listP, rowP, height, pred, slot, plane, coarsePlane, width, wordsPerRow);
   for (let y = 0; y < height; y++) {
     const o = y * width;
     for (let j = rowP[y], end = rowP[y + 1]; j < end; j++) {
@@ -75,34 +103,39 @@ export function boundaryFCounts(
       if (out.truthTotal[c] === 0) continue;
       const hit = truthDist2 !== null && truth[i] === c
         ? truthDist2[i] <= r2
-        : diskBitsAny(bitsT, slot[c] * plane, wordsPerRow, width, height, i - o, y, half);
+        : diskHit(bitsT, coarseT, slot[c], plane, coarsePlane, wordsPerRow, width, height, i - o, y, half);
       if (hit) out.predMatched[c]++;
     }
     for (let j = rowT[y], end = rowT[y + 1]; j < end; j++) {
       const i = listT[j];
       const c = truth[i];
       if (out.predTotal[c] === 0) continue;
-      if (diskBitsAny(bitsP, slot[c] * plane, wordsPerRow, width, height, i - o, y, half)) out.truthMatched[c]++;
+      if (diskHit(bitsP, coarseP, slot[c], plane, coarsePlane, wordsPerRow, width, height, i - o, y, half)) out.truthMatched[c]++;
     }
   }
-  // Zero only the words that were set, so the planes are clean for the next frame at no full-fill cost.
-  bitsWrite(bitsT, listT, rowT, height, truth, slot, plane, width, wordsPerRow, false);
-  bitsWrite(bitsP, listP, rowP, height, pred, slot, plane, width, wordsPerRow, false);
+  // Leave the planes clean for the next frame (a native fill of the used planes beats scattered writes).
+  bitsT.fill(0, 0, slots * plane);
+  bitsP.fill(0, 0, slots * plane);
+  coarseT.fill(0, 0, slots * coarsePlane);
+  coarseP.fill(0, 0, slots * coarsePlane);
 }
 
-/** Sets (or, with `set` false, zeroes the words of) the bits of the listed pixels in their class planes. */
+/** Sets the bits of the listed pixels in their class planes and coarse planes. */
 function bitsWrite(
-  bits: Uint32Array, list: Int32Array, rows: Int32Array, height: number, codes: Uint16Array, slot: Int32Array,
-  plane: number, width: number, wordsPerRow: number, set: boolean,
+  bits: Uint32Array, coarse: Uint32Array, list: Int32Array, rows: Int32Array, height: number, codes: Uint16Array,
+  slot: Int32Array, plane: number, coarsePlane: number, width: number, wordsPerRow: number,
 ): void {
   for (let y = 0; y < height; y++) {
     const o = y * width;
     const rowWord = y * wordsPerRow;
+    const coarseWord = (y >> COARSE_SHIFT) * wordsPerRow;
     for (let j = rows[y], end = rows[y + 1]; j < end; j++) {
       const i = list[j];
       const x = i - o;
-      const w = slot[codes[i]] * plane + rowWord + (x >> 5);
-      bits[w] = set ? bits[w] | (1 << (x & 31)) : 0;
+      const s = slot[codes[i]];
+      const bit = 1 << (x & 31);
+      bits[s * plane + rowWord + (x >> 5)] |= bit;
+      coarse[s * coarsePlane + coarseWord + (x >> 5)] |= bit;
     }
   }
 }

@@ -11,19 +11,22 @@ export function diskHalfWidths(r2: number): Int32Array {
   return out;
 }
 
+/** Image rows per row of a coarse plane (each coarse word is the OR of this many plane words). */
+export const COARSE_SHIFT = 3;
+export const COARSE_ROWS = 1 << COARSE_SHIFT;
+
 /**
- * Returns true when a bit is set within the disk of half-widths `half` around pixel (x, y) of one
- * bit plane (`base` = its first word, `wordsPerRow` 32-bit words per image row, bit x&31 of word
- * x>>5). Rows are tried nearest first, so a close match ends the search after one or two rows.
+ * Returns true when a bit is set in the disk rows tried at steps [from, to) around pixel (x, y)
+ * of one bit plane (`base` = its first word, `wordsPerRow` 32-bit words per image row, bit x&31 of
+ * word x>>5). Step 0 is row y, then y+1, y−1, y+2, … so a close match ends the search early;
+ * `half` holds the disk's half-widths (diskHalfWidths) and steps run to 2·r+1.
  * Hot loop: flat typed arrays, no allocation.
  */
 export function diskBitsAny(
   bits: Uint32Array, base: number, wordsPerRow: number, width: number, height: number,
-  x: number, y: number, half: Int32Array,
+  x: number, y: number, half: Int32Array, from: number, to: number,
 ): boolean {
-  const r = half.length - 1;
-  const rows = 2 * r + 1;
-  for (let step = 0; step < rows; step++) {
+  for (let step = from; step < to; step++) {
     const dy = step & 1 ? (step + 1) >> 1 : -(step >> 1);
     const yy = y + dy;
     if (yy < 0 || yy >= height) continue;
@@ -42,6 +45,23 @@ export function diskBitsAny(
     if (bits[wa] & lowMask) return true;
     for (let w = wa + 1; w < wb; w++) if (bits[w] !== 0) return true;
     if (bits[wb] & highMask) return true;
+  }
+  return false;
+}
+
+/**
+ * Returns false when the coarse plane (row c holds the OR of plane rows 8c..8c+7) has no bit in
+ * the square [x−r, x+r] × [y−r, y+r]: then the disk inside it has none either. Cheap rejection for
+ * pixels with no same-class boundary anywhere near.
+ */
+export function coarseSquareAny(
+  coarse: Uint32Array, base: number, wordsPerRow: number, width: number, height: number, x: number, y: number, r: number,
+): boolean {
+  const ya = (y - r < 0 ? 0 : y - r) >> COARSE_SHIFT, yb = (y + r >= height ? height - 1 : y + r) >> COARSE_SHIFT;
+  const wa = (x - r < 0 ? 0 : x - r) >> 5, wb = (x + r >= width ? width - 1 : x + r) >> 5;
+  for (let cy = ya; cy <= yb; cy++) {
+    const row = base + cy * wordsPerRow;
+    for (let w = wa; w <= wb; w++) if (coarse[row + w] !== 0) return true;
   }
   return false;
 }
