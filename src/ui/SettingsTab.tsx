@@ -1,0 +1,76 @@
+import { useState } from 'react';
+import { classTableFromText } from '../core/classTable.ts';
+import { boundaryFTolerance, boundaryIoUDilation } from '../core/metrics/settings.ts';
+import { useApp, useAppStore } from './storeContext.tsx';
+
+function NumberField({ label, value, step, min, max, onCommit, note }: { label: string; value: number; step: number; min: number; max: number; onCommit: (v: number) => string | null; note: string }) {
+  const [text, setText] = useState(String(value));
+  const [error, setError] = useState<string | null>(null);
+  const commit = () => {
+    const v = Number(text);
+    if (text.trim() === '' || !Number.isFinite(v) || v < min || v > max) return setError(`enter a number ${min}..${max}`);
+    setError(onCommit(v));
+  };
+  return (
+    <label className="setting">
+      <span>{label}</span>
+      <input type="number" value={text} step={step} min={min} max={max} onChange={(e) => setText(e.currentTarget.value)} onBlur={commit} onKeyDown={(e) => e.key === 'Enter' && commit()} />
+      <span className={error ? 'bad small' : 'dim small'}>{error ?? note}</span>
+    </label>
+  );
+}
+
+/** Score settings (METRICS.md) and the class table; any change rescores every frame in the workers. */
+export function SettingsTab() {
+  const store = useAppStore();
+  const settings = useApp((s) => s.settings);
+  const dataset = useApp((s) => s.dataset);
+  const w = useApp((s) => s.shown?.width ?? 0);
+  const h = useApp((s) => s.shown?.height ?? 0);
+  const [tableMsg, setTableMsg] = useState<string | null>(null);
+  const set = store.getState().settingsSet;
+  const size = w && h ? ` — ${boundaryIoUDilation(w, h, settings.biouDilationRatio)} px on this ${w}×${h} frame` : '';
+  const tol = w && h ? ` — ${boundaryFTolerance(w, h, settings.bfTolerance).toFixed(2)} px on this frame` : '';
+  return (
+    <div className="settings" key={`${settings.ignore}-${settings.biouDilationRatio}-${settings.bfTolerance}`}>
+      <NumberField
+        label="void id"
+        value={settings.ignore}
+        step={1}
+        min={0}
+        max={65535}
+        note="ground-truth pixels with this id are left out of every score"
+        onCommit={(v) => {
+          if (!Number.isInteger(v)) return 'the void id is a whole number';
+          const clash = dataset?.table?.classes.find((c) => c.id === v);
+          if (clash) return `id ${v} is the class "${clash.name}" in classes.json`;
+          set({ ignore: v });
+          return null;
+        }}
+      />
+      <NumberField label="Boundary IoU dilation ratio" value={settings.biouDilationRatio} step={0.005} min={0.0001} max={1} note={`of the image diagonal (0.02 is the published default)${size}`} onCommit={(v) => (set({ biouDilationRatio: v }), null)} />
+      <NumberField label="Boundary F tolerance" value={settings.bfTolerance} step={0.0025} min={0.0001} max={1} note={`of the image diagonal (0.0075 is the usual default)${tol}`} onCommit={(v) => (set({ bfTolerance: v }), null)} />
+      <label className="setting">
+        <span>class table</span>
+        <input
+          type="file"
+          accept=".json,application/json"
+          onChange={async (e) => {
+            const file = e.currentTarget.files?.[0];
+            const s = store.getState();
+            if (!file || !s.dataset) return;
+            const r = classTableFromText(await file.text(), file.name);
+            if (!r.ok) return setTableMsg(r.error);
+            setTableMsg(`using ${file.name}: ${r.value.classes.length} classes`);
+            s.settingsSet({ ignore: r.value.ignore });
+            s.datasetSet({ ...s.dataset, table: r.value, tableError: null });
+          }}
+        />
+        <span className={tableMsg && !tableMsg.startsWith('using') ? 'bad small' : 'dim small'}>
+          {tableMsg ?? (dataset?.table ? `${dataset.table.classes.length} classes from the dataset's classes.json` : 'no classes.json: ids are named by number')}
+        </span>
+      </label>
+      <p className="dim small">Every change cancels the scoring in progress and scores all frames again.</p>
+    </div>
+  );
+}
