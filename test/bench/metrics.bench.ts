@@ -43,6 +43,14 @@ function timed(name: string, fn: () => void): void {
 }
 const median = (v: number[]) => [...v].sort((a, b) => a - b)[v.length >> 1];
 
+/** A plain pass summing the ids: how fast this machine runs the simplest per-pixel loop right now. */
+function idsSum(ids: Uint8Array | Uint16Array): number {
+  let sum = 0;
+  for (let i = 0; i < ids.length; i++) sum = (sum + ids[i]) | 0;
+  return sum;
+}
+let sink = 0;
+
 const s = scoreScratchCreate();
 scoreScratchFit(s, W, H);
 const table = scoreScratchCodeTable(s, classIds, settings.ignore);
@@ -50,6 +58,7 @@ const dil = boundaryIoUDilation(W, H, settings.biouDilationRatio);
 const r2 = squaredDistanceLimit(boundaryFTolerance(W, H, settings.bfTolerance));
 for (let rep = 0; rep < REPS + 1; rep++) {
   for (const { truth, pred } of frames) {
+    timed('plain id-sum pass (speed)', () => { sink ^= idsSum(truth.ids); });
     // Stages in pipeline order, on the same buffers frameScore uses.
     const { truthCodes: tc, predCodes: pc, edges } = s;
     edges.nT = edges.nP = 0;
@@ -81,6 +90,7 @@ for (const k of Object.keys(wall)) {
   console.log(`  ${k.padEnd(26)} ${mw.toFixed(1).padStart(7)} ms wall  ${mc.toFixed(1).padStart(7)} ms cpu  ${((mw * 1e6) / N).toFixed(1).padStart(6)} ns/px`);
 }
 const tsTotal = median(wall['frameScore (all scores)']);
+console.log(`frameScore = ${(tsTotal / median(wall['plain id-sum pass (speed)'])).toFixed(0)}× one plain id-sum pass on this machine now (checksum ${sink & 1})`);
 
 if (!process.argv.includes('--no-python')) {
   const dir = mkdtempSync(join(tmpdir(), 'hairline-bench-'));
