@@ -77,8 +77,10 @@ export function frameScore(
   const { truthCodes: tc, predCodes: pc, edges } = s;
 
   // One capped distance transform serves the band (exact to 64) and, when θ fits, Boundary F precision.
+  // The shortcut needs every squared distance up to r2 exact, so the cap must reach ceil(√r2).
   const r2 = squaredDistanceLimit(boundaryFTolerance(width, height, settings.bfTolerance));
-  const r = Math.floor(Math.sqrt(r2));
+  let r = Math.floor(Math.sqrt(r2));
+  if (r * r < r2) r++;
   const limit = r <= DISTANCE_LIMIT_MAX ? Math.max(BAND_WIDTH_MAX, r) : BAND_WIDTH_MAX;
   const dil = boundaryIoUDilation(width, height, settings.biouDilationRatio);
   const biouInter = new Uint32Array(k);

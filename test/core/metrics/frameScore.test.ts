@@ -53,6 +53,24 @@ describe('frameScore against the plain per-class reference', () => {
     });
   }
 
+  it('a tolerance past the 64 px band cap (θ = 0.5 · diagonal ≈ 90 px) is still exact', () => {
+    const settings = { ...DEFAULT_SCORE_SETTINGS, bfTolerance: 0.5 };
+    for (let seed = 0; seed < 3; seed++) {
+      const { truth, pred } = randomPair(150, 100, 900 + seed, { classIds: [0, 1, 2], ignore: 255, invalidIds: [7], voids: true, shapes: 5 });
+      expectSame(truth, pred, [0, 1, 2], settings);
+    }
+    // A prediction edge ~187 px from the only truth edge, with θ ≈ 100.5 px: a miss, not a match.
+    const w = 200, h = 20;
+    const t: LabelMap = { width: w, height: h, ids: new Uint8Array(w * h) };
+    const p: LabelMap = { width: w, height: h, ids: new Uint8Array(w * h) };
+    for (let y = 0; y < h; y++) {
+      for (let x = 0; x < 3; x++) t.ids[y * w + x] = 1;
+      for (let x = 188; x < 193; x++) if (y > 5 && y < 12) p.ids[y * w + x] = 1;
+    }
+    const s = expectSame(t, p, [0, 1], settings);
+    expect(s.bfPredMatched[0]).toBeLessThan(s.bfPredTotal[0]);
+  });
+
   it('a one-label frame has an empty band: every pixel in bin 65', () => {
     const truth: LabelMap = { width: 23, height: 11, ids: new Uint8Array(23 * 11).fill(2) };
     const pred: LabelMap = { width: 23, height: 11, ids: new Uint8Array(23 * 11).fill(2) };
