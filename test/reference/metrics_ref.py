@@ -150,7 +150,8 @@ def iou_family(m):
 
 
 def frame_bf(bf):
-    """Frame Boundary F: mean over classes of F = 2PR/(P+R) (0 if one side is empty), None if no class."""
+    """Frame Boundary F: mean over classes of F = 2PR/(P+R), 0 if one side is empty or P = R = 0
+    (common practice: the limit of 2PR/(P+R)), classes with no boundary on either side skipped."""
     values = []
     for c in range(bf.shape[1]):
         pm, pt, gm, gt = (int(v) for v in bf[:, c])

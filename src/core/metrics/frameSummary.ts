@@ -16,8 +16,9 @@ export interface FrameSummary {
 
 /**
  * Returns the Boundary F-score (ratio 0..1) of class index `c` on one frame (Csurka et al., BMVC 2013):
- * F = 2PR/(P+R); 0 when one side has boundary pixels and the other none, or when P = R = 0; null
- * when neither side has any.
+ * F = 2PR/(P+R); 0 when one side has boundary pixels and the other none (METRICS.md), and 0 when
+ * both have some but none matches, P = R = 0 (common practice: the limit of 2PR/(P+R)); null when
+ * neither side has any.
  */
 export function boundaryFOfClass(stats: FrameStats, c: number): number | null {
   const pt = stats.bfPredTotal[c], gt = stats.bfTruthTotal[c];
