@@ -56,15 +56,14 @@ function instanceWindow(inst: Uint16Array, width: number, height: number, id: nu
 
 /** Returns `mask` (w×h) shifted by (sx, sy) and dilated by a (2r+1)² square; separable running counts. */
 export function maskShiftDilate(mask: Uint8Array, w: number, h: number, sx: number, sy: number, r: number): Uint8Array {
+  // rowPass is indexed by mask row: any mask pixel in that row within r of column x − sx
   const rowPass = new Uint8Array(w * h);
   for (let y = 0; y < h; y++) {
-    const ys = y - sy;
-    if (ys < 0 || ys >= h) continue;
     for (let x = 0; x < w; x++) {
       let on = 0;
       for (let k = -r; k <= r && !on; k++) {
         const xs = x - sx + k;
-        if (xs >= 0 && xs < w && mask[ys * w + xs]) on = 1;
+        if (xs >= 0 && xs < w && mask[y * w + xs]) on = 1;
       }
       rowPass[y * w + x] = on;
     }
@@ -74,8 +73,8 @@ export function maskShiftDilate(mask: Uint8Array, w: number, h: number, sx: numb
     for (let x = 0; x < w; x++) {
       let on = 0;
       for (let k = -r; k <= r && !on; k++) {
-        const yy = y + k;
-        if (yy >= 0 && yy < h && rowPass[yy * w + x]) on = 1;
+        const ys = y - sy + k;
+        if (ys >= 0 && ys < h && rowPass[ys * w + x]) on = 1;
       }
       out[y * w + x] = on;
     }

@@ -21,7 +21,7 @@ export function ghostsAdd(b: SceneBuilder): Record<GhostName, number> {
     });
   const puddleXZ = [2, 19, 5.5, 18.5, 6.4, 22, 4, 24.5, 1.6, 23];
   return {
-    person: blob(-9.9, 116, 0.5, 1.7, DEMO_CLASS.person),
+    person: blob(12, 58, 0.5, 1.7, DEMO_CLASS.person),
     yardTruck: b.add({
       cls: DEMO_CLASS.truck, ghostCls: DEMO_CLASS.truck, x: 21.9, y: 1.6, z: 44, r: 4,
       draw(d) {
