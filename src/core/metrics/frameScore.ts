@@ -37,6 +37,11 @@ export interface FrameStats {
   bfTruthTotal: Uint32Array;
 }
 
+/** Cells a frame's band histogram may have (4 bytes each): 256 MB, about 1000 classes. */
+const BAND_CELLS_MAX = 2 ** 26;
+/** The most classes whose band histogram fits BAND_CELLS_MAX. */
+const BAND_CLASSES_MAX = Math.floor((-1 + Math.sqrt(1 + (4 * BAND_CELLS_MAX) / BAND_BINS)) / 2);
+
 function frameInputCheck(truth: LabelMap, pred: LabelMap): Result<true> {
   const { width, height } = truth;
   if (!Number.isInteger(width) || !Number.isInteger(height) || width < 1 || height < 1) {
@@ -71,6 +76,10 @@ export function frameScore(
   if (!ids.ok) return ids;
   const { width, height } = truth;
   const k = classIds.length;
+  if (BAND_BINS * k * (k + 1) > BAND_CELLS_MAX) {
+    const mb = Math.round((BAND_BINS * k * (k + 1) * 4) / 2 ** 20);
+    return fail('', `${k} classes would need a ${mb} MB band histogram per frame; score at most ${BAND_CLASSES_MAX} classes`);
+  }
   const s = scratch;
   scoreScratchFit(s, width, height);
   const table = scoreScratchCodeTable(s, classIds, settings.ignore);

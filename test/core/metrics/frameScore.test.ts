@@ -117,6 +117,12 @@ describe('frameScore input errors', () => {
     expect(frameScore(map(2, 2), map(2, 2), [2, 1], DEFAULT_SCORE_SETTINGS).ok).toBe(false);
     expect(frameScore(map(2, 2), map(2, 2), [], DEFAULT_SCORE_SETTINGS).ok).toBe(false);
   });
+  it('refuses a class list whose band histogram would not fit in memory, saying how many classes fit', () => {
+    const ids = Array.from({ length: 1200 }, (_, i) => i);
+    const r = frameScore(map(2, 2), map(2, 2), ids, { ...DEFAULT_SCORE_SETTINGS, ignore: 65535 });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.error).toMatch(/1200 classes would need a \d+ MB band histogram per frame; score at most 1007 classes/);
+  });
   it('rejects unusable settings and id arrays of the wrong length', () => {
     expect(frameScore(map(2, 2), map(2, 2), [0], { ...DEFAULT_SCORE_SETTINGS, bfTolerance: NaN }).ok).toBe(false);
     const bad = { width: 2, height: 2, ids: new Uint8Array(3) };
