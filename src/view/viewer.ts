@@ -37,18 +37,11 @@ import { glStageCreate, type GlInfo } from './glStageCreate.ts';
 import type { GlStage } from './glStage.ts';
 import { overlayDraw } from './overlay.ts';
 import { viewInputAttach } from './viewInput.ts';
-import {
-  scaleMin,
-  viewClamped,
-  viewFitted,
-  viewPanned,
-  viewScreenToImage,
-  viewZoomedAt,
-  type ViewState,
-} from './viewTransform.ts';
+import { ViewControl, type PointerReadout } from './viewControl.ts';
+import type { ViewState } from './viewTransform.ts';
 
 export type ViewerMode = 'webgl' | 'none';
-export type PointerReadout = { x: number; y: number } | null;
+export type { PointerReadout } from './viewControl.ts';
 
 export interface ViewerOptions {
   /** Largest tile side in pixels; the GPU's MAX_TEXTURE_SIZE when not given or larger. */
@@ -105,19 +98,11 @@ class ViewerImpl implements Viewer {
   private gl: GlStage | null = null;
   private cpu: CpuStage | null = null;
   private frame: CompositeFrame | null = null;
-  private imgW = 0;
-  private imgH = 0;
   private palette: CompositePalette | null = null;
   private layers: LayerSettings = layerSettingsDefault();
-  private view: ViewState = { cx: 0, cy: 0, scale: 1 };
-  private vpW = 1;
-  private vpH = 1;
   private grid: boolean;
   private raf = 0;
-  private hoverAt: { sx: number; sy: number } | null = null;
-  private readout: PointerReadout = null;
-  private readonly pointerCbs = new Set<(p: PointerReadout) => void>();
-  private readonly viewCbs = new Set<(v: ViewState) => void>();
+  private readonly ctl = new ViewControl(() => this.invalidate());
   private readonly overCtx: CanvasRenderingContext2D;
   private readonly resizeObs: ResizeObserver;
   private readonly inputDetach: () => void;
@@ -126,7 +111,7 @@ class ViewerImpl implements Viewer {
     private readonly root: HTMLElement,
     base: HTMLCanvasElement,
     private readonly over: HTMLCanvasElement,
-    made: Result<{ stage: GlStage; info: GlInfo }> & { info?: GlInfo },
+    made: Result<{ stage: GlStage; info: GlInfo }>,
     grid: boolean,
   ) {
     this.grid = grid;
@@ -148,23 +133,16 @@ class ViewerImpl implements Viewer {
     this.resizeObs.observe(root);
     this.resize();
     this.inputDetach = viewInputAttach(root, {
-      hover: (at) => {
-        this.hoverAt = at;
-        this.readoutUpdate();
-      },
-      pan: (dx, dy) => this.viewChange(viewPanned(this.view, dx, dy)),
-      zoom: (f, sx, sy) => this.zoomAtDevice(f, sx, sy),
+      hover: (at) => this.ctl.hover(at),
+      pan: (dx, dy) => this.ctl.pan(dx, dy),
+      zoom: (f, sx, sy) => this.ctl.zoomAt(f, sx, sy),
     });
   }
 
   private resize(): void {
     const dpr = window.devicePixelRatio || 1;
-    const cssW = Math.max(1, this.root.clientWidth), cssH = Math.max(1, this.root.clientHeight);
-    const w = Math.round(cssW * dpr), h = Math.round(cssH * dpr);
-    if (w === this.vpW && h === this.vpH && this.gl?.renderer.resolution === dpr) return;
-    const first = this.vpW === 1 && this.vpH === 1;
-    this.vpW = w;
-    this.vpH = h;
+    const w = Math.round(Math.max(1, this.root.clientWidth) * dpr), h = Math.round(Math.max(1, this.root.clientHeight) * dpr);
+    if (w === this.ctl.vpW && h === this.ctl.vpH && (!this.gl || this.gl.renderer.resolution === dpr)) return;
     if (this.gl) {
       this.gl.renderer.resolution = dpr;
       this.gl.renderer.resize(w / dpr, h / dpr);
@@ -172,8 +150,7 @@ class ViewerImpl implements Viewer {
     this.cpu?.resize(w, h);
     this.over.width = w;
     this.over.height = h;
-    if (first && this.imgW > 0) this.view = viewFitted(this.imgW, this.imgH, w, h);
-    this.invalidate();
+    this.ctl.viewportSet(w, h);
   }
 
   frameSet(frame: CompositeFrame | null): Result<{ width: number; height: number; tiles: number }> {
@@ -181,15 +158,11 @@ class ViewerImpl implements Viewer {
       const size = compositeFrameCheck(frame);
       if (!size.ok) return size;
     }
-    const sameSize = frame !== null && frame.truth.width === this.imgW && frame.truth.height === this.imgH;
     this.frame = frame;
-    this.imgW = frame?.truth.width ?? 0;
-    this.imgH = frame?.truth.height ?? 0;
     const tiles = this.gl ? this.gl.frameSet(frame).length : frame ? 1 : 0;
-    if (frame && !sameSize) this.viewChange(viewFitted(this.imgW, this.imgH, this.vpW, this.vpH));
-    this.readoutUpdate();
+    this.ctl.imageSet(frame?.truth.width ?? 0, frame?.truth.height ?? 0);
     this.invalidate();
-    return ok({ width: this.imgW, height: this.imgH, tiles });
+    return ok({ width: this.ctl.imgW, height: this.ctl.imgH, tiles });
   }
 
   paletteSet(palette: CompositePalette): void {
@@ -204,49 +177,34 @@ class ViewerImpl implements Viewer {
 
   compositeSet(rgba: Uint8Array | null): Result<void> {
     if (!this.cpu) return fail('viewer', 'compositeSet is for mode "none"; in WebGL mode the viewer composes on the GPU');
-    if (rgba && rgba.length !== this.imgW * this.imgH * 4) {
-      return fail('viewer', `composite holds ${rgba.length} bytes; the ${this.imgW}×${this.imgH} frame needs ${this.imgW * this.imgH * 4}`);
+    const { imgW, imgH } = this.ctl;
+    if (rgba && rgba.length !== imgW * imgH * 4) {
+      return fail('viewer', `composite holds ${rgba.length} bytes; the ${imgW}×${imgH} frame needs ${imgW * imgH * 4}`);
     }
-    this.cpu.compositeSet(rgba, this.imgW, this.imgH);
+    this.cpu.compositeSet(rgba, imgW, imgH);
     this.invalidate();
     return ok(undefined);
   }
 
   viewFit(): void {
-    if (this.imgW > 0) this.viewChange(viewFitted(this.imgW, this.imgH, this.vpW, this.vpH));
+    this.ctl.fit();
   }
 
   viewOneToOne(): void {
-    this.viewChange({ ...this.view, scale: 1 });
+    this.ctl.set({ ...this.ctl.view, scale: 1 });
   }
 
   zoomBy(factor: number, cssX?: number, cssY?: number): void {
     const dpr = window.devicePixelRatio || 1;
-    this.zoomAtDevice(factor, cssX === undefined ? this.vpW / 2 : cssX * dpr, cssY === undefined ? this.vpH / 2 : cssY * dpr);
-  }
-
-  private zoomAtDevice(factor: number, sx: number, sy: number): void {
-    if (!(factor > 0) || this.imgW === 0) return;
-    const lo = scaleMin(this.imgW, this.imgH, this.vpW, this.vpH);
-    this.viewChange(viewZoomedAt(this.view, factor, sx, sy, this.vpW, this.vpH, lo));
+    this.ctl.zoomAt(factor, cssX === undefined ? this.ctl.vpW / 2 : cssX * dpr, cssY === undefined ? this.ctl.vpH / 2 : cssY * dpr);
   }
 
   viewGet(): ViewState {
-    return { ...this.view };
+    return { ...this.ctl.view };
   }
 
   viewSet(view: ViewState): void {
-    if (!(view.scale > 0) || !Number.isFinite(view.cx) || !Number.isFinite(view.cy)) return;
-    this.viewChange(view);
-  }
-
-  private viewChange(next: ViewState): void {
-    const lo = this.imgW > 0 ? scaleMin(this.imgW, this.imgH, this.vpW, this.vpH) : 0;
-    const v = viewClamped({ ...next, scale: Math.max(lo, Math.min(256, next.scale)) }, this.imgW, this.imgH);
-    this.view = v;
-    for (const cb of this.viewCbs) cb({ ...v });
-    this.readoutUpdate();
-    this.invalidate();
+    this.ctl.set(view);
   }
 
   gridSet(on: boolean): void {
@@ -255,44 +213,30 @@ class ViewerImpl implements Viewer {
   }
 
   onPointer(cb: (p: PointerReadout) => void): () => void {
-    this.pointerCbs.add(cb);
-    return () => this.pointerCbs.delete(cb);
+    return this.ctl.onPointer(cb);
   }
 
   onViewChange(cb: (v: ViewState) => void): () => void {
-    this.viewCbs.add(cb);
-    return () => this.viewCbs.delete(cb);
-  }
-
-  private readoutUpdate(): void {
-    let next: PointerReadout = null;
-    if (this.hoverAt && this.imgW > 0) {
-      const p = viewScreenToImage(this.view, this.hoverAt.sx, this.hoverAt.sy, this.vpW, this.vpH);
-      const x = Math.floor(p.x), y = Math.floor(p.y);
-      if (x >= 0 && y >= 0 && x < this.imgW && y < this.imgH) next = { x, y };
-    }
-    if (next?.x === this.readout?.x && next?.y === this.readout?.y) return;
-    this.readout = next;
-    for (const cb of this.pointerCbs) cb(next);
+    return this.ctl.onViewChange(cb);
   }
 
   pixelsRead(rect?: PixelBox): Result<Uint8Array> {
     if (!this.gl) return fail('viewer', 'no WebGL: read the frameComposite output instead');
     if (!this.frame) return fail('viewer', 'no frame to read back');
-    const r = rect ?? { x: 0, y: 0, width: this.imgW, height: this.imgH };
-    if (r.x < 0 || r.y < 0 || r.width < 1 || r.height < 1 || r.x + r.width > this.imgW || r.y + r.height > this.imgH) {
-      return fail('viewer', `rectangle ${r.x},${r.y} ${r.width}×${r.height} is not inside the ${this.imgW}×${this.imgH} frame`);
+    const { imgW, imgH } = this.ctl;
+    const r = rect ?? { x: 0, y: 0, width: imgW, height: imgH };
+    if (r.x < 0 || r.y < 0 || r.width < 1 || r.height < 1 || r.x + r.width > imgW || r.y + r.height > imgH) {
+      return fail('viewer', `rectangle ${r.x},${r.y} ${r.width}×${r.height} is not inside the ${imgW}×${imgH} frame`);
     }
     this.uniformsApply();
     return this.gl.pixelsRead(r);
   }
 
-  private uniformsApply(): boolean {
-    if (!this.gl || !this.frame) return false;
+  private uniformsApply(): void {
+    if (!this.gl || !this.frame) return;
     if (!this.palette) this.palette = compositePaletteFromTable(classTableGenerated(254), { ...MARK_COLORS });
     this.gl.paletteSet(this.palette);
     this.gl.paramsSet(compositeParams(this.frame, this.layers, this.palette));
-    return true;
   }
 
   private invalidate(): void {
@@ -302,19 +246,14 @@ class ViewerImpl implements Viewer {
   renderNow(): void {
     if (this.raf !== 0) cancelAnimationFrame(this.raf);
     this.raf = 0;
+    const { view, vpW, vpH, imgW, imgH } = this.ctl;
     if (this.gl) {
       this.uniformsApply();
-      this.gl.draw(this.view, this.vpW, this.vpH);
+      this.gl.draw(view, vpW, vpH);
     }
-    this.cpu?.draw(this.view, this.vpW, this.vpH);
+    this.cpu?.draw(view, vpW, vpH);
     const curtain = this.layers.curtain;
-    overlayDraw(this.overCtx, {
-      view: this.view,
-      imgW: this.imgW,
-      imgH: this.imgH,
-      grid: this.grid,
-      curtainX: curtain.on && this.imgW > 0 ? curtain.x : null,
-    });
+    overlayDraw(this.overCtx, { view, imgW, imgH, grid: this.grid, curtainX: curtain.on && imgW > 0 ? curtain.x : null });
   }
 
   destroy(): void {
@@ -324,8 +263,7 @@ class ViewerImpl implements Viewer {
     this.inputDetach();
     this.gl?.destroy();
     this.gl = null;
-    this.pointerCbs.clear();
-    this.viewCbs.clear();
+    this.ctl.clear();
     this.root.remove();
   }
 }

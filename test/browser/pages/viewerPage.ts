@@ -236,6 +236,7 @@ Object.assign(window, {
     readoutAt,
     everything: (spec: FrameSpec) => everything(Object.keys(build(spec).frame.preds), spec.width, spec.height),
     uploads: () => uploads,
+    viewer: () => viewer,
     viewGet: () => viewer!.viewGet(),
     cpuCheck,
     showSent,
