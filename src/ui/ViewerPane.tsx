@@ -22,7 +22,7 @@ function compositeFrameOf(f: DecodedFrame): CompositeFrame {
  * passed straight to it (it redraws at most once per animation frame). Without WebGL the same layers
  * are coloured by frameComposite in a view worker and shown as an image.
  */
-function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool): () => void {
+function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused: (message: string | null) => void): () => void {
   let composing = 0;
   const recompose = () => {
     if (viewer.mode !== 'none') return;
@@ -40,7 +40,11 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool): () => vo
     if (!prev || s.dataset !== prev.dataset || s.settings.ignore !== prev.settings.ignore) {
       if (s.dataset) viewer.paletteSet(compositePaletteFromTable(scoringTableOf(s.dataset, s.settings)));
     }
-    if (!prev || s.shown !== prev.shown) viewer.frameSet(s.shown ? compositeFrameOf(s.shown) : null);
+    if (!prev || s.shown !== prev.shown) {
+      // The viewer refuses frames it cannot show (over 8192 px on a side); say so instead of a blank.
+      const r = viewer.frameSet(s.shown ? compositeFrameOf(s.shown) : null);
+      onRefused(r.ok ? null : r.error);
+    }
     if (!prev || s.layers !== prev.layers) viewer.layersSet(s.layers);
     if (!prev || s.pixelGrid !== prev.pixelGrid) viewer.gridSet(s.pixelGrid);
     if (!prev || s.place !== prev.place) {
@@ -73,6 +77,7 @@ export function ViewerPane({ pool, onViewer }: { pool: WorkerPool; onViewer: (v:
   const host = useRef<HTMLDivElement>(null);
   const [viewer, setViewer] = useState<Viewer | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
+  const [refused, setRefused] = useState<string | null>(null);
   const shownError = useApp((s) => s.shownError);
   const notes = useApp((s) => s.shown?.notes ?? NO_NOTES);
   const loading = useApp((s) => s.dataset !== null && s.shownIndex !== s.frameIndex && s.shownError === null);
@@ -85,7 +90,7 @@ export function ViewerPane({ pool, onViewer }: { pool: WorkerPool; onViewer: (v:
       (v) => {
         if (cancelled) return v.destroy();
         made = v;
-        unbind = viewerBind(store, v, pool);
+        unbind = viewerBind(store, v, pool, setRefused);
         setViewer(v);
         onViewer(v);
         (window as unknown as { hairlineViewer?: Viewer }).hairlineViewer = v;
@@ -104,6 +109,7 @@ export function ViewerPane({ pool, onViewer }: { pool: WorkerPool; onViewer: (v:
     <div className="viewer-pane">
       <div className="viewer-host" ref={host} data-mode={viewer?.mode ?? 'starting'} />
       {failure && <div className="viewer-note bad">{failure}</div>}
+      {refused && <div className="viewer-note bad" role="alert">{refused}</div>}
       {shownError && <div className="viewer-note bad" role="alert">{shownError}</div>}
       {!shownError && notes.length > 0 && <div className="viewer-note">{notes.join(' · ')}</div>}
       {loading && <div className="viewer-loading">decoding…</div>}
