@@ -61,8 +61,9 @@ export function compositeParams(frame: CompositeFrame, layers: LayerSettings, pa
     if (boxCount === HIGHLIGHT_BOXES_MAX) break;
     const w = Math.round(b.width), h = Math.round(b.height);
     if (!(w >= 1 && h >= 1)) continue;
+    // Clamped far outside any frame so corner sums stay well inside 32-bit integers.
     const x0 = int(b.x, -1e6, 1e6), y0 = int(b.y, -1e6, 1e6);
-    boxes.set([x0, y0, x0 + w, y0 + h], boxCount++ * 4);
+    boxes.set([x0, y0, x0 + Math.min(w, 2e6), y0 + Math.min(h, 2e6)], boxCount++ * 4);
   }
   const available: Record<LayerKey, boolean> = {
     photo: frame.photo !== null,

@@ -26,7 +26,7 @@ export function frameComposite(
   const W = size.value.width, H = size.value.height;
   const rect = options.rect ?? { x: 0, y: 0, width: W, height: H };
   const rx = rect.x, ry = rect.y, rw = rect.width, rh = rect.height;
-  if (!(Number.isInteger(rx) && Number.isInteger(ry) && rw >= 1 && rh >= 1 && rx >= 0 && ry >= 0 && rx + rw <= W && ry + rh <= H)) {
+  if (!(Number.isInteger(rx) && Number.isInteger(ry) && Number.isInteger(rw) && Number.isInteger(rh) && rw >= 1 && rh >= 1 && rx >= 0 && ry >= 0 && rx + rw <= W && ry + rh <= H)) {
     return fail('frame', `rectangle ${rx},${ry} ${rw}×${rh} is not inside the ${W}×${H} frame`);
   }
   const out = options.out ?? new Uint8Array(rw * rh * 4);
