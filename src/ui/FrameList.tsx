@@ -11,7 +11,7 @@ const COLUMNS: { key: FrameScoreKey; label: string; title: string }[] = [
   { key: 'bandIoU', label: 'band', title: 'Mean IoU inside the boundary band at the chosen width (%)' },
   { key: 'boundaryIoU', label: 'BIoU', title: 'Boundary IoU (%)' },
   { key: 'boundaryF', label: 'BF', title: 'Boundary F-score (%)' },
-  { key: 'errorPixels', label: 'wrong px', title: 'Valid pixels where the prediction differs from the ground truth' },
+  { key: 'errorPixels', label: 'wrong', title: 'Valid pixels where the prediction differs from the ground truth' },
 ];
 
 function cell(row: FrameRow, key: FrameScoreKey): string {

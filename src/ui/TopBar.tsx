@@ -1,5 +1,7 @@
 import { useAppStore, useApp, useAppShallow } from './storeContext.tsx';
 import { OpenFolderButton } from './OpenFolder.tsx';
+import { demoSourceOpen } from '../data/sources/demoSource.ts';
+import { datasetFromSource, datasetInstall } from '../state/datasetLoad.ts';
 
 const NO_RUNS: string[] = [];
 
@@ -52,6 +54,18 @@ function RunPicker({ which }: { which: 'runA' | 'runB' }) {
   );
 }
 
+/** Goes back to the built-in demo from a folder the user opened. */
+function DemoButton() {
+  const store = useAppStore();
+  const isDemo = useApp((s) => s.dataset?.source.kind === 'demo');
+  if (isDemo) return null;
+  return (
+    <button title="Open the built-in Kestrel Quay demo" onClick={() => datasetInstall(store, datasetFromSource(demoSourceOpen()))}>
+      Demo
+    </button>
+  );
+}
+
 /** The bar across the top: dataset, runs, scoring progress, open and help. */
 export function TopBar() {
   const store = useAppStore();
@@ -68,6 +82,7 @@ export function TopBar() {
       <RunPicker which="runB" />
       <div className="spacer" />
       <ScoringProgress />
+      <DemoButton />
       <OpenFolderButton />
       <button onClick={() => store.getState().helpOpenSet(true)} title="Keys (?)">
         ?
