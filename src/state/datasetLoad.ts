@@ -20,6 +20,7 @@ export function datasetFromSource(source: DatasetSource): LoadedDataset {
 /** Puts a dataset in the store: frame 0, the void id of its table, fit view. Scoring restarts by itself. */
 export function datasetInstall(store: AppStore, dataset: LoadedDataset, frameIndex = 0): void {
   const s = store.getState();
+  if (s.dataset && s.dataset.source !== dataset.source) s.dataset.source.close?.();
   if (dataset.table) s.settingsSet({ ignore: dataset.table.ignore });
   const runs = dataset.pairing.runs;
   store.setState({ frameIndex: 0, place: null });

@@ -54,6 +54,10 @@ export function demoSourceOpen(options: DemoOptions = { ...DEMO_DEFAULTS }, work
     listing: { images: names.map(file), truth: names.map(file), predictions, confidence: {} },
     classesText: JSON.stringify(demoClassesJson()),
     generated: () => done,
+    close() {
+      pool.destroy();
+      frames.clear();
+    },
     async read(folder, path) {
       const index = indexOf.get(path.replace(/\.png$/, ''));
       if (index === undefined) throw new Error(`${folder}/${path}: not a demo file`);

@@ -10,6 +10,8 @@ export interface DatasetSource {
   classesText: string | null;
   /** Returns the bytes of `path` inside `folder` (`images`, `truth`, `predictions/<run>`, `confidence/<run>`). */
   read(folder: string, path: string): Promise<Blob>;
+  /** Frees what the source holds (workers, cached files) once another dataset replaces it. */
+  close?(): void;
 }
 
 /** Splits `a/b/c.png` under a dataset root into its top folder and the rest, for the layout of DESIGN.md. */
