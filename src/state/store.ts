@@ -1,12 +1,13 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { datasetSlice, type DatasetSlice } from './datasetSlice.ts';
+import { reviewSlice, type ReviewSlice } from './reviewSlice.ts';
 import { scoresSlice, type ScoresSlice } from './scoresSlice.ts';
 import { settingsSlice, type SettingsSlice } from './settingsSlice.ts';
 import { shownSlice, type ShownSlice } from './shownSlice.ts';
 import { viewSlice, type ViewSlice } from './viewSlice.ts';
 
-/** Everything the app holds: the dataset, score settings, per-frame scores and the view. */
-export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice & ShownSlice;
+/** Everything the app holds: the dataset, score settings, per-frame scores, the view and the review (flags). */
+export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice & ShownSlice & ReviewSlice;
 export type AppStore = StoreApi<AppState>;
 
 /** Returns a new app store combining every slice (usable without React: getState/subscribe). */
@@ -17,5 +18,6 @@ export function appStoreCreate(): AppStore {
     ...scoresSlice(...a),
     ...viewSlice(...a),
     ...shownSlice(...a),
+    ...reviewSlice(...a),
   }));
 }
