@@ -1,5 +1,6 @@
-import { frameSummary, type FrameSummary } from '../core/metrics/frameSummary.ts';
-import type { FrameJobResult } from '../core/frameJob.ts';
+import { digestSummary } from '../core/metrics/frameDigest.ts';
+import type { FrameSummary } from '../core/metrics/frameSummary.ts';
+import type { StoredFrame } from './scoresSlice.ts';
 import type { AppState } from './store.ts';
 import type { FrameScoreKey } from './viewSlice.ts';
 
@@ -13,16 +14,16 @@ export interface FrameRow {
   summary: FrameSummary | null;
 }
 
-const cache = new WeakMap<FrameJobResult, Map<string, FrameSummary | null>>();
+const cache = new WeakMap<StoredFrame, Map<string, FrameSummary | null>>();
 
 /** Returns the summary of `run` on a scored frame at band width `w`, memoised per result. */
-export function resultSummary(result: FrameJobResult, run: string, w: number): FrameSummary | null {
+export function resultSummary(result: StoredFrame, run: string, w: number): FrameSummary | null {
   let byKey = cache.get(result);
   if (!byKey) cache.set(result, (byKey = new Map()));
   const key = `${run}\u0000${w}`;
   if (byKey.has(key)) return byKey.get(key)!;
   const stats = result.runs.find((r) => r.run === run)?.stats ?? null;
-  const summary = stats ? frameSummary(stats, w) : null;
+  const summary = stats ? digestSummary(stats, w) : null;
   byKey.set(key, summary);
   return summary;
 }

@@ -1,5 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
-import type { FrameJobResult } from '../core/frameJob.ts';
+import type { FrameJobResult, FrameRunResult } from '../core/frameJob.ts';
+import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';
+import { frameDigestOf, type FrameDigest } from '../core/metrics/frameDigest.ts';
 import type { AppState } from './store.ts';
 
 /** Progress of the scoring pass over the current dataset and settings. */
@@ -15,44 +17,68 @@ export interface ScoringProgress {
   finishedAt: number | null;
 }
 
+/** One run's outcome on a frame as the store keeps it: the compact digest instead of the full stats. */
+export type StoredRun = Omit<FrameRunResult, 'stats'> & { stats: FrameDigest | null };
+/** A scored frame as the store keeps it. */
+export type StoredFrame = Omit<FrameJobResult, 'runs'> & { runs: StoredRun[] };
+
 export interface ScoresSlice {
   scoring: ScoringProgress;
   /** Per frame index: its result once scored. The array is replaced (not mutated) on every change. */
-  results: (FrameJobResult | undefined)[];
-  /** Bumped each time a result lands, so derived totals can be memoised on it. */
+  results: (StoredFrame | undefined)[];
+  /** Bumped each time a result lands, so derived values can be memoised on it. */
   resultsVersion: number;
-  scoringStart(generation: number, total: number): void;
+  /**
+   * Per run: dataset sums over the frames scored so far in this pass (each frame added once, on
+   * arrival). Mutated in place — large typed arrays are held by reference — with resultsVersion bumped.
+   */
+  totals: Record<string, DatasetTotals>;
+  /** Class ids totals are kept over, or null when there is no class table (ids join as they appear). */
+  totalsClassIds: number[] | null;
+  scoringStart(generation: number, total: number, classIds: number[] | null): void;
   scoringFrameDone(generation: number, index: number, result: FrameJobResult): void;
 }
 
-function failures(r: FrameJobResult): number {
+function failures(r: { error: string | null; runs: { error: string | null }[] }): number {
   if (r.error) return 1;
   return r.runs.filter((x) => x.error).length;
 }
 
-/** Returns the scores slice: per-frame results of the current pass and its progress. */
+/** Returns the scores slice: per-frame digests of the current pass, running dataset totals, progress. */
 export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, get) => ({
   scoring: { generation: 0, total: 0, done: 0, failed: 0, startedAt: 0, finishedAt: null },
   results: [],
   resultsVersion: 0,
-  scoringStart: (generation, total) =>
+  totals: {},
+  totalsClassIds: null,
+  scoringStart: (generation, total, classIds) =>
     set({
       scoring: { generation, total, done: 0, failed: 0, startedAt: Date.now(), finishedAt: total === 0 ? Date.now() : null },
       results: new Array(total),
       resultsVersion: get().resultsVersion + 1,
+      totals: {},
+      totalsClassIds: classIds,
     }),
   scoringFrameDone: (generation, index, result) => {
-    const { scoring, results } = get();
-    if (generation !== scoring.generation || index < 0 || index >= results.length) return;
+    const { scoring, results, totals, totalsClassIds } = get();
+    if (generation !== scoring.generation || index < 0 || index >= results.length || results[index]) return;
+    const nextTotals = { ...totals };
+    const runs: StoredRun[] = result.runs.map((r) => {
+      if (!r.stats || result.error || r.error) return { ...r, stats: null };
+      let t = nextTotals[r.run] ?? datasetTotalsCreate(totalsClassIds ?? []);
+      if (totalsClassIds === null) t = datasetTotalsWiden(t, r.stats.classIds);
+      datasetTotalsAdd(t, r.stats);
+      nextTotals[r.run] = t;
+      return { ...r, stats: frameDigestOf(r.stats) };
+    });
     const next = results.slice();
-    const had = next[index];
-    next[index] = result;
-    const done = scoring.done + (had ? 0 : 1);
-    const failed = scoring.failed - (had ? failures(had) : 0) + failures(result);
+    next[index] = { ...result, runs };
+    const done = scoring.done + 1;
     set({
       results: next,
       resultsVersion: get().resultsVersion + 1,
-      scoring: { ...scoring, done, failed, finishedAt: done === scoring.total ? Date.now() : null },
+      totals: nextTotals,
+      scoring: { ...scoring, done, failed: scoring.failed + failures(result), finishedAt: done === scoring.total ? Date.now() : null },
     });
   },
 });

@@ -52,9 +52,9 @@ export function scoringKeep(store: AppStore, pool: WorkerPool): () => void {
     generation++;
     const gen = generation;
     const frames = dataset?.pairing.frames ?? [];
-    store.getState().scoringStart(gen, frames.length);
-    if (!dataset || frames.length === 0) return;
-    const table = scoringTableOf(dataset, settings);
+    const table = dataset ? scoringTableOf(dataset, settings) : null;
+    store.getState().scoringStart(gen, frames.length, table && !table.generated ? table.classes.map((c) => c.id) : null);
+    if (!dataset || !table || frames.length === 0) return;
     const order = frames.map((_, i) => i);
     const first = Math.min(frameIndex, frames.length - 1);
     order.splice(first, 1);

@@ -1,24 +1,24 @@
-import { scoreReportOfFrames, type ReportFrameInput, type ScoreReport } from '../core/metrics/report.ts';
+import { datasetTotalsCreate } from '../core/metrics/datasetTotals.ts';
+import { reportFrameLine, scoreReport, type ScoreReport } from '../core/metrics/report.ts';
 import { scoringTableOf } from './scoringRun.ts';
 import type { AppState } from './store.ts';
 
 /**
  * Returns the report the headless scorer would write for `run` over the frames scored so far (the
- * same core report builder, frames in natural order), or null when there is no dataset.
+ * same core report builder over the same dataset sums, frames in natural order), or null when there
+ * is no dataset.
  */
 export function stateReport(s: AppState, run: string): ScoreReport | null {
   if (!s.dataset) return null;
   const table = scoringTableOf(s.dataset, s.settings);
-  const frames: ReportFrameInput[] = s.dataset.pairing.frames.map((f, i) => {
+  const lines = s.dataset.pairing.frames.map((f, i) => {
     const r = s.results[i];
-    if (!r) return { name: f.name, stats: null, error: 'not scored yet' };
+    if (!r) return reportFrameLine(f.name, null, 'not scored yet');
     const x = r.runs.find((y) => y.run === run);
     const error = r.error ?? x?.error ?? (x?.stats ? null : `no scores for run ${run}`);
-    return { name: f.name, stats: error ? null : x!.stats, error };
+    return reportFrameLine(f.name, error ? null : x!.stats, error);
   });
-  const ids = table.generated
-    ? [...new Set(frames.flatMap((f) => f.stats?.classIds ?? []))].sort((a, b) => a - b)
-    : table.classes.map((c) => c.id);
-  const classes = table.generated ? ids.map((id) => ({ id, name: String(id) })) : table.classes;
-  return scoreReportOfFrames(classes, ids, s.settings, frames);
+  const totals = s.totals[run] ?? datasetTotalsCreate(s.totalsClassIds ?? []);
+  const classes = table.generated ? totals.classIds.map((id) => ({ id, name: String(id) })) : table.classes;
+  return scoreReport(classes, s.settings, totals, lines);
 }

@@ -1,12 +1,12 @@
 import { useMemo, useState } from 'react';
 import type { ClassInfo } from '../core/classTable.ts';
-import type { FrameJobResult } from '../core/frameJob.ts';
+import type { StoredFrame } from '../state/scoresSlice.ts';
 import { count } from './format.ts';
 import type { ScopeScores } from './scoreboardData.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 
 /** Returns the frames with the most pixels of truth `g` predicted as column `p` (by id; -1 = invalid). */
-function framesWith(results: readonly (FrameJobResult | undefined)[], run: string, gId: number, pId: number, names: string[]): { index: number; name: string; pixels: number }[] {
+function framesWith(results: readonly (StoredFrame | undefined)[], run: string, gId: number, pId: number, names: string[]): { index: number; name: string; pixels: number }[] {
   const out: { index: number; name: string; pixels: number }[] = [];
   results.forEach((r, index) => {
     const s = r?.runs.find((x) => x.run === run)?.stats;

@@ -1,6 +1,6 @@
 import type { ClassInfo } from '../core/classTable.ts';
 import type { DatasetTotals } from '../core/metrics/datasetTotals.ts';
-import type { FrameStats } from '../core/metrics/frameScore.ts';
+import { digestBandScores, digestCurve, type FrameDigest } from '../core/metrics/frameDigest.ts';
 import { boundaryFOfClass } from '../core/metrics/frameSummary.ts';
 import { bandConfusions, iouFamily } from '../core/metrics/iouFamily.ts';
 
@@ -40,21 +40,19 @@ export interface ScopeScores {
 interface Counts {
   classIds: number[];
   confusion: ArrayLike<number>;
-  band: ArrayLike<number>;
   biouInter: ArrayLike<number>;
   biouUnion: ArrayLike<number>;
   bfOf(c: number): number | null;
+  /** Per-class IoU, mean IoU and pixel accuracy inside Band(w). */
+  bandAt(w: number): { iou: (number | null)[]; meanIoU: number | null; pixelAccuracy: number | null };
+  curve(): ScopeScores['curve'];
 }
 
 function scopeOf(c: Counts, classes: Map<number, ClassInfo>, w: number, frameMeanIoU: number | null, boundaryFMean: number | null): ScopeScores {
   const k = c.classIds.length;
   const all = iouFamily(c.confusion, k);
-  const curveConf = bandConfusions(c.band, k);
-  const curve = curveConf.map((m, width) => {
-    const f = iouFamily(m, k);
-    return { width, meanIoU: f.meanIoU, pixelAccuracy: f.pixelAccuracy };
-  });
-  const bandW = iouFamily(curveConf[Math.max(0, Math.min(64, w))], k);
+  const curve = c.curve();
+  const bandW = c.bandAt(w);
   let valid = 0;
   for (const p of all.perClass) valid += p.tp + p.fn;
   let biouSum = 0, biouN = 0;
@@ -70,7 +68,7 @@ function scopeOf(c: Counts, classes: Map<number, ClassInfo>, w: number, frameMea
       name: info?.name ?? String(id),
       color: info?.color ?? '#888888',
       iou: all.perClass[i].iou,
-      bandIoU: bandW.perClass[i].iou,
+      bandIoU: bandW.iou[i],
       boundaryIoU: biou,
       boundaryF: c.bfOf(i),
       share: valid > 0 ? (all.perClass[i].tp + all.perClass[i].fn) / valid : null,
@@ -95,8 +93,19 @@ function scopeOf(c: Counts, classes: Map<number, ClassInfo>, w: number, frameMea
 
 /** Returns the dataset's scores from its totals (METRICS.md: sums over frames; BF and frame mIoU per-frame means). */
 export function datasetScope(t: DatasetTotals, classes: Map<number, ClassInfo>, w: number): ScopeScores {
+  const k = t.classIds.length;
+  const confs = bandConfusions(t.band, k);
+  const fams = confs.map((m) => iouFamily(m, k));
   return scopeOf(
-    { ...t, bfOf: (c) => (t.bfClassCount[c] > 0 ? t.bfClassSum[c] / t.bfClassCount[c] : null) },
+    {
+      ...t,
+      bfOf: (c) => (t.bfClassCount[c] > 0 ? t.bfClassSum[c] / t.bfClassCount[c] : null),
+      bandAt: (width) => {
+        const f = fams[Math.max(0, Math.min(64, Math.round(width)))];
+        return { iou: f.perClass.map((p) => p.iou), meanIoU: f.meanIoU, pixelAccuracy: f.pixelAccuracy };
+      },
+      curve: () => fams.map((f, width) => ({ width, meanIoU: f.meanIoU, pixelAccuracy: f.pixelAccuracy })),
+    },
     classes,
     w,
     t.frameMeanIoUCount ? t.frameMeanIoUSum / t.frameMeanIoUCount : null,
@@ -105,7 +114,7 @@ export function datasetScope(t: DatasetTotals, classes: Map<number, ClassInfo>, 
 }
 
 /** Returns one frame's scores from its counts. */
-export function frameScope(s: FrameStats, classes: Map<number, ClassInfo>, w: number): ScopeScores {
+export function frameScope(s: FrameDigest, classes: Map<number, ClassInfo>, w: number): ScopeScores {
   let sum = 0, n = 0;
   for (let c = 0; c < s.classIds.length; c++) {
     const f = boundaryFOfClass(s, c);
@@ -114,5 +123,11 @@ export function frameScope(s: FrameStats, classes: Map<number, ClassInfo>, w: nu
       n++;
     }
   }
-  return scopeOf({ ...s, bfOf: (c) => boundaryFOfClass(s, c) }, classes, w, null, n ? sum / n : null);
+  return scopeOf(
+    { ...s, bfOf: (c) => boundaryFOfClass(s, c), bandAt: (width) => digestBandScores(s, width), curve: () => digestCurve(s) },
+    classes,
+    w,
+    null,
+    n ? sum / n : null,
+  );
 }

@@ -1,4 +1,7 @@
 import type { FrameStats } from './frameScore.ts';
+
+/** The per-frame counts every score but the band needs (a frame's stats, or its compact digest). */
+export type FrameCounts = Omit<FrameStats, 'band'>;
 import { bandConfusionAt, iouFamily } from './iouFamily.ts';
 
 /** The per-frame numbers lists and timelines show; null where METRICS.md leaves a score undefined. */
@@ -20,7 +23,7 @@ export interface FrameSummary {
  * both have some but none matches, P = R = 0 (common practice: the limit of 2PR/(P+R)); null when
  * neither side has any.
  */
-export function boundaryFOfClass(stats: FrameStats, c: number): number | null {
+export function boundaryFOfClass(stats: FrameCounts, c: number): number | null {
   const pt = stats.bfPredTotal[c], gt = stats.bfTruthTotal[c];
   if (pt === 0 && gt === 0) return null;
   const precision = pt ? stats.bfPredMatched[c] / pt : 0;
@@ -29,7 +32,7 @@ export function boundaryFOfClass(stats: FrameStats, c: number): number | null {
 }
 
 /** Returns the frame's Boundary IoU: mean over classes with a non-empty union (ratio 0..1), or null. */
-export function frameBoundaryIoU(stats: FrameStats): number | null {
+export function frameBoundaryIoU(stats: FrameCounts): number | null {
   let sum = 0, n = 0;
   for (let c = 0; c < stats.classIds.length; c++) {
     if (stats.biouUnion[c] === 0) continue;
@@ -40,7 +43,7 @@ export function frameBoundaryIoU(stats: FrameStats): number | null {
 }
 
 /** Returns the frame's Boundary F: mean over classes with a defined F (ratio 0..1), or null. */
-export function frameBoundaryF(stats: FrameStats): number | null {
+export function frameBoundaryF(stats: FrameCounts): number | null {
   let sum = 0, n = 0;
   for (let c = 0; c < stats.classIds.length; c++) {
     const f = boundaryFOfClass(stats, c);

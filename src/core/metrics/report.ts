@@ -1,5 +1,6 @@
 import { datasetTotalsAdd, datasetTotalsCreate, type DatasetTotals } from './datasetTotals.ts';
 import type { FrameStats } from './frameScore.ts';
+import type { FrameCounts } from './frameSummary.ts';
 import { frameBoundaryF, frameBoundaryIoU } from './frameSummary.ts';
 import { bandCurve, iouFamily } from './iouFamily.ts';
 import type { ScoreSettings } from './settings.ts';
@@ -33,7 +34,7 @@ export interface ReportFrameLine {
 }
 
 /** Returns a frame's report line from its counts, or a failed line carrying `error`. */
-export function reportFrameLine(name: string, stats: FrameStats | null, error: string | null = null): ReportFrameLine {
+export function reportFrameLine(name: string, stats: FrameCounts | null, error: string | null = null): ReportFrameLine {
   if (!stats || error !== null) {
     return { name, meanIoU: null, pixelAccuracy: null, boundaryIoU: null, boundaryF: null, error: error ?? 'not scored' };
   }
