@@ -36,7 +36,8 @@ export interface ScoresSlice {
   /** Class ids totals are kept over, or null when there is no class table (ids join as they appear). */
   totalsClassIds: number[] | null;
   scoringStart(generation: number, total: number, classIds: number[] | null): void;
-  scoringFrameDone(generation: number, index: number, result: FrameJobResult): void;
+  /** Takes finished frames of pass `generation` (frames of an older pass are dropped). */
+  scoringFramesDone(generation: number, done: { index: number; result: FrameJobResult }[]): void;
 }
 
 function failures(r: { error: string | null; runs: { error: string | null }[] }): number {
@@ -59,26 +60,32 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
       totals: {},
       totalsClassIds: classIds,
     }),
-  scoringFrameDone: (generation, index, result) => {
+  scoringFramesDone: (generation, batch) => {
     const { scoring, results, totals, totalsClassIds } = get();
-    if (generation !== scoring.generation || index < 0 || index >= results.length || results[index]) return;
-    const nextTotals = { ...totals };
-    const runs: StoredRun[] = result.runs.map((r) => {
-      if (!r.stats || result.error || r.error) return { ...r, stats: null };
-      let t = nextTotals[r.run] ?? datasetTotalsCreate(totalsClassIds ?? []);
-      if (totalsClassIds === null) t = datasetTotalsWiden(t, r.stats.classIds);
-      datasetTotalsAdd(t, r.stats);
-      nextTotals[r.run] = t;
-      return { ...r, stats: frameDigestOf(r.stats) };
-    });
+    if (generation !== scoring.generation) return;
     const next = results.slice();
-    next[index] = { ...result, runs };
-    const done = scoring.done + 1;
+    const nextTotals = { ...totals };
+    let done = scoring.done;
+    let failed = scoring.failed;
+    for (const { index, result } of batch) {
+      if (index < 0 || index >= next.length || next[index]) continue;
+      const runs: StoredRun[] = result.runs.map((r) => {
+        if (!r.stats || result.error || r.error) return { ...r, stats: null };
+        let t = nextTotals[r.run] ?? datasetTotalsCreate(totalsClassIds ?? []);
+        if (totalsClassIds === null) t = datasetTotalsWiden(t, r.stats.classIds);
+        datasetTotalsAdd(t, r.stats);
+        nextTotals[r.run] = t;
+        return { ...r, stats: frameDigestOf(r.stats) };
+      });
+      next[index] = { ...result, runs };
+      done++;
+      failed += failures(result);
+    }
     set({
       results: next,
       resultsVersion: get().resultsVersion + 1,
       totals: nextTotals,
-      scoring: { ...scoring, done, failed: scoring.failed + failures(result), finishedAt: done === scoring.total ? Date.now() : null },
+      scoring: { ...scoring, done, failed, finishedAt: done === scoring.total ? Date.now() : null },
     });
   },
 });

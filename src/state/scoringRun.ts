@@ -46,6 +46,26 @@ export function scoringKeep(store: AppStore, pool: WorkerPool): () => void {
   let lastDataset: LoadedDataset | null = null;
   let lastSettings: ScoreSettings | null = null;
 
+  // Finished frames reach the store in batches (at most every 60 ms): a long dataset then costs a
+  // few hundred store updates, not one per frame.
+  let pending: { index: number; result: FrameJobResult }[] = [];
+  let pendingGen = -1;
+  let flushTimer: ReturnType<typeof setTimeout> | null = null;
+  const flush = () => {
+    flushTimer = null;
+    const batch = pending;
+    pending = [];
+    if (batch.length && pendingGen === generation) store.getState().scoringFramesDone(pendingGen, batch);
+  };
+  const deliver = (gen: number, index: number, result: FrameJobResult) => {
+    if (gen !== pendingGen) {
+      pending = [];
+      pendingGen = gen;
+    }
+    pending.push({ index, result });
+    flushTimer ??= setTimeout(flush, 60);
+  };
+
   function restart(): void {
     const { dataset, settings, frameIndex } = store.getState();
     pool.cancelAll();
@@ -73,7 +93,7 @@ export function scoringKeep(store: AppStore, pool: WorkerPool): () => void {
         if (e instanceof JobCancelled || gen !== generation) return;
         result = failedResult(frame, dataset.pairing.runs, (e as Error).message.startsWith('truth/') ? (e as Error).message : `${frame.name}: ${(e as Error).message}`);
       }
-      if (gen === generation) store.getState().scoringFrameDone(gen, index, result);
+      if (gen === generation) deliver(gen, index, result);
     };
     const lane = async (): Promise<void> => {
       while (gen === generation && next < order.length) await runOne(order[next++]);
