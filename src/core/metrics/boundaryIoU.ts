@@ -47,7 +47,7 @@ function bandRunCount(t: number, p: number, k: number, tb: number, pb: number, n
  * current run of equal codes says whether [x−2·dil, x] is uniform, giving centre cx = x−dil the value
  * v = its code, or −1. Down each column, the window of (cx, y−dil) is uniform iff rows y−2·dil..y
  * share one v ≠ −1, i.e. the vertical run of equal v reaching row y began at or above y−2·dil.
- * O(1) per pixel for any dil. Band pixels are counted in runs of equal (truth, prediction, flags),
+ * O(1) per pixel for any dil ≥ 1. Band pixels are counted in runs of equal (truth, prediction, flags),
  * one update per run: an update per pixel on the same counter chains every increment behind the last.
  * Hot loop: flat typed arrays, no allocation per pixel.
  */
@@ -66,8 +66,7 @@ export function innerBandRow(
   let sT = 0;
   let sP = 0;
   let rt = -1, rp = -1, rtb = 0, rpb = 0, run = 0;
-  const head = dil < width ? dil : width;
-  for (let x = 1; x < head; x++) {
+  for (let x = 1; x < width; x++) {
     const a = truth[o + x];
     if (a !== runT) {
       runT = a;
@@ -78,18 +77,8 @@ export function innerBandRow(
       runP = b;
       sP = x;
     }
-  }
-  for (let x = head, cx = 0; x < width; x++, cx++) {
-    const a = truth[o + x];
-    if (a !== runT) {
-      runT = a;
-      sT = x;
-    }
-    const b = pred[o + x];
-    if (b !== runP) {
-      runP = b;
-      sP = x;
-    }
+    const cx = x - dil;
+    if (cx < 0) continue;
     const far = x - span;
     const vt = sT <= far ? runT : -1;
     const vp = sP <= far ? runP : -1;
