@@ -1,0 +1,122 @@
+import { classTableFind, type ClassTable } from '../classTable.ts';
+import type { CompositeFrame } from '../composite/compositeFrame.ts';
+import type { CompositePalette } from '../composite/compositePalette.ts';
+import { frameComposite } from '../composite/frameComposite.ts';
+import { layerSettingsDefault } from '../composite/layerSettings.ts';
+import { labelMapIdCounts, type LabelMap } from '../labelMap.ts';
+import type { DecodedLabelMap } from '../png/decodeLabel.ts';
+import { rgbaToPng } from '../png/encode.ts';
+import { fail, ok, type Result } from '../result.ts';
+import type { Flag, FlagBox } from '../review/flag.ts';
+import { labelMapCrop, rgbaCrop } from './crop.ts';
+import { labelCropToPng, labelEncodingName } from './labelCropPng.ts';
+import type { TileRow } from './tileRows.ts';
+import { zipNamePart, zipNamesUnique } from './zipNames.ts';
+
+/** One decoded frame as the export needs it: label maps with their source encodings, the photo as RGBA. */
+export interface ExportFrame {
+  width: number;
+  height: number;
+  truth: DecodedLabelMap;
+  /** Runs that have a usable prediction on this frame. */
+  preds: Record<string, DecodedLabelMap>;
+  /** RGBA bytes (width·height·4), or null. */
+  photo: Uint8Array | null;
+  /** Why a run's prediction or the photo is missing from the frame. */
+  notes: string[];
+}
+
+/** A file of a tile: its path inside the ZIP and its bytes. */
+export interface TileFile {
+  path: string;
+  bytes: Uint8Array;
+}
+
+/** What one tile render needs beyond the frame: the table, the overlay palette, the runs to write. */
+export interface TileContext {
+  table: ClassTable;
+  palette: CompositePalette;
+  runs: readonly string[];
+}
+
+/** Returns the count of valid pixels (truth not void) where the prediction differs. Hot loop: flat arrays. */
+function wrongPixels(truth: LabelMap, pred: LabelMap, ignore: number): number {
+  const t = truth.ids, p = pred.ids;
+  let n = 0;
+  for (let i = 0; i < t.length; i++) if (t[i] !== ignore && p[i] !== t[i]) n++;
+  return n;
+}
+
+/** Returns the overlay's run: the flag's run when the frame has it, else the first run the frame has. */
+function overlayRunOf(flag: Flag, frame: ExportFrame, runs: readonly string[]): string | null {
+  if (flag.run !== null && Object.hasOwn(frame.preds, flag.run)) return flag.run;
+  return runs.find((r) => Object.hasOwn(frame.preds, r)) ?? null;
+}
+
+/**
+ * Returns the files of one tile (photo, truth, each run's prediction, overlay) under `tiles/<tile>/` and
+ * its manifest row, or why the ground-truth crop could not be written (a missing run or photo is a note).
+ */
+export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, box: FlagBox, part: number, parts: number, tile: string, ctx: TileContext): Result<{ files: TileFile[]; row: TileRow }> {
+  const dir = `tiles/${tile}/`;
+  const files: TileFile[] = [];
+  const notes = [...frame.notes];
+  const truthCrop = labelMapCrop(frame.truth, box);
+  const truthPng = labelCropToPng(truthCrop, frame.truth.encoding, ctx.table);
+  if (!truthPng.ok) return fail('', `ground truth ${truthPng.error}`);
+  files.push({ path: `${dir}truth.png`, bytes: truthPng.value.png });
+  const truthCounts = new Map(labelMapIdCounts(truthCrop).map((c) => [c.id, c.count]));
+  const ids = new Set(truthCounts.keys());
+
+  const preds: TileRow['preds'] = [];
+  const unique = zipNamesUnique();
+  ['truth', 'photo', 'overlay'].forEach(unique);
+  for (const run of ctx.runs) {
+    const map = frame.preds[run];
+    if (!map) continue;
+    const crop = labelMapCrop(map, box);
+    const png = labelCropToPng(crop, map.encoding, ctx.table);
+    if (!png.ok) {
+      notes.push(`run "${run}": prediction ${png.error}`);
+      continue;
+    }
+    const file = `${dir}pred-${unique(zipNamePart(run, 40))}.png`;
+    files.push({ path: file, bytes: png.value.png });
+    for (const c of labelMapIdCounts(crop)) ids.add(c.id);
+    preds.push({ run, file, source: labelEncodingName(map.encoding), written: png.value.written, wrongPixels: wrongPixels(truthCrop, crop, ctx.table.ignore) });
+  }
+
+  let photo: string | null = null;
+  if (frame.photo) {
+    photo = `${dir}photo.png`;
+    files.push({ path: photo, bytes: rgbaToPng(truthCrop.width, truthCrop.height, rgbaCrop(frame.photo, frame.width, box)) });
+  } else notes.push('no photo for this frame');
+
+  const run = overlayRunOf(flag, frame, ctx.runs);
+  const layers = layerSettingsDefault();
+  layers.runA = run;
+  if (!frame.photo) layers.truth = { ...layers.truth, on: true, side: 'both' };
+  if (flag.bbox) layers.highlight = { ...layers.highlight, boxes: [{ x: flag.bbox[0], y: flag.bbox[1], width: flag.bbox[2] - flag.bbox[0], height: flag.bbox[3] - flag.bbox[1] }] };
+  const cf: CompositeFrame = { photo: frame.photo, truth: frame.truth, preds: frame.preds, bandBins: null };
+  const rect = { x: box[0], y: box[1], width: box[2] - box[0], height: box[3] - box[1] };
+  const rgba = frameComposite(cf, layers, ctx.palette, { rect });
+  let overlay: TileRow['overlay'] = null;
+  if (rgba.ok) {
+    overlay = { file: `${dir}overlay.png`, run };
+    files.push({ path: overlay.file, bytes: rgbaToPng(rect.width, rect.height, rgba.value) });
+  } else notes.push(`overlay not drawn: ${rgba.error}`);
+
+  const classes = [...ids].sort((a, b) => a - b).map((id) => ({
+    id,
+    name: id === ctx.table.ignore ? 'void' : (classTableFind(ctx.table, id)?.name ?? null),
+    truthPixels: truthCounts.get(id) ?? 0,
+  }));
+  const row: TileRow = {
+    tile, frame: frameName, frameWidth: frame.width, frameHeight: frame.height,
+    flagId: flag.id, flagKind: flag.kind, reason: flag.reason, note: flag.note, flagRun: flag.run, flagBox: flag.bbox,
+    box, part, parts, classes, region: flag.region ?? null, photo,
+    truth: { file: `${dir}truth.png`, source: labelEncodingName(frame.truth.encoding), written: truthPng.value.written },
+    preds, overlay, notes,
+  };
+  return ok({ files, row });
+}
