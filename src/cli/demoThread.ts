@@ -1,7 +1,7 @@
 // Worker thread of the demo writer: generates and writes single frames on request.
 import type { DemoOptions } from '../data/demo/options.ts';
 import { workerServe } from '../workers/serve.ts';
-import { demoFrameFilesWrite } from './demoWrite.ts';
+import { demoFrameFilesWrite } from './demoFrameFiles.ts';
 import { threadEndpoint } from './threadPort.ts';
 
 const endpoint = await threadEndpoint();

@@ -4,10 +4,8 @@
 import { mkdir, readdir, stat, unlink, writeFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
-import { constants, deflateSync } from 'node:zlib';
 import { fail, ok, type Result } from '../core/result.ts';
 import { demoClassesJson } from '../data/demo/classes.ts';
-import { demoFrame, type DemoZlib } from '../data/demo/frame.ts';
 import type { DemoMistake } from '../data/demo/mistakes.ts';
 import { demoFrameName, type DemoOptions } from '../data/demo/options.ts';
 import { DEMO_RUNS } from '../data/demo/runs.ts';
@@ -24,25 +22,6 @@ export interface DemoWriteSummary {
 
 const FOLDERS = ['images', 'truth', ...DEMO_RUNS.map((r) => join('predictions', r))];
 const FRAME_FILE = /^kq-\d{4}\.png$/;
-
-// Node's zlib: the same file format as the portable path, several times quicker. Photos carry sensor
-// noise, so string matching finds little: Huffman coding alone was 5× faster and no larger (measured).
-const zlibNode: DemoZlib = {
-  photo: (data) => new Uint8Array(deflateSync(data, { level: 1, strategy: constants.Z_HUFFMAN_ONLY })),
-  labels: (data) => new Uint8Array(deflateSync(data, { level: 1 })),
-};
-
-/** Generates frame `index` and writes its four PNGs under `dir`; returns its answer-key entries. */
-export async function demoFrameFilesWrite(dir: string, index: number, o: DemoOptions): Promise<DemoMistake[]> {
-  const f = demoFrame(index, o, zlibNode);
-  const file = `${f.name}.png`;
-  await Promise.all([
-    writeFile(join(dir, 'images', file), f.photoPng),
-    writeFile(join(dir, 'truth', file), f.truthPng),
-    ...DEMO_RUNS.map((r) => writeFile(join(dir, 'predictions', r, file), f.predPngs[r])),
-  ]);
-  return f.mistakes;
-}
 
 // A folder may be reused only if it is new, empty or an earlier demo; stale frames of a longer earlier
 // demo are removed so the folder pairs up exactly.
@@ -73,6 +52,9 @@ export async function demoDatasetWrite(dir: string, o: DemoOptions, threads = Ma
   const n = Math.max(1, Math.min(threads, o.frames));
   let perFrame: DemoMistake[][];
   if (n === 1) {
+    // loaded here only: with threads the generator runs in the workers, and the main thread skips
+    // compiling it before they can start
+    const { demoFrameFilesWrite } = await import('./demoFrameFiles.ts');
     perFrame = [];
     for (let i = 0; i < o.frames; i++) perFrame.push(await demoFrameFilesWrite(dir, i, o));
   } else {

@@ -1,5 +1,6 @@
 // One demo frame, generated alone from its index: photo, true scene, ground truth with the planned
 // label mistakes, and both runs' predictions; then the same as PNG file bytes.
+import { zlibSync } from 'fflate';
 import { labelMapToPng, type ZlibCompress } from '../../core/png/encode.ts';
 import type { LabelMap } from '../../core/labelMap.ts';
 import { demoCamera } from './camera.ts';
@@ -8,7 +9,7 @@ import { photoFinish } from './finish.ts';
 import { demoMistakePlan } from './mistakePlan.ts';
 import { mistakesApply, type DemoMistake } from './mistakes.ts';
 import { demoFrameName, type DemoOptions } from './options.ts';
-import { photoRgbToPng, zlibFast } from './photoPng.ts';
+import { photoRgbToPng } from './photoPng.ts';
 import { predictionLabels } from './predict.ts';
 import { sceneRender } from './render.ts';
 import { DEMO_RUNS, type DemoRunName } from './runs.ts';
@@ -39,6 +40,9 @@ export interface DemoFrame {
   predPngs: Record<DemoRunName, Uint8Array>;
   mistakes: DemoMistake[];
 }
+
+/** Label maps are long runs: fflate's fastest level is quick on them and runs anywhere. */
+const labelZlib: ZlibCompress = (data) => zlibSync(data, { level: 1 });
 
 /** Compressors for the frame's files: photos (noisy, little to match) and label maps (long runs). */
 export interface DemoZlib {
@@ -90,15 +94,15 @@ export function demoFrameMistakes(index: number, o: DemoOptions): DemoMistake[] 
 
 /**
  * Returns frame `index` as PNG bytes: RGB photo, 8-bit gray truth and run-a, 8-bit palette run-b
- * (so both label encodings are exercised). `zlib` may swap in faster compressors (Node's own) for
- * the photo and the label maps; the portable default runs anywhere.
+ * (so both label encodings are exercised). `zlib` may swap in other compressors (Node's own) for
+ * the photo and the label maps; the portable defaults run anywhere.
  */
 export function demoFrame(index: number, o: DemoOptions, zlib: DemoZlib = {}): DemoFrame {
   const r = demoFrameRaster(index, o);
-  const labels = zlib.labels ?? zlibFast;
+  const labels = zlib.labels ?? labelZlib;
   return {
     name: r.name,
-    photoPng: photoRgbToPng(r.width, r.height, r.photo, zlib.photo ?? zlibFast),
+    photoPng: photoRgbToPng(r.width, r.height, r.photo, zlib.photo),
     truthPng: labelMapToPng(r.truth, { kind: 'gray', bitDepth: 8 }, labels),
     predPngs: {
       'run-a': labelMapToPng(r.preds['run-a'], { kind: 'gray', bitDepth: 8 }, labels),

@@ -8,12 +8,15 @@ import {
   SHORE_FAR_Z, SHORE_LEFT_X, TRACK_RAIL_HALF, TRACK_RAIL_X,
 } from './layout.ts';
 import type { RasterTarget } from './raster.ts';
-import { deckTone as deckToneImported, shadeDeck as shadeDeckImported, shadeSky as shadeSkyImported } from './groundShade.ts';
+import {
+  deckIn as deckInImported, deckTone as deckToneImported, shadeDeck as shadeDeckImported, shadeSky as shadeSkyImported,
+} from './groundShade.ts';
 
 // Module-local copies: some loaders turn imported bindings into getters, far too slow per pixel.
 const shadeDeck = shadeDeckImported;
 const shadeSky = shadeSkyImported;
 const deckTone = deckToneImported;
+const deckIn = deckInImported;
 const VEGETATION = DEMO_CLASS.vegetation;
 const WATER = DEMO_CLASS.water;
 const RAIL = DEMO_CLASS.rail;
@@ -71,7 +74,22 @@ export function groundPass(t: RasterTarget, cam: DemoCamera): void {
     const dX = dxc * cam.cos;
     const dZ = -dxc * cam.sin;
     depth.fill(zc, row, row + width);
-    for (let x = 0; x < width; x++) label[row + x] = groundClassAt(X0 + dX * x, Z0 + dZ * x, dxc);
+    // groundClassAt, written out: a call per pixel with float arguments would box them (measured:
+    // ~20 MB of short-lived numbers per 1024×512 frame when the call is not inlined)
+    const half = dxc * 0.5;
+    const hc = CR_HALF > half ? CR_HALF : half;
+    const ht = TR_HALF > half ? TR_HALF : half;
+    for (let x = 0; x < width; x++) {
+      const X = X0 + dX * x;
+      const Z = Z0 + dZ * x;
+      let cls: number = QUAY;
+      if (X <= LEFT_X || Z >= FAR_Z) cls = VEGETATION;
+      else if (X < EDGE_X || Z > END_Z) cls = WATER;
+      else if (Z < R_END && Z > R_START) {
+        if (Math.abs(X - CR0) < hc || Math.abs(X - CR1) < hc || Math.abs(X - TR0) < ht || Math.abs(X - TR1) < ht) cls = RAIL;
+      }
+      label[row + x] = cls;
+    }
   }
 }
 
@@ -112,12 +130,19 @@ export function backgroundShade(t: RasterTarget, cam: DemoCamera, seed: number):
     const footZ = (zc * zc) / (f * cam.y);
     const haze = 1 - Math.exp(-zc / HAZE_DISTANCE);
     for (let k = 0, x = 0; x <= width + SKY_STEP; k++, x += SKY_STEP) tone[k] = deckTone(X0 + dX * x, Z0 + dZ * x, zc, seed);
+    deckIn[2] = zc;
+    deckIn[3] = dxc;
+    deckIn[4] = footZ;
+    deckIn[5] = haze;
     for (let x = 0; x < width; x++) {
       const i = row + x;
       if (inst[i] !== 0) continue;
       const k = (x / SKY_STEP) | 0;
-      const tn = tone[k] + (tone[k + 1] - tone[k]) * ((x - k * SKY_STEP) / SKY_STEP);
-      shadeDeck(rgb, i * 3, label[i], X0 + dX * x, Z0 + dZ * x, zc, dxc, footZ, haze, tn, seed);
+      deckIn[0] = X0 + dX * x;
+      deckIn[1] = Z0 + dZ * x;
+      deckIn[6] = tone[k] + (tone[k + 1] - tone[k]) * ((x - k * SKY_STEP) / SKY_STEP);
+      shadeDeck(rgb, i * 3, label[i], seed);
     }
   }
 }
+

@@ -25,7 +25,7 @@ const HAZE_G = 208;
 const HAZE_B = 216;
 
 /** Returns the share 0..1 of a `foot`-wide pixel at p covered by lines of `width` repeating every `period`. */
-export function lineCover(p: number, foot: number, period: number, width: number, offset = 0): number {
+export function lineCover(p: number, foot: number, period: number, width: number, offset: number): number {
   const q = p - offset;
   const c = period * Math.round(q / period);
   const d = q - c;
@@ -75,6 +75,12 @@ function wheelTrack(dx: number): number {
   return d < 0.6 ? 1 - 0.1 * (1 - d / 0.6) : 1;
 }
 
+/**
+ * Per-pixel inputs of shadeDeck: world X, Z (m), depth z (m), footprint X and Z (m), haze 0..1 and
+ * the deck tone. A typed array, because double arguments to a call that is not inlined are boxed.
+ */
+export const deckIn = new Float64Array(7);
+
 /** Returns the brightness factor of the concrete at world (X, Z), depth z m: stains, grain, wheel tracks. */
 export function deckTone(X: number, Z: number, z: number, seed: number): number {
   let k = 0.86 + 0.24 * noise2(X * 0.045, Z * 0.045, seed + 9);
@@ -84,14 +90,20 @@ export function deckTone(X: number, Z: number, z: number, seed: number): number 
 }
 
 /**
- * Writes the colour of ground class `cls` at world (X, Z), depth z m, footprint footX×footZ m, haze
- * 0..1; `tone` is deckTone there (smooth, so callers may interpolate it between samples).
+ * Writes the colour of ground class `cls` at the point described by deckIn into rgb[o..o+2]; the tone
+ * there is deckTone's (smooth, so callers may interpolate it between samples).
  */
-export function shadeDeck(
-  rgb: Float32Array, o: number, cls: number, X: number, Z: number, z: number, footX: number, footZ: number, haze: number,
-  tone: number, seed: number,
-): void {
-  let r: number, g: number, b: number;
+export function shadeDeck(rgb: Float32Array, o: number, cls: number, seed: number): void {
+  const X = deckIn[0];
+  const Z = deckIn[1];
+  const z = deckIn[2];
+  const footX = deckIn[3];
+  const footZ = deckIn[4];
+  const haze = deckIn[5];
+  const tone = deckIn[6];
+  let r = 0;
+  let g = 0;
+  let b = 0;
   if (cls === WATER) {
     r = 36;
     g = 70;
@@ -108,7 +120,7 @@ export function shadeDeck(
     b = 156 + 40 * n;
   } else {
     let k = tone;
-    if (z < 60) k *= 1 - 0.35 * (lineCover(X, footX, 6, 0.04) + lineCover(Z, footZ, 6, 0.04, 3)); // slab seams
+    if (z < 60) k *= 1 - 0.35 * (lineCover(X, footX, 6, 0.04, 0) + lineCover(Z, footZ, 6, 0.04, 3)); // slab seams
     if (Math.abs(X - RAIL_A) < 0.32 || Math.abs(X - RAIL_B) < 0.32) k *= 0.55; // rail channel
     r = 152 * k;
     g = 147 * k;
@@ -118,14 +130,14 @@ export function shadeDeck(
     let yel = 0;
     let wht = 0;
     let edge = 0;
-    if (Math.abs(X + 3.8) < reach) yel += lineCover(X, footX, 1e9, 0.15, -3.8) * lineCover(Z, footZ, 6, 3);
-    if (Math.abs(X - 3.4) < reach) yel += lineCover(X, footX, 1e9, 0.15, 3.4) * lineCover(Z, footZ, 6, 3);
+    if (Math.abs(X + 3.8) < reach) yel += spanCover(X, footX, -3.875, -3.725) * lineCover(Z, footZ, 6, 3, 0);
+    if (Math.abs(X - 3.4) < reach) yel += spanCover(X, footX, 3.325, 3.475) * lineCover(Z, footZ, 6, 3, 0);
     if (X < EDGE_X + 0.6 + footX) {
       yel += spanCover(X, footX, EDGE_X + 0.25, EDGE_X + 0.55);
       edge = spanCover(X, footX, EDGE_X, EDGE_X + 0.25);
     }
-    if (Math.abs(X - 9.6) < reach) wht += lineCover(X, footX, 1e9, 0.15, 9.6);
-    if (Z > 25 && Z < 31 && X > -5 && X < 10) wht += lineCover(X, footX, 1, 0.5) * spanCover(Z, footZ, 26, 30) * spanCover(X, footX, -4, 9);
+    if (Math.abs(X - 9.6) < reach) wht += spanCover(X, footX, 9.525, 9.675);
+    if (Z > 25 && Z < 31 && X > -5 && X < 10) wht += lineCover(X, footX, 1, 0.5, 0) * spanCover(Z, footZ, 26, 30) * spanCover(X, footX, -4, 9);
     if (yel > 0 || wht > 0 || edge > 0) {
       yel = Math.min(1, yel) * (0.8 + 0.2 * k);
       wht = Math.min(1, wht) * (0.8 + 0.2 * k);

@@ -1,11 +1,12 @@
 // Scanline rasteriser shared by the photo and the label maps, so a photo edge and a label edge are
 // the same pixels. Hot loops: flat typed arrays, module-level scratch state, no allocation or
 // closures per pixel or per span. A pixel belongs to a primitive when its centre is inside it.
-import { shadeFace as shadeFaceImported, shadeMember as shadeMemberImported } from './shade.ts';
+import { shadeFace as shadeFaceImported, shadeIn as shadeInImported, shadeMember as shadeMemberImported } from './shade.ts';
 
 // Module-local copies: some loaders turn imported bindings into getters, far too slow per pixel.
 const shadeFace = shadeFaceImported;
 const shadeMember = shadeMemberImported;
+const shadeIn = shadeInImported;
 
 /** Buffers one render writes: class ids, instance ids, camera depth (m) and, for photos, linear RGB. */
 export interface RasterTarget {
@@ -128,7 +129,12 @@ function spanFace(t: RasterTarget, y: number, xa: number, xb: number): void {
     depth[i] = z;
     label[i] = cls;
     ids[i] = inst;
-    if (rgb !== null) shadeFace(rgb, i * 3, z * (u0 + u1 * x) - s.ou, z * (v0 + v1 * x) - s.ov, z);
+    if (rgb !== null) {
+      shadeIn[0] = z * (u0 + u1 * x) - s.ou;
+      shadeIn[1] = z * (v0 + v1 * x) - s.ov;
+      shadeIn[2] = z;
+      shadeFace(rgb, i * 3);
+    }
   }
 }
 
@@ -155,7 +161,10 @@ function spanMember(t: RasterTarget, y: number, xa: number, xb: number): void {
     ids[i] = inst;
     if (rgb !== null) {
       const across = ((px * ey - py * ex) * il) / (m.ha + (m.hb - m.ha) * lam);
-      shadeMember(rgb, i * 3, lam * m.len, across, z);
+      shadeIn[0] = lam * m.len;
+      shadeIn[1] = across;
+      shadeIn[2] = z;
+      shadeMember(rgb, i * 3);
     }
   }
 }

@@ -19,6 +19,13 @@ export const MATERIAL = {
   hivis: 8,
 } as const;
 
+/**
+ * Per-pixel inputs of shadeFace (s, t, z) and shadeMember (along, across, z). Passed through a typed
+ * array because double arguments to a call that is not inlined are boxed: one allocation each, per
+ * pixel, and the young-generation collections that follow.
+ */
+export const shadeIn = new Float64Array(3);
+
 /** The material being drawn: kind, base colour (0..255), face size (m), sun factor, noise seed. */
 export const shadeState = { kind: 0, r: 128, g: 128, b: 128, len: 1, hgt: 1, light: 1, seed: 0, logo: 0 };
 
@@ -32,15 +39,11 @@ function frac(x: number): number {
   return x - Math.floor(x);
 }
 
-function put(rgb: Float32Array, o: number, r: number, g: number, b: number, z: number): void {
-  const h = 1 - Math.exp(-z / HAZE_DISTANCE);
-  rgb[o] = r + (HAZE_R - r) * h;
-  rgb[o + 1] = g + (HAZE_G - g) * h;
-  rgb[o + 2] = b + (HAZE_B - b) * h;
-}
-
-/** Writes the colour of the current face at surface point (s, t) m and depth z m into rgb[o..o+2]. */
-export function shadeFace(rgb: Float32Array, o: number, s: number, t: number, z: number): void {
+/** Writes the colour of the current face at surface point (s, t) m and depth z m (shadeIn) into rgb[o..o+2]. */
+export function shadeFace(rgb: Float32Array, o: number): void {
+  const s = shadeIn[0];
+  const t = shadeIn[1];
+  const z = shadeIn[2];
   const m = shadeState;
   let k = m.light;
   let r = m.r;
@@ -121,14 +124,23 @@ export function shadeFace(rgb: Float32Array, o: number, s: number, t: number, z:
     default:
       k *= 0.93 + 0.14 * noise2(s * 1.7, t * 1.7, m.seed);
   }
-  put(rgb, o, r * k, g * k, b * k, z);
+  const h = 1 - Math.exp(-z / HAZE_DISTANCE);
+  rgb[o] = r * k + (HAZE_R - r * k) * h;
+  rgb[o + 1] = g * k + (HAZE_G - g * k) * h;
+  rgb[o + 2] = b * k + (HAZE_B - b * k) * h;
 }
 
-/** Writes the colour of the current round member at `along` m, `across` −1..1 and depth z m. */
-export function shadeMember(rgb: Float32Array, o: number, along: number, across: number, z: number): void {
+/** Writes the colour of the current round member at `along` m, `across` −1..1 and depth z m (shadeIn). */
+export function shadeMember(rgb: Float32Array, o: number): void {
+  const along = shadeIn[0];
+  const across = shadeIn[1];
+  const z = shadeIn[2];
   const m = shadeState;
   const a = across < -1 ? -1 : across > 1 ? 1 : across;
   // A lit cylinder: bright towards the sun side, dark rim on the other.
   const k = m.light * (0.6 + 0.32 * Math.sqrt(1 - a * a) - 0.16 * a) * (0.95 + 0.1 * noise2(along * 0.7, 0.3, m.seed));
-  put(rgb, o, m.r * k, m.g * k, m.b * k, z);
+  const h = 1 - Math.exp(-z / HAZE_DISTANCE);
+  rgb[o] = m.r * k + (HAZE_R - m.r * k) * h;
+  rgb[o + 1] = m.g * k + (HAZE_G - m.g * k) * h;
+  rgb[o + 2] = m.b * k + (HAZE_B - m.b * k) * h;
 }

@@ -41,7 +41,9 @@ export function waterPass(t: RasterTarget, cam: DemoCamera, seed: number): void 
       let mx = Math.round(x + (ripple - 0.5) * amp * 2.2);
       mx = mx < 0 ? 0 : mx >= width ? width - 1 : mx;
       const my = Math.round(2 * cy - y - 0.5 + (n2 - 0.5) * amp);
-      let r: number, g: number, b: number;
+      let r = 0;
+      let g = 0;
+      let b = 0;
       if (my < 0) {
         r = 88;
         g = 138;
