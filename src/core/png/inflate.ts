@@ -6,17 +6,17 @@ import { adler32 } from './adler32.ts';
 /** Most bytes one byte of deflate data can inflate to: a 258-byte copy coded in 2 bits (RFC 1951 §3.2.5). */
 const DEFLATE_RATIO_MAX = 1032;
 /** Output past the image's end still inflated to reach the stream's end and check its checksum; more is cut off. */
-const EXCESS_MAX = 1 << 20;
+const EXCESS_MAX = 1 << 16;
 
 /**
- * Returns how many compressed bytes to hand the inflater at a time: 1/64 of the image's bytes, 1 to
- * 16 KB. Each step inflates to at most 1032 × its size, so a stream that holds far more than the
+ * Returns how many compressed bytes to hand the inflater at a time: 1/64 of the image's bytes, 256 B
+ * to 16 KB. Each step inflates to at most 1032 × its size, so a stream that holds far more than the
  * header promises (a deflate bomb) costs at most EXCESS_MAX + 17 MB of work and buffer past the image's
  * end. Small images get small steps since their first inflate runs before the JIT has warmed up
  * (measured: 8 MB of bomb output in one step took 400 ms cold, 30 ms warm).
  */
 function inflateStep(expected: number): number {
-  return Math.min(16384, Math.max(1024, expected >> 6));
+  return Math.min(16384, Math.max(256, expected >> 6));
 }
 
 /**

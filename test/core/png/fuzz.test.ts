@@ -2,18 +2,22 @@
 // give a per-frame error naming its file, or exactly the image an independent reader (pngReference.ts,
 // on node:zlib) sees in it; never a throw, a hang or a memory blow-up. The time and memory bounds are
 // hang and bomb guards, far above normal costs, not speed checks (those live in test/bench/).
+import { deflateSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { classTableColorIndex } from '../../../src/core/classTable.ts';
-import { frameJobScore, type FrameJobResult } from '../../../src/core/frameJob.ts';
+import { frameJobScore, scoringTable, type FrameJobResult } from '../../../src/core/frameJob.ts';
 import { DEFAULT_SCORE_SETTINGS } from '../../../src/core/metrics/settings.ts';
 import { labelMapFromPng, type DecodedLabelMap } from '../../../src/core/png/decodeLabel.ts';
 import { photoFromPng } from '../../../src/core/png/decodePhoto.ts';
+import { labelMapToPng } from '../../../src/core/png/encode.ts';
 import { type Result } from '../../../src/core/result.ts';
-import { fuzzBases, type FuzzBase } from './fuzzBases.ts';
+import { FUZZ_RGB_TABLE, fuzzBases, type FuzzBase } from './fuzzBases.ts';
+import { testDeflateBomb } from './pngChunks.ts';
 import { mutantMake, type Mutant } from './pngMutate.ts';
 import { referenceDecode } from './pngReference.ts';
-import { seededRandom } from './seeded.ts';
 import { callTimed, errorClass, memoryWatch } from './fuzzWatch.ts';
+import { testChunk, testIhdr, testPngFromChunks } from './pngTestWriter.ts';
+import { seededRandom } from './seeded.ts';
 
 const SEED = 15948;
 const MUTANTS = 1500;
@@ -154,3 +158,85 @@ function jobMismatch(res: FrameJobResult, r: Result<DecodedLabelMap>, role: 'tru
   for (let p = 0; p < truthIds.length; p++) if (truthIds[p] !== DEFAULT_SCORE_SETTINGS.ignore) nonVoid++;
   return counted === nonVoid ? '' : `confusion counts ${counted} pixels, the truth has ${nonVoid} non-void`;
 }
+
+describe('decompression bombs, absurd headers and forbidden formats', () => {
+  const idat = (z: Uint8Array) => testChunk('IDAT', z);
+  const iend = testChunk('IEND', new Uint8Array(0));
+  const png = (w: number, h: number, depth: number, type: number, z: Uint8Array, interlace = 0, plte?: Uint8Array) =>
+    testPngFromChunks([testChunk('IHDR', testIhdr(w, h, depth, type, interlace)), ...(plte ? [testChunk('PLTE', plte)] : []), idat(z), iend]);
+  const tiny = new Uint8Array(deflateSync(Buffer.alloc(100)));
+
+  /** Runs one decode under the hang and memory guards; returns its result. */
+  function guarded<T>(f: () => T, rssMax = 64 * 2 ** 20): T {
+    const memory = memoryWatch();
+    const { value, ms, thrown } = callTimed(f);
+    memory.sample();
+    if (value === undefined) throw new Error(`threw: ${thrown}`);
+    expect(ms).toBeLessThan(CALL_MS_MAX);
+    expect(memory.growth()).toBeLessThan(rssMax);
+    return value;
+  }
+
+  it('huge declared sizes with tiny data are refused from IHDR or from the data size, before allocating', () => {
+    const cases: [number, number, number, number, RegExp][] = [
+      [60000, 60000, 8, 0, /60,000×60,000 pixels \(3,600 megapixels\), above the limit of 100 megapixels/],
+      [10001, 10000, 8, 0, /10,001×10,000 pixels \(100,010,000 pixels\), above the limit of 100,000,000 pixels/],
+      [0x7fffffff, 1, 1, 0, /above the limit of 100 megapixels/],
+      // Exactly at the limit: the 100 MB (8-bit) and 200 MB (16-bit) buffers are never allocated.
+      [10000, 10000, 8, 0, /its 12 bytes of compressed image data cannot hold the 100,010,000 bytes the image needs/],
+      [10000, 10000, 16, 0, /its 12 bytes of compressed image data cannot hold the 200,010,000 bytes the image needs/],
+    ];
+    for (const [w, h, depth, type, message] of cases) {
+      const bytes = png(w, h, depth, type, tiny);
+      const label = guarded(() => labelMapFromPng(bytes, { file: 'truth/big.png' }));
+      const photo = guarded(() => photoFromPng(bytes, { file: 'truth/big.png' }));
+      expect(label.ok ? '' : label.error).toMatch(message);
+      expect(photo.ok ? '' : photo.error).toMatch(message);
+    }
+    // A photo may be 16-bit RGBA: 800 MB for the samples alone.
+    const rgba16 = guarded(() => photoFromPng(png(10000, 10000, 16, 6, tiny), { file: 'images/big.png' }));
+    expect(rgba16.ok ? '' : rgba16.error).toMatch(/cannot hold the 800,010,000 bytes the image needs/);
+  });
+
+  it('a 1 MB stream inflating to 1 GiB under a 100×100 header is cut off after the image: decoded, no blow-up', () => {
+    // Inflated whole, even into a buffer that drops what does not fit, this takes far longer than the
+    // guard (measured here: 400 MiB in 3.5–4.7 s, 4 GiB in over 8 minutes).
+    const bytes = png(100, 100, 8, 0, testDeflateBomb(1024));
+    expect(bytes.length).toBeLessThan(1.1e6);
+    const r = guarded(() => labelMapFromPng(bytes, { file: 'truth/bomb.png' }));
+    if (!r.ok) throw new Error(r.error);
+    // The header declares 100×100 and the stream's first 10,100 bytes are zeros: filter 0, id 0 everywhere.
+    expect([r.value.width, r.value.height, r.value.ids.every((v) => v === 0)]).toEqual([100, 100, true]);
+    const valid = labelMapToPng({ width: 100, height: 100, ids: new Uint8Array(10000) }, { kind: 'gray', bitDepth: 8 });
+    for (const [truth, pred] of [[bytes, valid], [valid, bytes]]) {
+      const res = guarded(() =>
+        frameJobScore({ name: 'bomb', truth: { file: 'truth/bomb.png', bytes: truth }, preds: [{ run: 'r', file: { file: 'predictions/r/bomb.png', bytes: pred } }], table: scoringTable(null, 255), settings: DEFAULT_SCORE_SETTINGS }),
+      );
+      expect(res.runs[0].stats?.confusion.reduce((a, b) => a + b, 0)).toBe(10000);
+    }
+  });
+
+  it('bombs under palette Adam7, 16-bit and a 3000×3000 header: cut off at the declared size', () => {
+    const bomb = testDeflateBomb(400);
+    const plte = new Uint8Array(48).map((_, i) => i * 5);
+    for (const [w, h, depth, type, interlace] of [[64, 64, 4, 3, 1], [50, 30, 16, 0, 0], [3000, 3000, 8, 0, 0]]) {
+      const r = guarded(() => labelMapFromPng(png(w, h, depth, type, bomb, interlace, type === 3 ? plte : undefined), { file: 'truth/bomb.png' }), 128 * 2 ** 20);
+      if (!r.ok) throw new Error(r.error);
+      expect([r.value.width, r.value.height, r.value.ids.every((v) => v === 0)]).toEqual([w, h, true]);
+    }
+  });
+
+  it('every colour type × bit depth pair: the forbidden ones are refused from IHDR (ISO/IEC 15948 §11.2.2 table)', () => {
+    const allowed: Record<number, number[]> = { 0: [1, 2, 4, 8, 16], 2: [8, 16], 3: [1, 2, 4, 8], 4: [8, 16], 6: [8, 16] };
+    const z = new Uint8Array(deflateSync(Buffer.alloc(4 * 65)));
+    for (let type = 0; type <= 8; type++) {
+      for (const depth of [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 12, 15, 16, 17, 32, 255]) {
+        const r = guarded(() => labelMapFromPng(png(8, 4, depth, type, z, 0, type === 3 ? new Uint8Array(6) : undefined), { file: 'f.png', table: FUZZ_RGB_TABLE }));
+        const error = r.ok ? '' : r.error;
+        if (!allowed[type]) expect(error).toBe(`f.png: is damaged: colour type ${type} does not exist in PNG`);
+        else if (!allowed[type].includes(depth)) expect(error).toMatch(new RegExp(`^f\\.png: is damaged: bit depth ${depth} is not allowed for .* PNGs \\(allowed: ${allowed[type].join(', ')}\\)$`));
+        else expect(error).not.toMatch(/bit depth|colour type/);
+      }
+    }
+  });
+});

@@ -1,6 +1,6 @@
 // Chunk-level access to PNG files for the fuzz tests, written from ISO/IEC 15948 §5.3 on node:zlib;
 // it shares no code with src/core/png, so a bug there cannot hide the same bug here.
-import { crc32, deflateRawSync, constants, inflateSync } from 'node:zlib';
+import { crc32, inflateSync } from 'node:zlib';
 import { testChunk, testPngFromChunks } from './pngTestWriter.ts';
 
 /** One chunk of a PNG: its four-byte type (latin1) and data. */
@@ -59,17 +59,61 @@ function adler32OfZeros(count: number): number {
   return (((count % 65521) << 16) | 1) >>> 0;
 }
 
+/** A bit writer for deflate (RFC 1951 §3.1.1): values LSB first, Huffman codes most significant bit first. */
+function bitWriter() {
+  const bytes: number[] = [];
+  let bit = 0;
+  const put = (b: number) => {
+    if (bit === 0) bytes.push(0);
+    bytes[bytes.length - 1] |= b << bit;
+    bit = (bit + 1) & 7;
+  };
+  return {
+    bytes,
+    aligned: () => bit === 0,
+    value: (v: number, n: number) => { for (let i = 0; i < n; i++) put((v >> i) & 1); },
+    code: (c: number, n: number) => { for (let i = n - 1; i >= 0; i--) put((c >> i) & 1); },
+  };
+}
+
 /**
- * Returns a zlib stream (RFC 1950) that inflates to `megabytes` MiB of zeros, at close to deflate's
- * limit of about 1032:1: one raw deflate piece for 1 MiB of zeros ending in a sync flush (a non-final
- * block; RFC 1951 §3.2.3), repeated — its back-references only ever reach zeros — then an empty final
- * fixed-Huffman block and the true Adler-32.
+ * Returns a zlib stream (RFC 1950) that inflates to `megabytes` MiB of zeros at deflate's limit of
+ * 1032:1, in one final dynamic-Huffman block (RFC 1951 §3.2.7) with three length/literal codes —
+ * 285 (a 258-byte copy) in 1 bit, literal 0 and end-of-block in 2 — and one 1-bit distance code
+ * (distance 1). Both 1-bit codes are 0, so after a literal 0 the copies are nothing but zero bits:
+ * 4 copies (1,032 bytes of output) per zero byte of stream.
  */
 export function testDeflateBomb(megabytes: number): Uint8Array {
-  const piece = deflateRawSync(Buffer.alloc(1 << 20), { level: 9, finishFlush: constants.Z_SYNC_FLUSH });
   const total = megabytes * (1 << 20);
+  const w = bitWriter();
+  w.value(1, 1); // BFINAL
+  w.value(2, 2); // BTYPE 10: dynamic Huffman
+  w.value(286 - 257, 5); // HLIT: 286 length/literal codes
+  w.value(0, 5); // HDIST: 1 distance code
+  w.value(18 - 4, 4); // HCLEN: 18 code length code lengths, in the order of §3.2.7
+  const clLengths: Record<number, number> = { 18: 1, 1: 2, 2: 2 }; // canonical codes: 18 → 0, 1 → 10, 2 → 11
+  for (const sym of [16, 17, 18, 0, 8, 7, 9, 6, 10, 5, 11, 4, 12, 3, 13, 2, 14, 1]) w.value(clLengths[sym] ?? 0, 3);
+  const length1 = () => w.code(2, 2), length2 = () => w.code(3, 2);
+  const zeros = (n: number) => { w.code(0, 1); w.value(n - 11, 7); };
+  length2(); // literal 0
+  zeros(138); zeros(117); // literals 1..255: unused
+  length2(); // 256, end-of-block
+  zeros(28); // 257..284: unused
+  length1(); // 285, a copy of 258 bytes
+  length1(); // distance code 0 (distance 1)
+  // Canonical codes: 285 → 0, literal 0 → 10, end-of-block → 11; distance 0 → 0.
+  w.code(2, 2); // literal 0
+  const copies = Math.floor((total - 1) / 258);
+  let zeroBits = 2 * copies;
+  for (; zeroBits > 0 && !w.aligned(); zeroBits--) w.value(0, 1);
+  const body = Math.floor(zeroBits / 8);
+  // Still mid-byte only when the copies ran out first (body is then 0): finish in the same writer.
+  const tail = w.aligned() ? bitWriter() : w;
+  tail.value(0, zeroBits - 8 * body);
+  for (let i = total - 1 - 258 * copies; i > 0; i--) tail.code(2, 2); // the last few zeros as literals
+  tail.code(3, 2); // end-of-block
   const adler = Buffer.alloc(4);
   adler.writeUInt32BE(adler32OfZeros(total));
-  // 0x78 0xda: deflate, 32K window, level 9; 0x03 0x00: BFINAL=1, BTYPE=01, then end-of-block (7 zero bits).
-  return new Uint8Array(Buffer.concat([Buffer.from([0x78, 0xda]), ...Array.from({ length: megabytes }, () => piece), Buffer.from([0x03, 0x00]), adler]));
+  const rest = tail === w ? [] : [Buffer.alloc(body), Buffer.from(tail.bytes)];
+  return new Uint8Array(Buffer.concat([Buffer.from([0x78, 0xda]), Buffer.from(w.bytes), ...rest, adler]));
 }
