@@ -88,16 +88,4 @@ export class Rng {
   pick<T>(items: readonly T[]): T {
     return items[this.int(items.length)];
   }
-
-  /** Returns a shuffled copy of `items` (Fisher–Yates). */
-  shuffle<T>(items: readonly T[]): T[] {
-    const out = items.slice();
-    for (let i = out.length - 1; i > 0; i--) {
-      const j = this.int(i + 1);
-      const tmp = out[i];
-      out[i] = out[j];
-      out[j] = tmp;
-    }
-    return out;
-  }
 }

@@ -45,7 +45,7 @@ type Optional = 'ghostCls' | 'voidAs' | 'vx' | 'vz';
 export class SceneBuilder {
   readonly objects: SceneObject[] = [];
 
-  constructor(readonly rng: Rng, readonly seed: number) {}
+  constructor(readonly rng: Rng) {}
 
   /** Adds an object and returns its instance id. */
   add(o: Omit<SceneObject, 'inst' | Optional> & Partial<Pick<SceneObject, Optional>>): number {
@@ -61,7 +61,7 @@ const cache = new Map<number, DemoScene>();
 export function demoScene(seed: number): DemoScene {
   const hit = cache.get(seed);
   if (hit) return hit;
-  const b = new SceneBuilder(new Rng(seed), seed);
+  const b = new SceneBuilder(new Rng(seed));
   containersAdd(b);
   cranesAdd(b);
   trucksAdd(b);

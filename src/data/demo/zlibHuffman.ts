@@ -2,6 +2,7 @@
 // matching. Photos with sensor noise give LZ77 almost nothing to match, so this is as small as a
 // fast general compressor's output and several times quicker; it runs anywhere (browser, worker,
 // Node). Hot loops: flat typed arrays, no allocation per byte.
+import { adler32 } from '../../core/png/adler32.ts';
 
 /** Bytes coded under one Huffman table: big enough to amortise the table, small enough to follow the image. */
 const BLOCK = 1 << 16;
@@ -74,19 +75,6 @@ export function huffmanCodes(lengths: Uint8Array): Uint16Array {
     out[s] = r;
   }
   return out;
-}
-
-/** Returns the Adler-32 checksum of `data` (RFC 1950 §8.2) as an unsigned 32-bit integer. */
-export function adler32(data: Uint8Array): number {
-  let a = 1;
-  let b = 0;
-  for (let i = 0; i < data.length; ) {
-    const end = Math.min(data.length, i + 5552); // largest run before the sums can overflow 2^32
-    for (; i < end; i++) (a += data[i]), (b += a);
-    a %= 65521;
-    b %= 65521;
-  }
-  return ((b << 16) | a) >>> 0;
 }
 
 /** Returns the zlib stream of `data`: Huffman-coded literals only (deflate strategy "Huffman only"). */
