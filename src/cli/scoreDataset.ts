@@ -59,6 +59,7 @@ export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreData
 export function scoreJobOf(ds: ScoreDataset, options: ScoreOptions, table: ClassTable, index: number): FrameScorePaths {
   const f = ds.pairing.frames[index];
   const runDir = new Map(options.runs.map((r) => [r.name, r.dir]));
+  const confDir = new Map(options.confidence.map((c) => [c.name, c.dir]));
   return {
     name: f.name,
     truth: { file: `truth/${f.truth}`, path: join(options.truth, f.truth) },
@@ -67,6 +68,11 @@ export function scoreJobOf(ds: ScoreDataset, options: ScoreOptions, table: Class
       return { run, file: file === null ? null : { file: `${run}/${file}`, path: join(runDir.get(run)!, file) } };
     }),
     photo: options.images && f.image ? { file: `images/${f.image}`, path: join(options.images, f.image) } : null,
+    photoPixels: true,
+    confidence: options.confidence.map((c) => {
+      const file = f.confidence[c.name] ?? null;
+      return { run: c.name, file: file === null ? null : { file: `confidence/${c.name}/${file}`, path: join(confDir.get(c.name)!, file) } };
+    }),
     table,
     settings: ds.settings,
   };

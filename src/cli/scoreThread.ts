@@ -3,6 +3,8 @@
 import { readFile } from 'node:fs/promises';
 import { frameJobScore, type FileBytes, type FrameJobInput } from '../core/frameJob.ts';
 import { scoreScratchCreate } from '../core/metrics/scratch.ts';
+import { photoFromPng } from '../core/png/decodePhoto.ts';
+import { regionScratchCreate } from '../core/regions/regionScratch.ts';
 import { frameResultBuffers } from '../workers/scoreJobs.ts';
 import { workerServe } from '../workers/serve.ts';
 import { threadEndpoint } from './threadPort.ts';
@@ -14,10 +16,13 @@ export interface FilePath {
 }
 
 /** Input of the thread's `frameScore`: like FrameJobInput, with paths instead of bytes. */
-export interface FrameScorePaths extends Omit<FrameJobInput, 'truth' | 'preds' | 'photo'> {
+export interface FrameScorePaths extends Omit<FrameJobInput, 'truth' | 'preds' | 'photo' | 'photoRgba' | 'confidence'> {
   truth: FilePath;
   preds: { run: string; file: FilePath | null }[];
+  /** The photo: its PNG header is checked against the label maps; decoded for image evidence when `photoPixels`. */
   photo: FilePath | null;
+  photoPixels?: boolean;
+  confidence?: { run: string; file: FilePath | null }[];
 }
 
 async function bytesOf(f: FilePath): Promise<FileBytes | string> {
@@ -29,6 +34,14 @@ async function bytesOf(f: FilePath): Promise<FileBytes | string> {
 }
 
 const scratch = scoreScratchCreate();
+const regionScratch = regionScratchCreate();
+
+/** Returns the photo's pixels for image evidence, or the reason it cannot be used (headless, only PNG photos are decoded). */
+function photoPixelsOf(photo: FileBytes, maxPixels: number | undefined): FrameJobInput['photoRgba'] | string {
+  if (!/\.png$/i.test(photo.file)) return `${photo.file}: only PNG photos are decoded headless; image evidence not used on this frame`;
+  const r = photoFromPng(photo.bytes, { file: photo.file, maxPixels });
+  return r.ok ? { file: photo.file, ...r.value } : `${r.error}; image evidence not used on this frame`;
+}
 const endpoint = await threadEndpoint();
 
 workerServe(endpoint, {
@@ -45,10 +58,28 @@ workerServe(endpoint, {
       }),
     );
     const photo = input.photo ? await bytesOf(input.photo) : null;
-    const value = frameJobScore(
-      { ...input, truth, preds: preds.map((p) => ({ run: p.run, file: p.file })), photo: typeof photo === 'string' ? null : photo },
-      scratch,
+    const warnings: string[] = [];
+    let photoRgba: FrameJobInput['photoRgba'] = null;
+    if (typeof photo === 'string') warnings.push(`${photo}; image evidence not used on this frame`);
+    else if (photo && input.photoPixels) {
+      const px = photoPixelsOf(photo, input.maxPixels);
+      if (typeof px === 'string') warnings.push(px);
+      else photoRgba = px;
+    }
+    const confidence = await Promise.all(
+      (input.confidence ?? []).map(async (c) => {
+        if (!c.file) return { run: c.run, file: null };
+        const b = await bytesOf(c.file);
+        if (typeof b === 'string') warnings.push(`${b}; confidence of ${c.run} not used on this frame`);
+        return { run: c.run, file: typeof b === 'string' ? null : b };
+      }),
     );
+    const value = frameJobScore(
+      { ...input, truth, preds: preds.map((p) => ({ run: p.run, file: p.file })), photo: typeof photo === 'string' ? null : photo, photoRgba, confidence },
+      scratch,
+      regionScratch,
+    );
+    if (warnings.length) value.warnings = [...warnings, ...(value.warnings ?? [])];
     // A prediction that could not be read says so, rather than "no prediction file".
     for (const p of preds) {
       const r = value.runs.find((x) => x.run === p.run);

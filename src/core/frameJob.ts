@@ -6,6 +6,12 @@ import { scoreScratchCreate, type ScoreScratch } from './metrics/scratch.ts';
 import type { ScoreSettings } from './metrics/settings.ts';
 import { labelMapFromPng } from './png/decodeLabel.ts';
 import { pngHeaderRead } from './png/header.ts';
+import type { RgbaImage } from './png/decodePhoto.ts';
+import { confidenceFromPng, type ConfidenceMap } from './regions/confidenceMap.ts';
+import { frameRegionsCompute } from './regions/frameRegions.ts';
+import { regionScratchCreate, type RegionScratch } from './regions/regionScratch.ts';
+import { regionSettingsCheck, type RegionSettings } from './regions/regionSettings.ts';
+import type { FrameGrid, RunRegions } from './regions/regionTypes.ts';
 
 /** One file of a frame, as bytes, with the name used in messages (e.g. `truth/kq-0001.png`). */
 export interface FileBytes {
@@ -21,9 +27,23 @@ export interface FrameJobInput {
   preds: { run: string; file: FileBytes | null }[];
   /** A photo whose size is checked against the label maps (PNG header only), or null. */
   photo?: FileBytes | null;
+  /**
+   * The photo as RGBA pixels, for the image evidence of error regions (browser: from
+   * createImageBitmap; Node: photoFromPng). `file` names it in messages. Absent: no image evidence.
+   */
+  photoRgba?: PhotoPixels | null;
+  /** Per run: its confidence map (8/16-bit gray PNG, high = confident), or null / absent without one. */
+  confidence?: { run: string; file: FileBytes | null }[];
+  /** Region settings (defaults: REGION_DEFAULTS); false skips error regions. */
+  regions?: Partial<RegionSettings> | false;
   table: ClassTable;
   settings: ScoreSettings;
   maxPixels?: number;
+}
+
+/** A decoded photo with the name used in messages. */
+export interface PhotoPixels extends RgbaImage {
+  file: string;
 }
 
 /** The outcome per run: counts, or why this run could not be scored on this frame. */
@@ -31,6 +51,8 @@ export interface FrameRunResult {
   run: string;
   stats: FrameStats | null;
   error: string | null;
+  /** Error regions of this run (README "Error regions"); null when the run failed or regions were skipped. */
+  regions?: RunRegions | null;
 }
 
 /** Scores of one frame: `error` set when the frame itself (its ground truth) failed, else per-run results. */
@@ -40,6 +62,10 @@ export interface FrameJobResult {
   height: number;
   error: string | null;
   runs: FrameRunResult[];
+  /** Coarse truth grid for temporal evidence (each run's grid is in its regions); null without regions. */
+  grid?: FrameGrid | null;
+  /** Optional inputs that could not be used (a confidence map or photo), each naming the file and the problem. */
+  warnings?: string[];
 }
 
 /** Returns the ids a generated table scores on this frame: every id in truth or predictions except void. */
@@ -56,10 +82,14 @@ function presentIds(maps: LabelMap[], ignore: number): number[] {
 
 /**
  * Returns the per-run scores of one frame from its file bytes: decodes each label PNG exactly, checks
- * sizes and ids, and scores every run. A bad ground truth fails the frame; a bad prediction fails only
- * its run. With a generated table (no classes.json) the classes are the ids present in the frame.
+ * sizes and ids, scores every run and finds each run's error regions with their evidence (every run
+ * of the frame, the photo's pixels and the confidence maps; `regions: false` skips them). A bad ground
+ * truth fails the frame; a bad prediction fails only its run; an unusable confidence map only loses
+ * its evidence (a warning). With a generated table (no classes.json) the classes are the ids present.
  */
-export function frameJobScore(input: FrameJobInput, scratch: ScoreScratch = scoreScratchCreate()): FrameJobResult {
+export function frameJobScore(
+  input: FrameJobInput, scratch: ScoreScratch = scoreScratchCreate(), regionScratch: RegionScratch = regionScratchCreate(),
+): FrameJobResult {
   const { table, settings } = input;
   const base = { name: input.name, width: 0, height: 0 };
   const failAll = (error: string): FrameJobResult => ({ ...base, error, runs: input.preds.map((p) => ({ run: p.run, stats: null, error })) });
@@ -101,7 +131,44 @@ export function frameJobScore(input: FrameJobInput, scratch: ScoreScratch = scor
     const s = frameScore(truth.value, map, classIds, settings, scratch);
     return s.ok ? { run, stats: s.value, error: null } : { run, stats: null, error: `${input.truth.file}: ${s.error}` };
   });
-  return { ...base, width, height, error: null, runs };
+  if (input.regions === false) return { ...base, width, height, error: null, runs };
+  const regionSettings = regionSettingsCheck(input.regions);
+  if (!regionSettings.ok) return failAll(regionSettings.error);
+  const photo = input.photoRgba ?? null;
+  if (photo) {
+    const sizes = frameSizesCheck([{ file: input.truth.file, width, height }, { file: photo.file, width: photo.width, height: photo.height }]);
+    if (!sizes.ok) return failAll(sizes.error);
+  }
+  const warnings: string[] = [];
+  const preds = decoded.map((d, i) => {
+    if (!d.map || runs[i].error) return null;
+    const confidence = confidenceOf(input, d.run, width, height, warnings);
+    return { run: d.run, map: d.map, confidence };
+  });
+  const regions = frameRegionsCompute({ truth: truth.value, preds, classIds, ignore: settings.ignore, photo }, regionSettings.value, regionScratch);
+  if (!regions.ok) {
+    warnings.push(`${input.truth.file}: error regions not computed (${regions.error})`);
+    return { ...base, width, height, error: null, runs, grid: null, warnings };
+  }
+  runs.forEach((r, i) => (r.regions = regions.value.runs[i]));
+  return { ...base, width, height, error: null, runs, grid: regions.value.grid, warnings };
+}
+
+/** Returns the run's decoded confidence map, or null (absent, or unusable: then the reason is added to `warnings`). */
+function confidenceOf(input: FrameJobInput, run: string, width: number, height: number, warnings: string[]): ConfidenceMap | null {
+  const file = input.confidence?.find((c) => c.run === run)?.file;
+  if (!file) return null;
+  const m = confidenceFromPng(file.bytes, { file: file.file, maxPixels: input.maxPixels });
+  if (!m.ok) {
+    warnings.push(`${m.error}; confidence of ${run} not used on this frame`);
+    return null;
+  }
+  const sizes = frameSizesCheck([{ file: input.truth.file, width, height }, { file: file.file, width: m.value.width, height: m.value.height }]);
+  if (!sizes.ok) {
+    warnings.push(`${sizes.error}; confidence of ${run} not used on this frame`);
+    return null;
+  }
+  return m.value;
 }
 
 /** Returns a class table for scoring: the given one, or a generated one when there is none. */

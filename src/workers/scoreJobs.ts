@@ -2,6 +2,7 @@ import type { ClassTable } from '../core/classTable.ts';
 import { frameJobScore, type FileBytes, type FrameJobResult } from '../core/frameJob.ts';
 import type { FrameStats } from '../core/metrics/frameScore.ts';
 import { scoreScratchCreate } from '../core/metrics/scratch.ts';
+import { regionScratchCreate } from '../core/regions/regionScratch.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
 import { buffersOf, type JobOutput } from './protocol.ts';
 
@@ -32,9 +33,13 @@ export function frameStatsBuffers(stats: FrameStats): ArrayBuffer[] {
   );
 }
 
-/** Returns the transfer list of a whole frame result. */
+/** Returns the transfer list of a whole frame result: counts, region grids and confidence sums. */
 export function frameResultBuffers(result: FrameJobResult): ArrayBuffer[] {
-  return result.runs.flatMap((r) => (r.stats ? frameStatsBuffers(r.stats) : []));
+  const regionArrays = result.runs.flatMap((r) => (r.regions ? [r.regions.grid, r.regions.confidence?.sum, r.regions.confidence?.count] : []));
+  return [
+    ...result.runs.flatMap((r) => (r.stats ? frameStatsBuffers(r.stats) : [])),
+    ...buffersOf(result.grid?.truth, ...regionArrays),
+  ];
 }
 
 async function bytesOf(f: FileBlob): Promise<FileBytes> {
@@ -42,6 +47,7 @@ async function bytesOf(f: FileBlob): Promise<FileBytes> {
 }
 
 const scratch = scoreScratchCreate();
+const regionScratch = regionScratchCreate();
 
 /** The scoring worker's command table; the same core job runs in the CLI's worker threads. */
 export const scoreJobs = {
@@ -57,7 +63,7 @@ export const scoreJobs = {
       input.preds.map(async (p) => ({ run: p.run, file: p.file ? await bytesOf(p.file).catch(() => null) : null })),
     );
     const photo = input.photo ? await bytesOf(input.photo).catch(() => null) : null;
-    const value = frameJobScore({ name: input.name, truth, preds, photo, table: input.table, settings: input.settings }, scratch);
+    const value = frameJobScore({ name: input.name, truth, preds, photo, table: input.table, settings: input.settings }, scratch, regionScratch);
     return { value, transfer: frameResultBuffers(value) };
   },
 };

@@ -1,0 +1,143 @@
+import type { FrameJobResult } from '../frameJob.ts';
+import { REGION_DEFAULTS } from '../regions/regionSettings.ts';
+import type { RegionKind } from '../regions/regionTypes.ts';
+import { confidenceSumsAdd, frameGridsOf, suspectCandidates, weightedMean, type ConfidenceSums, type SuspectCandidate } from './suspectCandidates.ts';
+import { suspectReasons, type SuspectSignals } from './suspectReasons.ts';
+import type { SuspectSettings } from './suspectSettings.ts';
+import { candidateIndexBuild, steadyDisagreement } from './steadyDisagreement.ts';
+import { signalConfidence } from './suspectSignals.ts';
+import { temporalFlip, type FrameGrids } from './temporalFlip.ts';
+
+/** One entry of the likely-label-mistake queue. */
+export interface Suspect {
+  frame: string;
+  run: string;
+  /** [x0, y0, x1, y1], end exclusive, pixels. */
+  bbox: [number, number, number, number];
+  truthClass: number;
+  predictedClass: number;
+  kind: RegionKind;
+  /** 0..1, higher: more like a label mistake. */
+  score: number;
+  reasons: string[];
+  /** Index of the frame in the dataset order, and the region's id in that run's regions of the frame. */
+  frameIndex: number;
+  regionId: number;
+  signals: SuspectSignals;
+  /** Other runs whose regions were merged into this entry. */
+  alsoRuns: string[];
+  /** Regions merged into this entry besides its own (any run), with their region ids per run. */
+  merged: { run: string; regionId: number }[];
+}
+
+/** Inputs of the dataset pass: candidates from every frame, the frames' grids in dataset order, confidence sums. */
+export interface SuspectQueueInput {
+  candidates: readonly SuspectCandidate[];
+  grids: readonly (FrameGrids | null)[];
+  confidence: ConfidenceSums;
+  className: (id: number) => string;
+  /** Band width the regions' band shares were measured at (REGION_DEFAULTS.bandWidth unless changed). */
+  bandWidth?: number;
+}
+
+/** Returns whether two end-exclusive boxes come within `gap` pixels of each other. */
+function boxesNear(a: readonly number[], b: readonly number[], gap: number): boolean {
+  return a[0] - gap < b[2] && b[0] - gap < a[2] && a[1] - gap < b[3] && b[1] - gap < a[3];
+}
+
+/** Returns the gap (pixels) within which box b joins a suspect with box a. */
+function mergeGapOf(a: readonly number[], b: readonly number[], s: SuspectSettings): number {
+  const long = (x: readonly number[]) => Math.max(x[2] - x[0], x[3] - x[1]);
+  return Math.max(s.mergeGap, s.mergeReach * Math.min(long(a), long(b)));
+}
+
+/** Returns the factor 0..1 that scales the score of thin regions along label boundaries (1 at or above the gate). */
+export function geometryGateFactor(geometry: number, s: SuspectSettings): number {
+  return s.geometryGate > 0 && geometry < s.geometryGate ? geometry / s.geometryGate : 1;
+}
+
+/** Returns the IoU 0..1 of two end-exclusive boxes. */
+export function bboxIoU(a: readonly number[], b: readonly number[]): number {
+  const iw = Math.max(0, Math.min(a[2], b[2]) - Math.max(a[0], b[0]));
+  const ih = Math.max(0, Math.min(a[3], b[3]) - Math.max(a[1], b[1]));
+  const inter = iw * ih;
+  const union = (a[2] - a[0]) * (a[3] - a[1]) + (b[2] - b[0]) * (b[3] - b[1]) - inter;
+  return union > 0 ? inter / union : 0;
+}
+
+/**
+ * Returns the queue of likely label mistakes over all runs, best first: each candidate's signals
+ * combined as the weighted mean of geometry, agreement, confidence and image (those it has), then
+ * raised by a label flip, 1 − (1 − mean)(1 − weightTemporal · flip), lowered by steady disagreement,
+ * · (1 − weightSteady · steady), and scaled down below the geometry gate (thin slivers along label boundaries); nearby regions of one truth segment or
+ * one class pair (any run) merged into the best of them; at most `queueMax` entries.
+ */
+export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Suspect[] {
+  const weights = {
+    geometry: s.weightGeometry, agreement: s.weightAgreement, confidence: s.weightConfidence, image: s.weightImage, temporal: s.weightTemporal, steady: s.weightSteady,
+  };
+  const thresholdOf = (run: string, id: number): number | null => {
+    const e = input.confidence.get(run)?.get(id);
+    return e && e.count > 0 ? e.sum / e.count : null;
+  };
+  const index = candidateIndexBuild(input.candidates);
+  const scoredFrame = (t: number, run: string) => t >= 0 && t < input.grids.length && !!input.grids[t]?.runs[run];
+  const scored = input.candidates.map((c) => {
+    const threshold = thresholdOf(c.run, c.predictedClass);
+    const flip = temporalFlip(input.grids, c.frameIndex, c.run, c.cells, c.truthClass, c.predictedClass, s.temporalWindow, s.temporalReach);
+    const signals: SuspectSignals = {
+      geometry: c.geometry, agreement: c.agreement, confidence: signalConfidence(c.confidenceHist, threshold), image: c.image,
+      temporal: flip.share, steady: steadyDisagreement(c, index, s.temporalWindow, scoredFrame),
+    };
+    const mean = weightedMean([
+      [signals.geometry, s.weightGeometry], [signals.agreement, s.weightAgreement], [signals.confidence, s.weightConfidence], [signals.image, s.weightImage],
+    ]);
+    const raised = 1 - (1 - mean) * (1 - s.weightTemporal * signals.temporal);
+    const score = geometryGateFactor(signals.geometry, s) * raised * (1 - s.weightSteady * signals.steady);
+    return { c, signals, score, threshold, flip };
+  });
+  scored.sort((a, b) => b.score - a.score || b.c.area - a.c.area || a.c.frameIndex - b.c.frameIndex);
+  const out: Suspect[] = [];
+  const segmentOf = new Map<Suspect, number>();
+  for (const x of scored) {
+    const c = x.c;
+    const twin = out.find(
+      (o) => o.frameIndex === c.frameIndex && (segmentOf.get(o) === c.truthSegment || (o.truthClass === c.truthClass && o.predictedClass === c.predictedClass)) &&
+        x.score >= s.mergeScoreShare * o.score && boxesNear(o.bbox, c.bbox, mergeGapOf(o.bbox, c.bbox, s)),
+    );
+    if (twin) {
+      twin.bbox = [Math.min(twin.bbox[0], c.bbox[0]), Math.min(twin.bbox[1], c.bbox[1]), Math.max(twin.bbox[2], c.bbox[2]), Math.max(twin.bbox[3], c.bbox[3])];
+      twin.merged.push({ run: c.run, regionId: c.regionId });
+      if (c.run !== twin.run && !twin.alsoRuns.includes(c.run)) twin.alsoRuns.push(c.run);
+      continue;
+    }
+    if (out.length >= s.queueMax) continue;
+    const reasons = suspectReasons(c, x.signals, weights, { className: input.className, threshold: x.threshold, flip: x.flip, bandWidth: input.bandWidth ?? REGION_DEFAULTS.bandWidth });
+    out.push({
+      frame: c.frame, run: c.run, bbox: c.bbox, truthClass: c.truthClass, predictedClass: c.predictedClass, kind: c.kind, score: x.score,
+      reasons, frameIndex: c.frameIndex, regionId: c.regionId, signals: x.signals, alsoRuns: [], merged: [],
+    });
+    segmentOf.set(out[out.length - 1], c.truthSegment);
+  }
+  for (const o of out) {
+    if (o.alsoRuns.length) o.reasons.push(`${o.alsoRuns.join(', ')} ${o.alsoRuns.length === 1 ? 'finds' : 'find'} it too`);
+    const more = o.merged.length;
+    if (more) o.reasons.push(`${more} more region${more === 1 ? '' : 's'} nearby in the same label segment or with the same classes ${more === 1 ? 'is' : 'are'} part of it`);
+  }
+  return out;
+}
+
+/** Returns the queue from frame results in dataset order (missing frames undefined): the same pass the scorer runs. */
+export function suspectQueueOfResults(
+  results: readonly (FrameJobResult | undefined)[], className: (id: number) => string, s: SuspectSettings, bandWidth?: number,
+): Suspect[] {
+  const candidates: SuspectCandidate[] = [];
+  const confidence: ConfidenceSums = new Map();
+  const grids = results.map((r, i) => {
+    if (!r) return null;
+    candidates.push(...suspectCandidates(r, i, s));
+    confidenceSumsAdd(confidence, r);
+    return frameGridsOf(r);
+  });
+  return suspectQueue({ candidates, grids, confidence, className, bandWidth }, s);
+}

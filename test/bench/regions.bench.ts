@@ -1,0 +1,72 @@
+/**
+ * Benchmark of error-region extraction on one thread: Kestrel Quay demo frames at 2048×1024 (two
+ * runs, the photo for image evidence), timed per stage and for the whole of frameRegionsCompute,
+ * beside frameScore on the same frames and a plain id-sum pass (how fast this machine runs the
+ * simplest per-pixel loop right now; the machine is shared, so read the figures against it).
+ * Run: npx tsx test/bench/regions.bench.ts [frames=3] [reps=5]
+ */
+import { frameScore } from '../../src/core/metrics/frameScore.ts';
+import { scoreScratchCreate } from '../../src/core/metrics/scratch.ts';
+import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
+import { frameRegionsCompute } from '../../src/core/regions/frameRegions.ts';
+import { regionScratchCreate } from '../../src/core/regions/regionScratch.ts';
+import { REGION_DEFAULTS } from '../../src/core/regions/regionSettings.ts';
+import { DEMO_CLASS_COUNT } from '../../src/data/demo/classes.ts';
+import { demoFrameRaster } from '../../src/data/demo/frame.ts';
+
+const W = 2048, H = 1024;
+const args = process.argv.slice(2);
+const FRAMES = Number(args[0] ?? 3), REPS = Number(args[1] ?? 5);
+const classIds = Array.from({ length: DEMO_CLASS_COUNT }, (_, i) => i);
+const options = { width: W, height: H, frames: 48, seed: 1 };
+
+process.stderr.write(`rendering ${FRAMES} demo frames at ${W}×${H}…\n`);
+const frames = Array.from({ length: FRAMES }, (_, f) => {
+  const r = demoFrameRaster(f * 7, options);
+  const rgba = new Uint8Array(W * H * 4);
+  for (let i = 0; i < W * H; i++) rgba.set([r.photo[i * 3], r.photo[i * 3 + 1], r.photo[i * 3 + 2], 255], i * 4);
+  return { truth: r.truth, preds: r.preds, photo: { width: W, height: H, rgba } };
+});
+
+const median = (v: number[]) => [...v].sort((a, b) => a - b)[v.length >> 1];
+function idsSum(ids: Uint8Array | Uint16Array): number {
+  let sum = 0;
+  for (let i = 0; i < ids.length; i++) sum = (sum + ids[i]) | 0;
+  return sum;
+}
+
+const times: Record<string, number[]> = {};
+const timed = <T>(name: string, fn: () => T): T => {
+  const t0 = performance.now();
+  const v = fn();
+  (times[name] ??= []).push(performance.now() - t0);
+  return v;
+};
+const scoreScratch = scoreScratchCreate();
+const regionScratch = regionScratchCreate();
+let sink = 0, regions = 0, pixels = 0;
+for (let rep = 0; rep < REPS + 1; rep++) {
+  if (rep === 1) for (const k of Object.keys(times)) times[k] = []; // the first pass warms up the JIT
+  for (const f of frames) {
+    sink += timed('id-sum pass', () => idsSum(f.truth.ids));
+    timed('frameScore, 2 runs', () => {
+      for (const run of ['run-a', 'run-b'] as const) frameScore(f.truth, f.preds[run], classIds, DEFAULT_SCORE_SETTINGS, scoreScratch);
+    });
+    const preds = (['run-a', 'run-b'] as const).map((run) => ({ run, map: f.preds[run], confidence: null }));
+    const r = timed('frameRegionsCompute, 2 runs + photo', () =>
+      frameRegionsCompute({ truth: f.truth, preds, classIds, ignore: 255, photo: f.photo }, { ...REGION_DEFAULTS }, regionScratch),
+    );
+    timed('frameRegionsCompute, 2 runs, no photo', () =>
+      frameRegionsCompute({ truth: f.truth, preds, classIds, ignore: 255, photo: null }, { ...REGION_DEFAULTS }, regionScratch),
+    );
+    if (r.ok && rep === 0) {
+      for (const run of r.value.runs) {
+        regions += run!.counts.all.regions;
+        pixels += run!.counts.all.pixels;
+      }
+    }
+  }
+}
+process.stdout.write(`${FRAMES} frames ${W}×${H}, ${REPS} reps, median ms per frame (sink ${sink & 1}):\n`);
+for (const [k, v] of Object.entries(times)) process.stdout.write(`  ${k.padEnd(40)} ${median(v).toFixed(1).padStart(8)}\n`);
+process.stdout.write(`  regions per run and frame: ${(regions / FRAMES / 2).toFixed(0)}, wrong pixels per run and frame: ${(pixels / FRAMES / 2).toFixed(0)}\n`);
