@@ -36,14 +36,18 @@ export function demoArgsParse(argv: string[]): { out: string; options: DemoOptio
   return { out: args.out, options: checked.value, threads };
 }
 
+function plural(n: number, what: string): string {
+  return `${n} ${what}${n === 1 ? '' : 's'}`;
+}
+
 async function main(): Promise<void> {
   const { out, options, threads } = demoArgsParse(process.argv.slice(2));
   const written = await demoDatasetWrite(out, options, threads);
   if (!written.ok) throw new UsageError(written.error);
   const s = written.value;
   process.stdout.write(
-    `wrote ${s.frames} frames of ${options.width}×${options.height} (seed ${options.seed}) to ${out} ` +
-      `with ${s.mistakes} known label mistakes in ${(s.ms / 1000).toFixed(1)} s on ${s.threads} thread${s.threads === 1 ? '' : 's'}\n`,
+    `wrote ${plural(s.frames, 'frame')} of ${options.width}×${options.height} (seed ${options.seed}) to ${out} ` +
+      `with ${plural(s.mistakes, 'known label mistake')} in ${(s.ms / 1000).toFixed(1)} s on ${plural(s.threads, 'thread')}\n`,
   );
 }
 

@@ -66,6 +66,7 @@ export async function demoDatasetWrite(dir: string, o: DemoOptions, threads = Ma
     }
   }
   const key = perFrame.flat();
-  await writeFile(join(dir, 'answer-key.json'), JSON.stringify(key, null, 1) + '\n');
+  // one mistake per line: easy to read and to diff
+  await writeFile(join(dir, 'answer-key.json'), '[\n' + key.map((m) => '  ' + JSON.stringify(m)).join(',\n') + '\n]\n');
   return ok({ frames: o.frames, mistakes: key.length, ms: performance.now() - start, threads: n });
 }
