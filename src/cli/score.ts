@@ -10,6 +10,7 @@ import { UsageError } from './args.ts';
 import { progressCreate } from './progress.ts';
 import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
 import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
+import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect } from './scoreRegions.ts';
 import { framesCsv, summaryText, textWrite, type FrameCsvRow } from './scoreReportWrite.ts';
 import { threadPortCreate } from './threadPort.ts';
 
@@ -31,11 +32,14 @@ async function run(options: ScoreOptions): Promise<number> {
   const totals = new Map<string, DatasetTotals>(runs.map((r) => [r, datasetTotalsCreate(table.classes.map((c) => c.id))]));
   const lines = new Map<string, (ReportFrameLine | undefined)[]>(runs.map((r) => [r, new Array(n)]));
   const csvRows: (FrameCsvRow[] | undefined)[] = new Array(n);
+  const regions = regionGatherCreate(n, options.suspects);
   let done = 0;
   let failed = 0;
   const progress = progressCreate(n);
 
   const take = (index: number, result: FrameJobResult) => {
+    for (const w of result.warnings ?? []) process.stderr.write(`warning: ${w}\n`);
+    regionGatherAdd(regions, index, result, runs[0]);
     let anyFailed = false;
     const rows: FrameCsvRow[] = [];
     for (const r of result.runs) {
@@ -83,10 +87,18 @@ async function run(options: ScoreOptions): Promise<number> {
 
   const classesOf = (t: DatasetTotals) => (generated ? t.classIds.map((id) => ({ id, name: String(id) })) : table.classes);
   const reports = runs.map((r) => scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]));
-  const report: ScoreReport & { runs?: Record<string, ScoreReport['dataset']>; unpaired?: unknown } = reports[0];
+  const report: Omit<ScoreReport, 'frames'> & {
+    frames: (ReportFrameLine & { regions?: ReportRegion[] | null })[];
+    runs?: Record<string, ScoreReport['dataset']>;
+    unpaired?: unknown;
+    suspects?: ReportSuspect[];
+  } = reports[0];
   const runBlocks = Object.fromEntries(runs.map((r, i) => [r, reports[i].dataset]));
   if (runs.length > 1) report.runs = runBlocks;
   report.unpaired = pairing.unpaired;
+  report.frames.forEach((f, i) => (f.regions = regions.lines[i]));
+  const names = new Map(table.classes.map((c) => [c.id, c.name]));
+  report.suspects = regionGatherSuspects(regions, (id) => names.get(id) ?? String(id));
   const json = JSON.stringify(report, null, 2) + '\n';
   if (options.out) await textWrite(options.out, json);
   else process.stdout.write(json);
@@ -97,7 +109,7 @@ async function run(options: ScoreOptions): Promise<number> {
     .sort((a, b) => a.meanIoU! - b.meanIoU!)
     .slice(0, 5)
     .map((f) => ({ run: runs[0], name: f.name, meanIoU: f.meanIoU }));
-  (options.out ? process.stdout : process.stderr).write(summaryText(report, runBlocks, worst));
+  (options.out ? process.stdout : process.stderr).write(summaryText(report, runBlocks, worst, report.suspects.slice(0, 5)));
   return failed > 0 ? EXIT.someFailed : EXIT.ok;
 }
 

@@ -14,11 +14,13 @@ export interface ScoreOptions {
   workers: number;
   biouRatio: number;
   bfTolerance: number;
+  /** Length of the likely-label-mistake queue in the report. */
+  suspects: number;
 }
 
 export const SCORE_USAGE = `usage: npm run score -- --truth DIR --pred [NAME=]DIR [--pred ...] [--classes FILE] [--ignore N]
        [--images DIR] [--confidence NAME=DIR] [--out report.json] [--csv frames.csv] [--workers N]
-       [--biou-ratio R] [--bf-tolerance T]`;
+       [--biou-ratio R] [--bf-tolerance T] [--suspects N]`;
 
 /** Returns the scorer's options from argv, or throws UsageError naming the mistake. */
 export function scoreOptionsParse(argv: string[]): ScoreOptions {
@@ -34,6 +36,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     workers: { kind: 'number' },
     'biou-ratio': { kind: 'number' },
     'bf-tolerance': { kind: 'number' },
+    suspects: { kind: 'number' },
     help: { kind: 'flag' },
   });
   if (a.help) throw new UsageError(SCORE_USAGE);
@@ -57,6 +60,8 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
   if (!(biouRatio > 0 && biouRatio <= 1)) throw new UsageError(`--biou-ratio must be in (0, 1], got ${biouRatio}`);
   const bfTolerance = (a['bf-tolerance'] as number | undefined) ?? 0.0075;
   if (!(bfTolerance > 0 && bfTolerance <= 1)) throw new UsageError(`--bf-tolerance must be in (0, 1], got ${bfTolerance}`);
+  const suspects = (a.suspects as number | undefined) ?? 200;
+  if (!Number.isInteger(suspects) || suspects < 0 || suspects > 100000) throw new UsageError(`--suspects must be an integer 0..100000, got ${suspects}`);
   return {
     truth: a.truth,
     runs,
@@ -69,5 +74,6 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     workers,
     biouRatio,
     bfTolerance,
+    suspects,
   };
 }

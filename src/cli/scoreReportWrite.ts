@@ -43,8 +43,11 @@ function p(v: number | null): string {
   return v === null ? '   —  ' : (v * 100).toFixed(2).padStart(6);
 }
 
-/** Returns the short summary table printed after scoring (per run: mIoU, band IoU at 3 px, BIoU, BF; worst frames). */
-export function summaryText(report: ScoreReport, runs: Record<string, ScoreReport['dataset']>, worst: { run: string; name: string; meanIoU: number | null }[]): string {
+/** Returns the short summary table printed after scoring (per run: mIoU, band IoU at 3 px, BIoU, BF; worst frames; top suspects). */
+export function summaryText(
+  report: Pick<ScoreReport, 'frames'>, runs: Record<string, ScoreReport['dataset']>, worst: { run: string; name: string; meanIoU: number | null }[],
+  suspects: { frame: string; run: string; bbox: number[]; score: number; reasons: string[] }[] = [],
+): string {
   const lines: string[] = [];
   lines.push('run              mean IoU  band IoU@3px  Boundary IoU  Boundary F   (%)');
   for (const [run, d] of Object.entries(runs)) {
@@ -54,6 +57,10 @@ export function summaryText(report: ScoreReport, runs: Record<string, ScoreRepor
   if (worst.length) {
     lines.push('', `worst frames by mean IoU (${worst[0].run}):`);
     for (const w of worst) lines.push(`  ${w.name.padEnd(24)} ${p(w.meanIoU)}`);
+  }
+  if (suspects.length) {
+    lines.push('', 'likely label mistakes (best first):');
+    for (const x of suspects) lines.push(`  ${x.frame.padEnd(16)} ${x.run.slice(0, 12).padEnd(12)} [${x.bbox.join(',')}] ${x.score.toFixed(2)}  ${x.reasons[0] ?? ''}`);
   }
   const failed = report.frames.filter((f) => f.error);
   if (failed.length) {

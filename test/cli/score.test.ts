@@ -66,7 +66,8 @@ describe('npm run score (real CLI) against the numpy/scipy reference', () => {
       const refArgs = ['--truth', join(d, 'truth'), '--pred', join(d, 'pred-a'), '--classes', join(d, 'classes.json')];
       if (extra.length) refArgs.push('--biou-ratio', '0.05', '--bf-tolerance', '0.03');
       const ref = pythonRefRun(refArgs);
-      expect(reportDifferences(ours, ref, 1e-9, ['timing', 'unpaired', 'runs'])).toEqual([]);
+      // The reference knows no error regions: frames[].regions and suspects are checked in suspects.test.ts.
+      expect(reportDifferences(ours, ref, 1e-9, ['timing', 'unpaired', 'runs', 'regions', 'suspects'])).toEqual([]);
       expect(ours.dataset.band).toHaveLength(65);
       expect(r.stdout).toMatch(/mean IoU/);
     }

@@ -1,0 +1,66 @@
+// The scorer's error-region and likely-label-mistake parts of the report: gathered frame by frame as
+// results arrive (the maps are gone by then; only region summaries and small grids are kept), and
+// ranked once every frame is in.
+import type { FrameJobResult } from '../core/frameJob.ts';
+import type { RegionKind } from '../core/regions/regionTypes.ts';
+import {
+  confidenceSumsAdd, frameGridsOf, suspectCandidates, type ConfidenceSums, type SuspectCandidate,
+} from '../core/suspects/suspectCandidates.ts';
+import { suspectQueue } from '../core/suspects/suspectQueue.ts';
+import { SUSPECT_DEFAULTS, type SuspectSettings } from '../core/suspects/suspectSettings.ts';
+import type { FrameGrids } from '../core/suspects/temporalFlip.ts';
+
+/** One listed region of the report's first run on a frame. */
+export interface ReportRegion {
+  kind: RegionKind;
+  truthClass: number;
+  predictedClass: number | null;
+  area: number;
+  bbox: [number, number, number, number];
+}
+
+/** One entry of the report's `suspects`, keys as README "Scoring headless" lists them. */
+export interface ReportSuspect {
+  frame: string;
+  run: string;
+  bbox: [number, number, number, number];
+  truthClass: number;
+  predictedClass: number;
+  kind: RegionKind;
+  score: number;
+  reasons: string[];
+}
+
+/** What the scorer keeps per dataset for regions and suspects. */
+export interface RegionGather {
+  settings: SuspectSettings;
+  candidates: SuspectCandidate[];
+  grids: (FrameGrids | null)[];
+  confidence: ConfidenceSums;
+  /** Per frame: the first run's listed regions, or null when it has none (failed, or no prediction). */
+  lines: (ReportRegion[] | null)[];
+}
+
+/** Returns an empty gatherer for `frames` frames with a queue of `queueMax` entries. */
+export function regionGatherCreate(frames: number, queueMax: number): RegionGather {
+  return { settings: { ...SUSPECT_DEFAULTS, queueMax }, candidates: [], grids: new Array(frames).fill(null), confidence: new Map(), lines: new Array(frames).fill(null) };
+}
+
+/** Takes what the report needs from frame `index`'s result (`firstRun` names the report's run). */
+export function regionGatherAdd(g: RegionGather, index: number, result: FrameJobResult, firstRun: string): void {
+  g.candidates.push(...suspectCandidates(result, index, g.settings));
+  confidenceSumsAdd(g.confidence, result);
+  g.grids[index] = frameGridsOf(result);
+  const first = result.error ? null : result.runs.find((r) => r.run === firstRun);
+  g.lines[index] = first?.regions
+    ? first.regions.regions.map((r) => ({ kind: r.kind, truthClass: r.truthClass, predictedClass: r.predictedClass, area: r.area, bbox: r.bbox }))
+    : null;
+}
+
+/** Returns the likely-label-mistake queue over every run, best first, in the report's shape. */
+export function regionGatherSuspects(g: RegionGather, className: (id: number) => string): ReportSuspect[] {
+  return suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, className }, g.settings).map((s) => ({
+    frame: s.frame, run: s.run, bbox: s.bbox, truthClass: s.truthClass, predictedClass: s.predictedClass, kind: s.kind,
+    score: s.score, reasons: s.reasons,
+  }));
+}
