@@ -23,15 +23,18 @@ export interface DemoWriteSummary {
 const FOLDERS = ['images', 'truth', ...DEMO_RUNS.map((r) => join('predictions', r))];
 const FRAME_FILE = /^kq-\d{4}\.png$/;
 
-// A folder may be reused only if it is new, empty or an earlier demo; stale frames of a longer earlier
-// demo are removed so the folder pairs up exactly.
+/** What a demo folder holds at its top level; a folder holding anything else is not overwritten. */
+const TOP = new Set(['images', 'truth', 'predictions', 'classes.json', 'answer-key.json']);
+
+// A folder may be reused only if it is new, empty or holds nothing but an earlier (maybe unfinished)
+// demo; stale frames of a longer earlier demo are removed so the folder pairs up exactly.
 async function folderPrepare(dir: string, o: DemoOptions): Promise<Result<void>> {
   const info = await stat(dir).catch(() => null);
   if (info && !info.isDirectory()) return fail(dir, 'exists and is not a folder');
   if (info) {
-    const entries = await readdir(dir);
-    if (entries.length > 0 && !entries.includes('answer-key.json')) {
-      return fail(dir, 'is not empty and holds no earlier demo (no answer-key.json); choose a new or empty folder');
+    const other = (await readdir(dir)).filter((e) => !TOP.has(e));
+    if (other.length > 0) {
+      return fail(dir, `holds files that are not a demo (${other.slice(0, 3).join(', ')}${other.length > 3 ? ', …' : ''}); choose a new or empty folder`);
     }
   }
   const keep = new Set(Array.from({ length: o.frames }, (_, i) => `${demoFrameName(i)}.png`));
@@ -43,8 +46,17 @@ async function folderPrepare(dir: string, o: DemoOptions): Promise<Result<void>>
   return ok(undefined);
 }
 
-/** Writes the demo dataset into `dir`; returns a summary, or why the folder cannot be used. */
+/** Writes the demo dataset into `dir`; returns a summary, or why the folder cannot be used or written. */
 export async function demoDatasetWrite(dir: string, o: DemoOptions, threads = Math.min(4, availableParallelism())): Promise<Result<DemoWriteSummary>> {
+  try {
+    return await datasetWrite(dir, o, threads);
+  } catch (e) {
+    const err = e as NodeJS.ErrnoException;
+    return fail(err.path ?? dir, `could not be written (${err.code ?? err.message})`);
+  }
+}
+
+async function datasetWrite(dir: string, o: DemoOptions, threads: number): Promise<Result<DemoWriteSummary>> {
   const start = performance.now();
   const ready = await folderPrepare(dir, o);
   if (!ready.ok) return ready;

@@ -89,10 +89,19 @@ describe('demoDatasetWrite', () => {
     await mkdir(other);
     await writeFile(join(other, 'notes.txt'), 'mine');
     const refused = await demoDatasetWrite(other, O, 1);
-    expect(refused).toEqual({ ok: false, error: `${other}: is not empty and holds no earlier demo (no answer-key.json); choose a new or empty folder` });
+    expect(refused).toEqual({ ok: false, error: `${other}: holds files that are not a demo (notes.txt); choose a new or empty folder` });
     expect(await readFile(join(other, 'notes.txt'), 'utf8')).toBe('mine');
     const shorter = await demoDatasetWrite(join(root, 'one'), { ...O, frames: 3 }, 1);
     expect(shorter.ok).toBe(true);
     expect((await tree(join(root, 'one'))).truth).toEqual(['kq-0001.png', 'kq-0002.png', 'kq-0003.png']);
+  });
+
+  it('says which path could not be written, rather than throwing', async () => {
+    const file = join(root, 'a-file');
+    await writeFile(file, 'x');
+    expect(await demoDatasetWrite(file, O, 1)).toEqual({ ok: false, error: `${file}: exists and is not a folder` });
+    const r = await demoDatasetWrite(join(file, 'below'), O, 1);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.error).toMatch(/a-file.*: could not be written \((ENOTDIR|EEXIST)\)$/);
   });
 });
