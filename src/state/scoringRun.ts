@@ -29,7 +29,10 @@ export async function frameScoreRequest(
     pairing.runs.map(async (run) => ({ run, file: await blobOf(source, `predictions/${run}`, frame.predictions[run]).catch(() => null) })),
   );
   const photo = await blobOf(source, 'images', frame.image).catch(() => null);
-  return { name: frame.name, truth, preds, photo, table, settings };
+  const confidence = await Promise.all(
+    Object.entries(frame.confidence).map(async ([run, path]) => ({ run, file: await blobOf(source, `confidence/${run}`, path).catch(() => null) })),
+  );
+  return { name: frame.name, truth, preds, photo, confidence, table, settings };
 }
 
 function failedResult(frame: FrameFiles, runs: string[], error: string): FrameJobResult {

@@ -1,9 +1,10 @@
 import type { ClassTable } from '../core/classTable.ts';
-import { frameJobScore, type FileBytes, type FrameJobResult } from '../core/frameJob.ts';
+import { frameJobScore, type FileBytes, type FrameJobResult, type PhotoPixels } from '../core/frameJob.ts';
 import type { FrameStats } from '../core/metrics/frameScore.ts';
 import { scoreScratchCreate } from '../core/metrics/scratch.ts';
 import { regionScratchCreate } from '../core/regions/regionScratch.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
+import { photoDecode } from './photoDecode.ts';
 import { buffersOf, type JobOutput } from './protocol.ts';
 
 /** Commands the scoring worker answers. */
@@ -21,6 +22,8 @@ export interface FrameScoreRequest {
   truth: FileBlob;
   preds: { run: string; file: FileBlob | null }[];
   photo: FileBlob | null;
+  /** Per run: its confidence map, if the dataset has one. */
+  confidence?: { run: string; file: FileBlob | null }[];
   table: ClassTable;
   settings: ScoreSettings;
 }
@@ -63,7 +66,26 @@ export const scoreJobs = {
       input.preds.map(async (p) => ({ run: p.run, file: p.file ? await bytesOf(p.file).catch(() => null) : null })),
     );
     const photo = input.photo ? await bytesOf(input.photo).catch(() => null) : null;
-    const value = frameJobScore({ name: input.name, truth, preds, photo, table: input.table, settings: input.settings }, scratch, regionScratch);
+    // The photo's pixels feed the image evidence of error regions; a photo the browser cannot decode
+    // only loses that evidence (the job says so in its warnings).
+    const warnings: string[] = [];
+    let photoRgba: PhotoPixels | null = null;
+    if (input.photo) {
+      try {
+        photoRgba = { file: input.photo.file, ...(await photoDecode(input.photo.blob)) };
+      } catch {
+        warnings.push(`${input.photo.file}: the browser could not decode this image; no image evidence for this frame`);
+      }
+    }
+    const confidence = await Promise.all(
+      (input.confidence ?? []).map(async (c) => ({ run: c.run, file: c.file ? await bytesOf(c.file).catch(() => null) : null })),
+    );
+    const value = frameJobScore(
+      { name: input.name, truth, preds, photo, photoRgba, confidence, table: input.table, settings: input.settings },
+      scratch,
+      regionScratch,
+    );
+    if (warnings.length) value.warnings = [...(value.warnings ?? []), ...warnings];
     return { value, transfer: frameResultBuffers(value) };
   },
 };

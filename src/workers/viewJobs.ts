@@ -7,6 +7,7 @@ import type { CompositeFrame } from '../core/composite/compositeFrame.ts';
 import type { CompositePalette } from '../core/composite/compositePalette.ts';
 import { frameComposite } from '../core/composite/frameComposite.ts';
 import type { LayerSettings } from '../core/composite/layerSettings.ts';
+import { photoDecode } from './photoDecode.ts';
 import { buffersOf, type JobOutput } from './protocol.ts';
 import type { FileBlob } from './scoreJobs.ts';
 
@@ -41,17 +42,6 @@ export interface DecodedFrame {
   notes: string[];
   photo: Uint8Array | null;
   bandBins: Uint8Array | null;
-}
-
-/** Returns RGBA bytes of a photo decoded by the browser (createImageBitmap works in workers). */
-async function photoDecode(blob: Blob): Promise<{ width: number; height: number; rgba: Uint8Array }> {
-  const bitmap = await createImageBitmap(blob, { colorSpaceConversion: 'none', premultiplyAlpha: 'none' });
-  const canvas = new OffscreenCanvas(bitmap.width, bitmap.height);
-  const ctx = canvas.getContext('2d', { willReadFrequently: true })!;
-  ctx.drawImage(bitmap, 0, 0);
-  bitmap.close();
-  const data = ctx.getImageData(0, 0, canvas.width, canvas.height).data;
-  return { width: canvas.width, height: canvas.height, rgba: new Uint8Array(data.buffer, data.byteOffset, data.byteLength) };
 }
 
 async function bytes(f: FileBlob): Promise<Uint8Array> {
