@@ -10,7 +10,7 @@ import { UsageError } from './args.ts';
 import { progressCreate } from './progress.ts';
 import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
 import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
-import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect } from './scoreRegions.ts';
+import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect, type ReportVoidSpill } from './scoreRegions.ts';
 import { framesCsv, summaryText, textWrite, type FrameCsvRow } from './scoreReportWrite.ts';
 import { threadPortCreate } from './threadPort.ts';
 
@@ -88,7 +88,7 @@ async function run(options: ScoreOptions): Promise<number> {
   const classesOf = (t: DatasetTotals) => (generated ? t.classIds.map((id) => ({ id, name: String(id) })) : table.classes);
   const reports = runs.map((r) => scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]));
   const report: Omit<ScoreReport, 'frames'> & {
-    frames: (ReportFrameLine & { regions?: ReportRegion[] | null })[];
+    frames: (ReportFrameLine & { regions?: ReportRegion[] | null; voidSpill?: ReportVoidSpill | null })[];
     runs?: Record<string, ScoreReport['dataset']>;
     unpaired?: unknown;
     suspects?: ReportSuspect[];
@@ -96,7 +96,10 @@ async function run(options: ScoreOptions): Promise<number> {
   const runBlocks = Object.fromEntries(runs.map((r, i) => [r, reports[i].dataset]));
   if (runs.length > 1) report.runs = runBlocks;
   report.unpaired = pairing.unpaired;
-  report.frames.forEach((f, i) => (f.regions = regions.lines[i]));
+  report.frames.forEach((f, i) => {
+    f.regions = regions.lines[i];
+    f.voidSpill = regions.voidSpill[i];
+  });
   const names = new Map(table.classes.map((c) => [c.id, c.name]));
   report.suspects = regionGatherSuspects(regions, (id) => names.get(id) ?? String(id));
   const json = JSON.stringify(report, null, 2) + '\n';

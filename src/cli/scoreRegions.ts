@@ -19,6 +19,12 @@ export interface ReportRegion {
   bbox: [number, number, number, number];
 }
 
+/** The first run's void spill on a frame: pixels where the truth is void and it predicts a class, and those areas of at least minArea pixels. */
+export interface ReportVoidSpill {
+  pixels: number;
+  regions: { predictedClass: number; area: number; bbox: [number, number, number, number] }[];
+}
+
 /** One entry of the report's `suspects`, keys as README "Scoring headless" lists them. */
 export interface ReportSuspect {
   frame: string;
@@ -39,11 +45,15 @@ export interface RegionGather {
   confidence: ConfidenceSums;
   /** Per frame: the first run's listed regions, or null when it has none (failed, or no prediction). */
   lines: (ReportRegion[] | null)[];
+  voidSpill: (ReportVoidSpill | null)[];
 }
 
 /** Returns an empty gatherer for `frames` frames with a queue of `queueMax` entries. */
 export function regionGatherCreate(frames: number, queueMax: number): RegionGather {
-  return { settings: { ...SUSPECT_DEFAULTS, queueMax }, candidates: [], grids: new Array(frames).fill(null), confidence: new Map(), lines: new Array(frames).fill(null) };
+  return {
+    settings: { ...SUSPECT_DEFAULTS, queueMax }, candidates: [], grids: new Array(frames).fill(null), confidence: new Map(),
+    lines: new Array(frames).fill(null), voidSpill: new Array(frames).fill(null),
+  };
 }
 
 /** Takes what the report needs from frame `index`'s result (`firstRun` names the report's run). */
@@ -55,6 +65,7 @@ export function regionGatherAdd(g: RegionGather, index: number, result: FrameJob
   g.lines[index] = first?.regions
     ? first.regions.regions.map((r) => ({ kind: r.kind, truthClass: r.truthClass, predictedClass: r.predictedClass, area: r.area, bbox: r.bbox }))
     : null;
+  g.voidSpill[index] = first?.regions ? { pixels: first.regions.voidSpill.pixels, regions: first.regions.voidSpill.regions } : null;
 }
 
 /** Returns the likely-label-mistake queue over every run, best first, in the report's shape. */
