@@ -4,6 +4,7 @@
 import { createWriteStream } from 'node:fs';
 import { readFile, rename, rm, writeFile } from 'node:fs/promises';
 import { basename } from 'node:path';
+import { deflateSync } from 'node:zlib';
 import { tilesExport, type TilesExportProgress } from '../core/export/tilesExport.ts';
 import type { ZipSink } from '../core/export/zipStream.ts';
 import { flagsSelect } from '../core/review/flagsFilter.ts';
@@ -83,6 +84,7 @@ async function run(o: ExportOptions): Promise<number> {
   const result = await tilesExport({
     dataset, flags, runs: ds.pairing.runs, table: ds.table, mode: o.mode, source: exportSourceFromFolders(ds, o), sink,
     frameOrder: ds.pairing.frames.map((f) => f.name), onProgress: progressWriter(), signal: ac.signal,
+    compress: (data) => new Uint8Array(deflateSync(data, { level: 6 })),
   });
   process.off('SIGINT', onSigint);
   if (process.stderr.isTTY) process.stderr.write('\n');

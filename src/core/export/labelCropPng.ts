@@ -1,8 +1,9 @@
 import { colorToRgb24, type ClassTable } from '../classTable.ts';
 import type { LabelMap } from '../labelMap.ts';
 import type { LabelSourceEncoding } from '../png/decodeLabel.ts';
-import { labelMapToPng, rgbaToPng, type ZlibCompress } from '../png/encode.ts';
+import { labelMapToPng, type ZlibCompress } from '../png/encode.ts';
 import { fail, ok, type Result } from '../result.ts';
+import { rgbaToPngFast } from './rgbPng.ts';
 
 /** Returns a short name of how a label PNG stores ids: gray1..gray16, palette1..palette8, rgb. */
 export function labelEncodingName(e: LabelSourceEncoding): string {
@@ -26,14 +27,14 @@ export function labelCropToPng(crop: LabelMap, encoding: LabelSourceEncoding, ta
     if (encoding.kind === 'palette') {
       return ok({ png: labelMapToPng(crop, { kind: 'palette', colors: encoding.colors }, compress), written: 'palette8' });
     }
-    return rgbCrop(crop, table);
+    return rgbCrop(crop, table, compress);
   } catch (e) {
     return fail('', `could not be written as a label PNG (${(e as Error).message})`);
   }
 }
 
 /** Returns the crop colour-coded through the table. Hot loop: one look-up per pixel in a flat table. */
-function rgbCrop(crop: LabelMap, table: ClassTable): Result<{ png: Uint8Array; written: string }> {
+function rgbCrop(crop: LabelMap, table: ClassTable, compress?: ZlibCompress): Result<{ png: Uint8Array; written: string }> {
   const colour = new Int32Array(65536).fill(-1);
   for (const c of table.classes) colour[c.id] = colorToRgb24(c.color);
   if (table.ignoreColor) colour[table.ignore] = colorToRgb24(table.ignoreColor);
@@ -47,5 +48,5 @@ function rgbCrop(crop: LabelMap, table: ClassTable): Result<{ png: Uint8Array; w
     rgba[o + 2] = c & 255;
     rgba[o + 3] = 255;
   }
-  return ok({ png: rgbaToPng(crop.width, crop.height, rgba), written: 'rgb' });
+  return ok({ png: rgbaToPngFast(crop.width, crop.height, rgba, compress), written: 'rgb' });
 }

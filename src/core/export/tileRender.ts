@@ -5,11 +5,12 @@ import { frameComposite } from '../composite/frameComposite.ts';
 import { layerSettingsDefault } from '../composite/layerSettings.ts';
 import { labelMapIdCounts, type LabelMap } from '../labelMap.ts';
 import type { DecodedLabelMap } from '../png/decodeLabel.ts';
-import { rgbaToPng } from '../png/encode.ts';
+import type { ZlibCompress } from '../png/encode.ts';
 import { fail, ok, type Result } from '../result.ts';
 import type { Flag, FlagBox } from '../review/flag.ts';
 import { labelMapCrop, rgbaCrop } from './crop.ts';
 import { labelCropToPng, labelEncodingName } from './labelCropPng.ts';
+import { rgbaToPngFast } from './rgbPng.ts';
 import type { TileRow } from './tileRows.ts';
 import { zipNamePart, zipNamesUnique } from './zipNames.ts';
 
@@ -37,6 +38,8 @@ export interface TileContext {
   table: ClassTable;
   palette: CompositePalette;
   runs: readonly string[];
+  /** A faster zlib where there is one (Node's); the bytes decode the same. */
+  compress?: ZlibCompress;
 }
 
 /** Returns the count of valid pixels (truth not void) where the prediction differs. Hot loop: flat arrays. */
@@ -62,7 +65,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
   const files: TileFile[] = [];
   const notes = [...frame.notes];
   const truthCrop = labelMapCrop(frame.truth, box);
-  const truthPng = labelCropToPng(truthCrop, frame.truth.encoding, ctx.table);
+  const truthPng = labelCropToPng(truthCrop, frame.truth.encoding, ctx.table, ctx.compress);
   if (!truthPng.ok) return fail('', `ground truth ${truthPng.error}`);
   files.push({ path: `${dir}truth.png`, bytes: truthPng.value.png });
   const truthCounts = new Map(labelMapIdCounts(truthCrop).map((c) => [c.id, c.count]));
@@ -75,7 +78,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
     const map = frame.preds[run];
     if (!map) continue;
     const crop = labelMapCrop(map, box);
-    const png = labelCropToPng(crop, map.encoding, ctx.table);
+    const png = labelCropToPng(crop, map.encoding, ctx.table, ctx.compress);
     if (!png.ok) {
       notes.push(`run "${run}": prediction ${png.error}`);
       continue;
@@ -89,7 +92,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
   let photo: string | null = null;
   if (frame.photo) {
     photo = `${dir}photo.png`;
-    files.push({ path: photo, bytes: rgbaToPng(truthCrop.width, truthCrop.height, rgbaCrop(frame.photo, frame.width, box)) });
+    files.push({ path: photo, bytes: rgbaToPngFast(truthCrop.width, truthCrop.height, rgbaCrop(frame.photo, frame.width, box), ctx.compress) });
   } else notes.push('no photo for this frame');
 
   const run = overlayRunOf(flag, frame, ctx.runs);
@@ -103,7 +106,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
   let overlay: TileRow['overlay'] = null;
   if (rgba.ok) {
     overlay = { file: `${dir}overlay.png`, run };
-    files.push({ path: overlay.file, bytes: rgbaToPng(rect.width, rect.height, rgba.value) });
+    files.push({ path: overlay.file, bytes: rgbaToPngFast(rect.width, rect.height, rgba.value, ctx.compress) });
   } else notes.push(`overlay not drawn: ${rgba.error}`);
 
   const classes = [...ids].sort((a, b) => a - b).map((id) => ({

@@ -1,5 +1,6 @@
 import { CLASS_ID_MAX, classTableGenerated, type ClassTable } from '../classTable.ts';
 import { compositePaletteFromTable } from '../composite/compositePalette.ts';
+import type { ZlibCompress } from '../png/encode.ts';
 import { fail, ok, type Result } from '../result.ts';
 import type { Flag } from '../review/flag.ts';
 import type { FlagsFileDataset } from '../review/flagsFile.ts';
@@ -39,6 +40,8 @@ export interface TilesExportOptions {
   frameOrder?: readonly string[];
   onProgress?: (p: TilesExportProgress) => void;
   signal?: AbortSignal;
+  /** A faster zlib where there is one (Node's); the PNGs decode to the same pixels. */
+  compress?: ZlibCompress;
   /** Export time, ms since the epoch (default now). */
   now?: number;
 }
@@ -77,7 +80,7 @@ export async function tilesExport(o: TilesExportOptions): Promise<Result<TilesEx
   const table = o.table;
   // Without a class table every id gets its generated colour, so disagreement shows as "another class".
   const palette = compositePaletteFromTable(table.generated ? classTableGenerated(CLASS_ID_MAX, table.ignore) : table);
-  const ctx = { table, palette, runs: o.runs };
+  const ctx = { table, palette, runs: o.runs, compress: o.compress };
   const rows: TileRow[] = [];
   const failed: TileFailure[] = [];
   const uniqueTile = zipNamesUnique();
