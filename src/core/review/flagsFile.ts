@@ -5,7 +5,7 @@ import { flagFromV1 } from './reviewMigrate.ts';
 import { verdictFromJson, type SuspectVerdict } from './verdict.ts';
 
 /**
- * The flags file (our own schema, documented in README "Flags files"):
+ * The flags file (our own schema, documented in README "Flags and the tile export"):
  * `{ "format": "hairline-flags", "version": 2, "dataset": { "key", "title", "frames" }, "exportedAt",
  *    "flags": [{ id, frame, kind, bbox, reason, note, run, createdAt, updatedAt, region? }], "verdicts": [...] }`
  * with times as ISO 8601 strings (numbers of ms are read too). Version 1 files hold layout-1 flags.
