@@ -49,7 +49,7 @@ beforeAll(() => {
     if (!r.ok) throw new Error(r.error);
   };
   add({ frame: 'kq-0001', kind: 'rect', bbox: [300, 140, 320, 160], reason: 'label-mistake', note: 'corner, "edge"', run: 'run-b' });
-  add({ frame: 'kq-0002', kind: 'region', bbox: [60, 40, 120, 90], reason: 'model-error', run: 'run-a', region: { kind: 'suspect', truthClass: 5, predClass: 2, score: 0.9, reasons: ['compact'] } });
+  add({ frame: 'kq-0002', kind: 'region', bbox: [60, 40, 120, 90], reason: 'model-error', run: 'run-a', region: { kind: 'suspect', truthClass: 5, predictedClass: 2, score: 0.9, reasons: ['compact'] } });
   add({ frame: 'kq-0003', kind: 'frame', bbox: null, reason: 'yard tags', note: '' });
   const text = s.flagsExportText();
   const json = JSON.parse(text);
@@ -106,7 +106,7 @@ describe('npm run export', () => {
       expect(t.photo).not.toBeNull();
       expect(t.overlay?.run).toBe(t.flagRun ?? 'run-a');
     }
-    expect(m.tiles[1].region).toEqual({ kind: 'suspect', truthClass: 5, predClass: 2, score: 0.9, reasons: ['compact'] });
+    expect(m.tiles[1].region).toEqual({ kind: 'suspect', truthClass: 5, predictedClass: 2, score: 0.9, reasons: ['compact'] });
     const ref = zipTilesRef(out);
     expect(ref.bad).toBeNull();
     expect(ref.rows.map((c) => [c.tile, c.frame, c.reason, c.note, c.x0, c.y0, c.x1, c.y1, c.truth_file])).toEqual(

@@ -101,7 +101,7 @@ describe('review slice: flags and verdicts with undo/redo', () => {
   it('verdicts set, change and clear by suspect key, undoably', () => {
     const store = storeWith(['a']);
     const s = () => store.getState();
-    const ref = { frame: 'a', run: 'r', bbox: [1, 1, 5, 5] as const, truthClass: 1, predClass: 2 };
+    const ref = { frame: 'a', run: 'r', bbox: [1, 1, 5, 5] as const, truthClass: 1, predictedClass: 2 };
     expect(s().verdictSet(ref, 'label-mistake').ok).toBe(true);
     expect(verdictOf(s(), { ...ref, bbox: [1, 1, 5, 5] })?.verdict).toBe('label-mistake');
     s().verdictSet(ref, 'model-error');
@@ -117,7 +117,7 @@ describe('review slice: flags and verdicts with undo/redo', () => {
     const a = storeWith(['a', 'b']);
     a.getState().flagAdd({ frame: 'a', kind: 'rect', bbox: [0, 0, 9, 9], reason: 'label-mistake', note: 'x' });
     a.getState().flagAdd({ frame: 'b', kind: 'frame', bbox: null, reason: 'unsure' });
-    a.getState().verdictSet({ frame: 'b', run: null, bbox: [0, 0, 1, 1], truthClass: null, predClass: 3 }, 'unsure');
+    a.getState().verdictSet({ frame: 'b', run: null, bbox: [0, 0, 1, 1], truthClass: null, predictedClass: 3 }, 'unsure');
     const text = a.getState().flagsExportText();
     const b = storeWith(['a', 'b']);
     const r = b.getState().flagsImport(text, 'flags.json');

@@ -81,7 +81,7 @@ export function tileCsvValues(r: TileRow): (string | number | null)[] {
     r.tile, r.frame, r.frameWidth, r.frameHeight, r.flagId, r.flagKind, r.reason, r.note, r.flagRun,
     fb?.[0] ?? null, fb?.[1] ?? null, fb?.[2] ?? null, fb?.[3] ?? null, r.box[0], r.box[1], r.box[2], r.box[3], r.part, r.parts,
     r.classes.map((c) => (c.name === null ? String(c.id) : `${c.id}:${c.name}`)).join('; '),
-    r.region?.kind ?? null, r.region?.truthClass ?? null, r.region?.predClass ?? null, r.region?.score ?? null,
+    r.region?.kind ?? null, r.region?.truthClass ?? null, r.region?.predictedClass ?? null, r.region?.score ?? null,
     r.region ? r.region.reasons.join('; ') : null, r.photo, r.truth.file, r.truth.source, r.truth.written,
     r.preds.map((p) => `${p.run}=${p.file}`).join('; '), r.preds.map((p) => `${p.run}=${p.wrongPixels}`).join('; '),
     r.overlay?.file ?? null, r.overlay?.run ?? null, r.notes.join('; '),

@@ -30,7 +30,7 @@ export interface FlagRegion {
   /** Ground-truth class id inside the region, or null. */
   truthClass: number | null;
   /** Predicted class id inside the region, or null. */
-  predClass: number | null;
+  predictedClass: number | null;
   /** The finder's score for the region (its own scale), or null. */
   score: number | null;
   /** Short reasons the finder gave. */

@@ -59,15 +59,15 @@ function classIdOrNull(v: unknown): boolean {
 
 /** Returns the region details checked, or why they are unusable. */
 export function flagRegionCheck(v: unknown): Result<FlagRegion> {
-  if (!isPlainObject(v)) return fail('', 'must be an object { kind, truthClass, predClass, score, reasons }');
+  if (!isPlainObject(v)) return fail('', 'must be an object { kind, truthClass, predictedClass, score, reasons }');
   if (typeof v.kind !== 'string' || v.kind === '') return fail('', `"kind" must be a non-empty string, got ${JSON.stringify(v.kind)}`);
-  const truthClass = v.truthClass ?? null, predClass = v.predClass ?? null, score = v.score ?? null;
+  const truthClass = v.truthClass ?? null, predictedClass = v.predictedClass ?? null, score = v.score ?? null;
   if (!classIdOrNull(truthClass)) return fail('', `"truthClass" must be a class id 0..65535 or null, got ${JSON.stringify(v.truthClass)}`);
-  if (!classIdOrNull(predClass)) return fail('', `"predClass" must be a class id 0..65535 or null, got ${JSON.stringify(v.predClass)}`);
+  if (!classIdOrNull(predictedClass)) return fail('', `"predictedClass" must be a class id 0..65535 or null, got ${JSON.stringify(v.predictedClass)}`);
   if (score !== null && (typeof score !== 'number' || !Number.isFinite(score))) return fail('', `"score" must be a number or null, got ${JSON.stringify(v.score)}`);
   const reasons = v.reasons ?? [];
   if (!Array.isArray(reasons) || !reasons.every((r) => typeof r === 'string')) return fail('', '"reasons" must be an array of strings');
-  return ok({ kind: v.kind, truthClass: truthClass as number | null, predClass: predClass as number | null, score: score as number | null, reasons: [...reasons] });
+  return ok({ kind: v.kind, truthClass: truthClass as number | null, predictedClass: predictedClass as number | null, score: score as number | null, reasons: [...reasons] });
 }
 
 /**

@@ -47,7 +47,7 @@ export function flagsFileText(dataset: FlagsFileDataset, flags: readonly Flag[],
       createdAt: iso(f.createdAt), updatedAt: iso(f.updatedAt), ...(f.region ? { region: f.region } : {}),
     })),
     verdicts: verdicts.map((v) => ({
-      key: v.key, frame: v.frame, run: v.run, bbox: v.bbox, truthClass: v.truthClass, predClass: v.predClass,
+      key: v.key, frame: v.frame, run: v.run, bbox: v.bbox, truthClass: v.truthClass, predictedClass: v.predictedClass,
       verdict: v.verdict, updatedAt: iso(v.updatedAt),
     })),
   };

@@ -12,7 +12,7 @@ export interface SuspectRef {
   run: string | null;
   bbox: FlagBox;
   truthClass: number | null;
-  predClass: number | null;
+  predictedClass: number | null;
 }
 
 /** A verdict on one suspect item, keyed by `suspectKey` of its ref. */
@@ -28,7 +28,7 @@ export interface SuspectVerdict extends SuspectRef {
  * whenever the queue is rebuilt (a JSON array, so no field can bleed into another).
  */
 export function suspectKey(ref: SuspectRef): string {
-  return JSON.stringify([ref.frame, ref.run, [...ref.bbox], ref.truthClass, ref.predClass]);
+  return JSON.stringify([ref.frame, ref.run, [...ref.bbox], ref.truthClass, ref.predictedClass]);
 }
 
 function classIdOrNull(v: unknown): v is number | null {
@@ -45,11 +45,11 @@ export function verdictFromJson(v: unknown, where: string): Result<SuspectVerdic
   if (run !== null && (typeof run !== 'string' || run === '')) return bad(`"run" must be a run name or null, got ${JSON.stringify(o.run)}`);
   const box = flagBoxCheck(o.bbox);
   if (!box.ok) return bad(`"bbox" ${box.error}`);
-  const truthClass = o.truthClass ?? null, predClass = o.predClass ?? null;
-  if (!classIdOrNull(truthClass) || !classIdOrNull(predClass)) return bad('"truthClass" and "predClass" must be class ids 0..65535 or null');
+  const truthClass = o.truthClass ?? null, predictedClass = o.predictedClass ?? null;
+  if (!classIdOrNull(truthClass) || !classIdOrNull(predictedClass)) return bad('"truthClass" and "predictedClass" must be class ids 0..65535 or null');
   if (!(SUSPECT_VERDICTS as readonly unknown[]).includes(o.verdict)) return bad(`"verdict" must be one of ${SUSPECT_VERDICTS.join(', ')}, got ${JSON.stringify(o.verdict)}`);
   if (typeof o.updatedAt !== 'number' || !Number.isFinite(o.updatedAt) || o.updatedAt < 0) return bad('"updatedAt" must be milliseconds since 1970');
-  const ref: SuspectRef = { frame: o.frame, run: run as string | null, bbox: box.value, truthClass, predClass };
+  const ref: SuspectRef = { frame: o.frame, run: run as string | null, bbox: box.value, truthClass, predictedClass };
   const key = suspectKey(ref);
   if (o.key !== undefined && o.key !== key) return bad(`"key" ${JSON.stringify(o.key)} does not match its frame, run, box and classes (${key})`);
   return ok({ ...ref, key, verdict: o.verdict as SuspectVerdictKind, updatedAt: o.updatedAt });

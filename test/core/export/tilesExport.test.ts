@@ -30,7 +30,7 @@ function flag(id: string, frame: string, over: Partial<Flag> = {}): Flag {
 }
 const FLAGS: Flag[] = [
   flag('edge', 'f-gray8', { bbox: [90, 55, 97, 61], note: NOTE, run: 'run-b' }),
-  flag('region-1', 'f-gray8', { kind: 'region', bbox: [40, 20, 52, 33], reason: 'model-error', region: { kind: 'suspect', truthClass: 2, predClass: 300, score: 0.75, reasons: ['compact', 'one class'] } }),
+  flag('region-1', 'f-gray8', { kind: 'region', bbox: [40, 20, 52, 33], reason: 'model-error', region: { kind: 'suspect', truthClass: 2, predictedClass: 300, score: 0.75, reasons: ['compact', 'one class'] } }),
   flag('whole', NASTY_FRAME, { kind: 'frame', bbox: null, reason: 'crane tags', note: '../../x\\y' }),
   flag('rgb-1', 'f-rgb', { bbox: [0, 0, 8, 8], run: 'run-a' }),
   flag('lost', 'not-here'),
@@ -171,7 +171,7 @@ describe('tilesExport: crops around each flag, label crops exact in the source e
       expect([c.frame_width, c.frame_height, c.part, c.parts].map(Number)).toEqual([t.frameWidth, t.frameHeight, t.part, t.parts]);
       expect([c.truth_file, c.truth_source_encoding, c.truth_encoding, c.photo_file, c.overlay_file]).toEqual([t.truth.file, t.truth.source, t.truth.written, s(t.photo), s(t.overlay?.file)]);
       expect(c.pred_files).toBe(t.preds.map((p) => `${p.run}=${p.file}`).join('; '));
-      expect([c.region_kind, c.score, c.truth_class, c.pred_class]).toEqual([s(t.region?.kind), s(t.region?.score), s(t.region?.truthClass), s(t.region?.predClass)]);
+      expect([c.region_kind, c.score, c.truth_class, c.pred_class]).toEqual([s(t.region?.kind), s(t.region?.score), s(t.region?.truthClass), s(t.region?.predictedClass)]);
     });
     expect(ref.rows[0].note).toBe(NOTE);
   });

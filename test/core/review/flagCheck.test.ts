@@ -48,10 +48,10 @@ describe('flagFromJson: every field of a stored or imported flag is checked', ()
 
   it('user-defined reasons are kept (trimmed); region details are copied', () => {
     expect(flagReasonCheck('  fence posts  ')).toEqual({ ok: true, value: 'fence posts' });
-    const region = { kind: 'suspect', truthClass: 3, predClass: 5, score: 0.82, reasons: ['compact', 'confident'] };
+    const region = { kind: 'suspect', truthClass: 3, predictedClass: 5, score: 0.82, reasons: ['compact', 'confident'] };
     const r = flagFromJson({ ...good, kind: 'region', region }, 'x');
     expect(r.ok && r.value.region).toEqual(region);
-    expect(flagRegionCheck({ kind: 'k' })).toEqual({ ok: true, value: { kind: 'k', truthClass: null, predClass: null, score: null, reasons: [] } });
+    expect(flagRegionCheck({ kind: 'k' })).toEqual({ ok: true, value: { kind: 'k', truthClass: null, predictedClass: null, score: null, reasons: [] } });
   });
 
   it('flagBoxCheck accepts a 1×1 box and refuses inverted ones', () => {
@@ -63,12 +63,12 @@ describe('flagFromJson: every field of a stored or imported flag is checked', ()
 
 describe('suspect keys and verdicts', () => {
   it('the key is the same for the same item and differs when any part differs, with no bleeding between fields', () => {
-    const ref = { frame: 'a', run: 'b,c', bbox: [1, 2, 3, 4] as const, truthClass: 1, predClass: 2 };
+    const ref = { frame: 'a', run: 'b,c', bbox: [1, 2, 3, 4] as const, truthClass: 1, predictedClass: 2 };
     expect(suspectKey(ref)).toBe(suspectKey({ ...ref, bbox: [1, 2, 3, 4] }));
     const others = [
       { ...ref, frame: 'a,b', run: 'c' },
       { ...ref, bbox: [1, 2, 3, 5] as const },
-      { ...ref, truthClass: 2, predClass: 1 },
+      { ...ref, truthClass: 2, predictedClass: 1 },
       { ...ref, run: null },
     ];
     const keys = new Set([ref, ...others].map(suspectKey));
@@ -76,9 +76,9 @@ describe('suspect keys and verdicts', () => {
   });
 
   it('verdictFromJson recomputes the key and refuses one that does not match', () => {
-    const v = { frame: 'a', run: null, bbox: [0, 0, 2, 2], truthClass: 1, predClass: null, verdict: 'model-error', updatedAt: 5 };
+    const v = { frame: 'a', run: null, bbox: [0, 0, 2, 2], truthClass: 1, predictedClass: null, verdict: 'model-error', updatedAt: 5 };
     const r = verdictFromJson(v, 'verdicts[0]');
-    expect(r.ok && r.value.key).toBe(suspectKey({ frame: 'a', run: null, bbox: [0, 0, 2, 2], truthClass: 1, predClass: null }));
+    expect(r.ok && r.value.key).toBe(suspectKey({ frame: 'a', run: null, bbox: [0, 0, 2, 2], truthClass: 1, predictedClass: null }));
     const bad = verdictFromJson({ ...v, key: 'other' }, 'verdicts[0]');
     expect(!bad.ok && bad.error).toMatch(/verdicts\[0\]: "key" "other" does not match/);
     const kind = verdictFromJson({ ...v, verdict: 'fine' }, 'verdicts[1]');

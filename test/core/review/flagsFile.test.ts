@@ -13,7 +13,7 @@ function flag(id: string, over: Partial<Flag> = {}): Flag {
   return { id, frame: 'kq-0001', kind: 'rect', bbox: [1, 2, 30, 40], reason: 'label-mistake', note: 'a "quoted", note\nwith a line', run: 'run-a', createdAt: T0, updatedAt: T0 + 5, ...over };
 }
 const VERDICT: SuspectVerdict = (() => {
-  const ref = { frame: 'kq-0002', run: 'run-b', bbox: [4, 4, 9, 9] as const, truthClass: 2, predClass: 5 };
+  const ref = { frame: 'kq-0002', run: 'run-b', bbox: [4, 4, 9, 9] as const, truthClass: 2, predictedClass: 5 };
   return { ...ref, key: suspectKey(ref), verdict: 'model-error', updatedAt: T0 + 9 };
 })();
 
@@ -25,7 +25,7 @@ function parseErr(text: string): string {
 
 describe('flags file: write, read back, and clear errors', () => {
   it('round-trips flags (region details included) and verdicts; times are ISO 8601 in the file', () => {
-    const flags = [flag('a'), flag('b', { kind: 'frame', bbox: null, reason: 'crane tags', run: null }), flag('c', { kind: 'region', region: { kind: 'suspect', truthClass: 1, predClass: 4, score: 0.5, reasons: ['r'] } })];
+    const flags = [flag('a'), flag('b', { kind: 'frame', bbox: null, reason: 'crane tags', run: null }), flag('c', { kind: 'region', region: { kind: 'suspect', truthClass: 1, predictedClass: 4, score: 0.5, reasons: ['r'] } })];
     const text = flagsFileText(DS, flags, [VERDICT], T0 + 60_000);
     const json = JSON.parse(text);
     expect(json.format).toBe('hairline-flags');
