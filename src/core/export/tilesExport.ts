@@ -66,6 +66,11 @@ function flagsByFrame(flags: readonly Flag[], order: readonly string[] | undefin
 
 const yieldToLoop = () => new Promise<void>((r) => setTimeout(r, 0));
 
+/** Limits of a ZIP without the ZIP64 extension (which fflate does not write): entries and bytes (APPNOTE.TXT §4.4.21, §4.4.8). */
+const ZIP_ENTRIES_MAX = 0xffff;
+/** Bytes kept free below 4 GiB for the manifest, the CSV and the central directory. */
+const ZIP_BYTES_MAX = 0xffffffff - 256 * 1024 * 1024;
+
 /**
  * Writes the chosen flags' tiles as one ZIP to `sink`, frame by frame (one decoded frame and one tile
  * in memory at a time): `tiles/<tile>/{photo,truth,pred-<run>,overlay}.png`, then `manifest.json` and
@@ -84,6 +89,7 @@ export async function tilesExport(o: TilesExportOptions): Promise<Result<TilesEx
   const rows: TileRow[] = [];
   const failed: TileFailure[] = [];
   const uniqueTile = zipNamesUnique();
+  let entries = 0;
   const progress: TilesExportProgress = { flagsDone: 0, flagsTotal: o.flags.length, tilesDone: 0, failed: 0, frame: null, bytes: 0 };
   const report = () => o.onProgress?.({ ...progress, failed: failed.length, bytes: zip.written() });
   const cancelled = () => {
@@ -115,6 +121,12 @@ export async function tilesExport(o: TilesExportOptions): Promise<Result<TilesEx
               failed.push({ frame: name, flagId: flag.id, reason: `tile ${i + 1} of ${boxes.value.length}: ${tile.error}` });
               continue;
             }
+            const size = tile.value.files.reduce((n, f) => n + f.bytes.length, 0);
+            if (entries + tile.value.files.length + 2 > ZIP_ENTRIES_MAX || zip.written() + size > ZIP_BYTES_MAX) {
+              zip.abort();
+              return fail('', `the export would exceed what one ZIP holds (65,535 files, 4 GiB) after ${rows.length} tiles; export fewer flags at a time (by reason or frame)`);
+            }
+            entries += tile.value.files.length;
             for (const f of tile.value.files) await zip.addStored(f.path, f.bytes);
             rows.push(tile.value.row);
             progress.tilesDone++;
