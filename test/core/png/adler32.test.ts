@@ -13,9 +13,9 @@ function adler32Reference(data: Uint8Array): number {
   return b * 65536 + a;
 }
 
-// Lengths around the 3,800-byte run, and all-0xff data, where the sums grow fastest.
+// Lengths around the 8-byte step and the 3,800-byte run, and all-0xff data, where the sums grow fastest.
 const rnd = seededRandom(1950);
-const inputs: Uint8Array[] = [0, 1, 3799, 3800, 3801, 7600, 100_003].map((n) => Uint8Array.from({ length: n }, () => Math.floor(rnd() * 256)));
+const inputs: Uint8Array[] = [0, 1, 7, 8, 9, 15, 3799, 3800, 3801, 7600, 100_003].map((n) => Uint8Array.from({ length: n }, () => Math.floor(rnd() * 256)));
 inputs.push(new Uint8Array(50_000).fill(255));
 
 describe('adler32', () => {

@@ -9,10 +9,13 @@ import { frameJobScore, scoringTable, type FrameJobResult } from '../../../src/c
 import { DEFAULT_SCORE_SETTINGS } from '../../../src/core/metrics/settings.ts';
 import { labelMapFromPng, type DecodedLabelMap } from '../../../src/core/png/decodeLabel.ts';
 import { photoFromPng } from '../../../src/core/png/decodePhoto.ts';
+import { pngRawSize } from '../../../src/core/png/adam7.ts';
 import { labelMapToPng } from '../../../src/core/png/encode.ts';
+import { pngBitsPerPixel, pngHeaderRead } from '../../../src/core/png/header.ts';
+import { pngInflate } from '../../../src/core/png/inflate.ts';
 import { type Result } from '../../../src/core/result.ts';
 import { FUZZ_RGB_TABLE, fuzzBases, type FuzzBase } from './fuzzBases.ts';
-import { testDeflateBomb } from './pngChunks.ts';
+import { testChunksOf, testDeflateBomb } from './pngChunks.ts';
 import { mutantMake, type Mutant } from './pngMutate.ts';
 import { referenceDecode } from './pngReference.ts';
 import { callTimed, errorClass, memoryWatch } from './fuzzWatch.ts';
@@ -114,6 +117,32 @@ describe(`fuzz: ${MUTANTS} mutants of ${bases.length} valid label PNGs (seed ${S
       else if (r.ok && r.value.rgba.length !== r.value.width * r.value.height * 4) problems.push(`#${i} RGBA length ${r.value.rgba.length}`);
     });
     expect(problems).toEqual([]);
+  });
+
+  it('the one-call and the stepped inflate give the same answer for every mutant stream', () => {
+    const problems: string[] = [];
+    let compared = 0;
+    mutants.forEach(({ m }, i) => {
+      const header = pngHeaderRead(m.bytes, 'f');
+      let parts: Uint8Array[];
+      try {
+        parts = testChunksOf(m.bytes).filter((c) => c.type === 'IDAT').map((c) => c.data);
+      } catch {
+        return; // not walkable as chunks: never reaches inflate
+      }
+      if (!header.ok || parts.length === 0) return;
+      const { width, height, interlace } = header.value;
+      const expected = pngRawSize(width, height, pngBitsPerPixel(header.value), interlace);
+      if (expected > 1e8) return;
+      const total = parts.reduce((n, p) => n + p.length, 0);
+      const whole = pngInflate(parts, total, expected, 'f', true);
+      const stepped = pngInflate(parts, total, expected, 'f', false);
+      compared++;
+      const same = whole.ok && stepped.ok ? whole.value.every((v, k) => v === stepped.value[k]) && whole.value.length === stepped.value.length : !whole.ok && !stepped.ok && whole.error === stepped.error;
+      if (!same) problems.push(`#${i} ${m.ops}: whole ${whole.ok ? 'ok' : whole.error} / stepped ${stepped.ok ? 'ok' : stepped.error}`);
+    });
+    expect(problems).toEqual([]);
+    expect(compared).toBeGreaterThan(MUTANTS / 2);
   });
 
   it("frameJobScore with each mutant as truth and as prediction: the decoder's error on that frame or run, or scores", () => {
