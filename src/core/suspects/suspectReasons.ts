@@ -84,7 +84,7 @@ export function suspectReasons(c: SuspectCandidate, s: SuspectSignals, weights: 
       ? `${c.run} is confident here: ${pct(s.confidence!)} of it at or above its usual confidence for ${pred} (${ctx.threshold!.toFixed(2)}; confident learning, Northcutt et al., JAIR 2021)`
       : `${c.run} is unsure here: only ${pct(s.confidence!)} of it reaches its usual confidence for ${pred} (${ctx.threshold!.toFixed(2)})`,
   );
-  add('image', s.image, () => imageText(c, s.image!));
+  if (c.edges) add('image', s.image, () => imageText(c, s.image!));
   add('geometry', s.geometry, () =>
     s.geometry >= 0.5
       ? `thick (${num(c.thickness)} px) and away from label boundaries (${pct(1 - c.bandShare)} of it more than ${ctx.bandWidth} px inside)`
