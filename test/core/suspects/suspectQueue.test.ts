@@ -1,14 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import type { SuspectCandidate } from '../../../src/core/suspects/suspectCandidates.ts';
 import { suspectQueue } from '../../../src/core/suspects/suspectQueue.ts';
-import { SUSPECT_DEFAULTS } from '../../../src/core/suspects/suspectSettings.ts';
+import { SUSPECT_DEFAULTS, type SuspectSettings } from '../../../src/core/suspects/suspectSettings.ts';
 import { candidateIndexBuild, steadyDisagreement } from '../../../src/core/suspects/steadyDisagreement.ts';
 import { CONFIDENCE_BINS } from '../../../src/core/regions/regionTypes.ts';
 
 // The queue's combination of signals, merging and wording, on hand-made candidates whose expected
 // scores follow from the formulas in README "Likely label mistakes" worked by hand.
 
-const S = { ...SUSPECT_DEFAULTS };
+const S: SuspectSettings = { ...SUSPECT_DEFAULTS };
 const NAMES: Record<number, string> = { 4: 'container', 5: 'crane', 6: 'truck', 2: 'quay' };
 const className = (id: number) => NAMES[id] ?? String(id);
 

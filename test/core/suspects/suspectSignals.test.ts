@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CONFIDENCE_BINS } from '../../../src/core/regions/regionTypes.ts';
-import { SUSPECT_DEFAULTS } from '../../../src/core/suspects/suspectSettings.ts';
+import { SUSPECT_DEFAULTS, type SuspectSettings } from '../../../src/core/suspects/suspectSettings.ts';
 import {
   histogramShareAtLeast, signalAgreement, signalConfidence, signalGeometry, signalImage,
 } from '../../../src/core/suspects/suspectSignals.ts';
@@ -9,7 +9,7 @@ import {
 // confidence signal is the confident-learning count (Northcutt, Jiang, Chuang, JAIR 70, 2021: a
 // sample counts towards the class whose per-class threshold t_j its predicted probability reaches).
 
-const S = { ...SUSPECT_DEFAULTS };
+const S: SuspectSettings = { ...SUSPECT_DEFAULTS };
 const hist = (entries: [number, number][]) => {
   const h = new Array(CONFIDENCE_BINS).fill(0);
   for (const [b, n] of entries) h[b] = n;
