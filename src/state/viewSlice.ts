@@ -28,6 +28,13 @@ export interface ViewSlice {
   /** Stepping through frames by itself at `playRate` frames per second. */
   playing: boolean;
   playRate: number;
+  /** A box to centre the viewer on (image pixels, end-exclusive) and outline; bumped `focusSeq` each time. */
+  focusBox: readonly [number, number, number, number] | null;
+  focusSeq: number;
+  /** Key (suspectKey) of the queue item being inspected, or null. */
+  queueSelected: string | null;
+  /** Which list the left pane shows. */
+  leftTab: 'frames' | 'queue' | 'flags';
   frameIndexSet(index: number): void;
   layersSet(patch: Partial<LayerSettings>): void;
   placeSet(place: ViewPlace | null): void;
@@ -37,6 +44,12 @@ export interface ViewSlice {
   helpOpenSet(v: boolean): void;
   playingSet(v: boolean): void;
   playRateSet(fps: number): void;
+  /** Goes to frame `index`, outlines `bbox` and centres and zooms the viewer on it. */
+  focusOn(index: number, bbox: readonly [number, number, number, number]): void;
+  focusClear(): void;
+  /** Selects a queue item: goes to its frame and focuses its box. */
+  queueSelect(key: string, frameIndex: number, bbox: readonly [number, number, number, number]): void;
+  leftTabSet(tab: 'frames' | 'queue' | 'flags'): void;
 }
 
 /** Returns the view slice of the app store (what is on screen and how). */
@@ -50,10 +63,18 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   helpOpen: false,
   playing: false,
   playRate: 4,
+  focusBox: null,
+  focusSeq: 0,
+  queueSelected: null,
+  leftTab: 'frames',
   frameIndexSet: (index) => {
     const count = get().dataset?.pairing.frames.length ?? 0;
     const clamped = count === 0 ? 0 : Math.max(0, Math.min(count - 1, Math.round(index)));
-    if (clamped !== get().frameIndex) set({ frameIndex: clamped });
+    if (clamped === get().frameIndex) return;
+    // An outline belongs to the frame it was drawn for.
+    const { highlight } = get().layers;
+    const layers = highlight.boxes.length ? { ...get().layers, highlight: { ...highlight, boxes: [] } } : get().layers;
+    set({ frameIndex: clamped, focusBox: null, layers });
   },
   layersSet: (patch) => set({ layers: { ...get().layers, ...patch } }),
   placeSet: (place) => set({ place }),
@@ -63,4 +84,19 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   helpOpenSet: (helpOpen) => set({ helpOpen }),
   playingSet: (playing) => set({ playing }),
   playRateSet: (fps) => set({ playRate: Math.max(0.5, Math.min(30, fps)) }),
+  focusOn: (index, bbox) => {
+    get().frameIndexSet(index);
+    const { highlight } = get().layers;
+    const box = { x: bbox[0], y: bbox[1], width: bbox[2] - bbox[0], height: bbox[3] - bbox[1] };
+    set({ focusBox: bbox, focusSeq: get().focusSeq + 1, layers: { ...get().layers, highlight: { ...highlight, on: true, boxes: [box] } } });
+  },
+  queueSelect: (key, frameIndex, bbox) => {
+    get().focusOn(frameIndex, bbox);
+    set({ queueSelected: key });
+  },
+  leftTabSet: (leftTab) => set({ leftTab }),
+  focusClear: () => {
+    const { highlight } = get().layers;
+    set({ focusBox: null, layers: { ...get().layers, highlight: { ...highlight, boxes: [] } } });
+  },
 });

@@ -5,15 +5,16 @@ import { downloadBlob } from './download.ts';
 import { BandCurve } from './BandCurve.tsx';
 import { CompareTab } from './CompareTab.tsx';
 import { ConfusionMap } from './ConfusionMap.tsx';
+import { RegionsTab } from './RegionsTab.tsx';
 import { SettingsTab } from './SettingsTab.tsx';
 import { pct } from './format.ts';
 import type { ScopeScores } from './scoreboardData.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 import { useScopes } from './useScopes.ts';
 
-const TABS = ['scores', 'confusion', 'band', 'compare', 'settings'] as const;
+const TABS = ['scores', 'regions', 'confusion', 'band', 'compare', 'settings'] as const;
 type Tab = (typeof TABS)[number];
-const TAB_NAMES: Record<Tab, string> = { scores: 'Scores', confusion: 'Confusion', band: 'Band curve', compare: 'A vs B', settings: 'Settings' };
+const TAB_NAMES: Record<Tab, string> = { scores: 'Scores', regions: 'Regions', confusion: 'Confusion', band: 'Band', compare: 'A / B', settings: 'Settings' };
 
 function Headline({ label, d, f }: { label: string; d: number | null | undefined; f: number | null | undefined }) {
   return (
@@ -139,6 +140,7 @@ export function Scoreboard() {
         {tab === 'band' && <BandCurve runA={run} runB={runB} a={dataset} aFrame={frame} b={scopesB.dataset} w={w} />}
         {tab === 'compare' && <CompareTab runA={run} runB={runB} />}
         {tab === 'settings' && <SettingsTab />}
+        {tab === 'regions' && <RegionsTab />}
       </div>
     </div>
   );

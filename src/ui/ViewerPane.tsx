@@ -22,8 +22,9 @@ function compositeFrameOf(f: DecodedFrame): CompositeFrame {
  * passed straight to it (it redraws at most once per animation frame). Without WebGL the same layers
  * are coloured by frameComposite in a view worker and shown as an image.
  */
-function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused: (message: string | null) => void): () => void {
+function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused: (message: string | null) => void, viewerHost: () => HTMLElement): () => void {
   let composing = 0;
+  let focusedSeq = -1;
   const recompose = () => {
     if (viewer.mode !== 'none') return;
     const s = store.getState();
@@ -53,6 +54,16 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused
         const v = viewer.viewGet();
         if (v.cx !== s.place.cx || v.cy !== s.place.cy || v.scale !== s.place.scale) viewer.viewSet(s.place);
       }
+    }
+    // Centre and zoom on a focused box once its frame is the one drawn.
+    if (s.focusBox && s.shown && s.shownIndex === s.frameIndex && (!prev || s.focusSeq !== prev.focusSeq || s.shown !== prev.shown) && focusedSeq !== s.focusSeq) {
+      focusedSeq = s.focusSeq;
+      const host = viewerHost();
+      const dpr = window.devicePixelRatio || 1;
+      const [x0, y0, x1, y1] = s.focusBox;
+      const bw = Math.max(8, x1 - x0), bh = Math.max(8, y1 - y0);
+      const scale = Math.max(0.05, Math.min(16, (host.clientWidth * dpr) / (bw * 3), (host.clientHeight * dpr) / (bh * 3)));
+      viewer.viewSet({ cx: (x0 + x1) / 2, cy: (y0 + y1) / 2, scale });
     }
     if (viewer.mode === 'none' && (!prev || s.shown !== prev.shown || s.layers !== prev.layers || s.dataset !== prev.dataset)) recompose();
   };
@@ -90,7 +101,7 @@ export function ViewerPane({ pool, onViewer }: { pool: WorkerPool; onViewer: (v:
       (v) => {
         if (cancelled) return v.destroy();
         made = v;
-        unbind = viewerBind(store, v, pool, setRefused);
+        unbind = viewerBind(store, v, pool, setRefused, () => host.current!);
         setViewer(v);
         onViewer(v);
         (window as unknown as { hairlineViewer?: Viewer }).hairlineViewer = v;

@@ -2,7 +2,7 @@ import { useCallback, useRef, useState } from 'react';
 import type { Viewer } from '../view/viewer.ts';
 import type { WorkerPool } from '../workers/pool.ts';
 import type { CommandContext } from './commands/registry.ts';
-import { FrameList } from './FrameList.tsx';
+import { LeftPane } from './LeftPane.tsx';
 import { HelpOverlay } from './HelpOverlay.tsx';
 import { LayerBar } from './LayerBar.tsx';
 import { filesOpen } from './OpenFolder.tsx';
@@ -75,7 +75,7 @@ export function Workspace({ viewPool }: { viewPool: WorkerPool }) {
       {hasDataset ? (
         <div className="panes">
           <aside className="left">
-            <FrameList />
+            <LeftPane />
           </aside>
           <section className="center">
             <LayerBar />

@@ -1,5 +1,13 @@
 import type { LayerKey } from '../../core/composite/layerSettings.ts';
 import { frameOrder } from '../../state/frameRows.ts';
+import { suspectKey, type SuspectVerdictKind } from '../../core/review/verdict.ts';
+import { suspectsOf } from '../../state/suspectsOf.ts';
+import type { Suspect } from '../../core/suspects/suspectQueue.ts';
+
+/** The verdict identity of a queue item. */
+function suspectRefOf(q: Suspect) {
+  return { frame: q.frame, run: q.run, bbox: q.bbox, truthClass: q.truthClass, predictedClass: q.predictedClass };
+}
 import type { AppState } from '../../state/store.ts';
 import type { Command, CommandContext } from './registry.ts';
 
@@ -28,6 +36,36 @@ function frameStepInOrder(ctx: CommandContext, step: number): void {
   const at = order.indexOf(s.frameIndex);
   const next = order[Math.max(0, Math.min(order.length - 1, (at < 0 ? -1 : at) + step))];
   if (next !== undefined) s.frameIndexSet(next);
+}
+
+/** Moves the queue selection by `step` (selecting the first item when none is selected). */
+function queueStep(ctx: CommandContext, step: number): void {
+  const s = ctx.store.getState();
+  const queue = suspectsOf(s);
+  if (queue.length === 0) return;
+  const keys = queue.map((q) => suspectKey(q));
+  const at = s.queueSelected ? keys.indexOf(s.queueSelected) : -1;
+  const next = at < 0 ? 0 : Math.max(0, Math.min(queue.length - 1, at + step));
+  const q = queue[next];
+  if (s.leftTab !== 'queue') s.leftTabSet('queue');
+  s.queueSelect(keys[next], q.frameIndex, q.bbox);
+}
+
+function verdictCommand(v: SuspectVerdictKind, label: string, key: string): Command {
+  return {
+    id: `verdict.${v}`,
+    label: `Judge the selected queue item: ${label} (again to clear)`,
+    group: 'Likely label mistakes',
+    keys: [key],
+    enabled: ({ store }) => store.getState().queueSelected !== null,
+    run: ({ store }) => {
+      const s = store.getState();
+      const q = suspectsOf(s).find((x) => suspectKey(x) === s.queueSelected);
+      if (!q) return;
+      const ref = suspectRefOf(q);
+      s.verdictSet(ref, s.reviewVerdicts[suspectKey(ref)]?.verdict === v ? null : v);
+    },
+  };
 }
 
 /** Every command of the workspace, in the order the help overlay lists them. */
@@ -116,6 +154,17 @@ export const APP_COMMANDS: Command[] = [
       store.getState().layersSet({ runA: layers.runB, runB: layers.runA });
     },
   },
+  {
+    id: 'queue.next', label: 'Next likely label mistake', group: 'Likely label mistakes', keys: ['Q'],
+    enabled: ({ store }) => suspectsOf(store.getState()).length > 0, run: (ctx) => queueStep(ctx, 1),
+  },
+  {
+    id: 'queue.prev', label: 'Previous likely label mistake', group: 'Likely label mistakes', keys: ['Shift+Q'],
+    enabled: ({ store }) => suspectsOf(store.getState()).length > 0, run: (ctx) => queueStep(ctx, -1),
+  },
+  verdictCommand('label-mistake', 'label mistake', 'L'),
+  verdictCommand('model-error', 'model error', 'E'),
+  verdictCommand('unsure', 'unsure', 'U'),
   { id: 'view.in', label: 'Zoom in', group: 'View', keys: ['+', '='], enabled: hasViewer, run: ({ viewer }) => viewer!.zoomBy(1.5) },
   { id: 'view.out', label: 'Zoom out', group: 'View', keys: ['-', '_'], enabled: hasViewer, run: ({ viewer }) => viewer!.zoomBy(1 / 1.5) },
   { id: 'view.fit', label: 'Fit frame', group: 'View', keys: ['F'], enabled: hasViewer, run: ({ viewer }) => viewer!.fit() },
