@@ -82,19 +82,16 @@ export function regionEvidence(t: RunTable, s: ComponentStats, c: number, ctx: E
       for (let i = i0; i < i1; i++) hist[bins[values[i]]]++;
     }
     if (!photo) continue;
+    const up = y > 0 ? -width : 0, down = y < height - 1 ? width : 0;
     for (let i = i0; i < i1; i++) {
       const x = i - o;
-      let predOnly = false, truthOnly = false, outline = false;
-      // Four neighbours inside the image; one not in the region marks an outline pixel.
-      for (let d = 0; d < 4; d++) {
-        const q = d === 0 ? (x > 0 ? i - 1 : -1) : d === 1 ? (x < width - 1 ? i + 1 : -1) : d === 2 ? (y > 0 ? i - width : -1) : y < height - 1 ? i + width : -1;
-        if (q < 0) continue;
-        const truthChanges = tc[q] !== g, predChanges = pc[q] !== p;
-        if (!truthChanges && !predChanges) continue;
-        outline = true;
-        if (predChanges && !truthChanges) predOnly = true;
-        if (truthChanges && !predChanges) truthOnly = true;
-      }
+      // Four neighbours inside the image (an offset of 0 is the pixel itself: no change). Each sets
+      // bit (truth changes) + 2·(prediction changes): bit 1 truth only, bit 2 prediction only, bit 3 both.
+      const l = x > 0 ? i - 1 : i, rr = x < width - 1 ? i + 1 : i;
+      const seen =
+        (1 << ((tc[l] !== g ? 1 : 0) | (pc[l] !== p ? 2 : 0))) | (1 << ((tc[rr] !== g ? 1 : 0) | (pc[rr] !== p ? 2 : 0))) |
+        (1 << ((tc[i + up] !== g ? 1 : 0) | (pc[i + up] !== p ? 2 : 0))) | (1 << ((tc[i + down] !== g ? 1 : 0) | (pc[i + down] !== p ? 2 : 0)));
+      const truthOnly = (seen & 2) !== 0, predOnly = (seen & 4) !== 0, outline = (seen & 14) !== 0;
       if (outline && !predOnly && !truthOnly) {
         nS++;
         continue;

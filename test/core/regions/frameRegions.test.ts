@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import type { LabelMap } from '../../../src/core/labelMap.ts';
+import { codeTableBuild } from '../../../src/core/metrics/codes.ts';
+import { componentStatsCreate, componentStatsFill } from '../../../src/core/regions/componentStats.ts';
 import { frameRegionsCompute } from '../../../src/core/regions/frameRegions.ts';
+import { regionLabelMap, segmentLabelMap } from '../../../src/core/regions/regionLabels.ts';
+import { thicknessByRuns, thicknessByWindow, thicknessWorkCreate } from '../../../src/core/regions/regionThickness.ts';
+import { RUN_KEEP, runTableCreate, runsLabel } from '../../../src/core/regions/runLabel.ts';
 import { regionSettingsCheck, type RegionSettings } from '../../../src/core/regions/regionSettings.ts';
 import type { ErrorRegion, RunRegions } from '../../../src/core/regions/regionTypes.ts';
 import { randomPair } from '../../support/randomMaps.ts';
@@ -61,6 +66,18 @@ describe('frameRegionsCompute against a brute-force flood fill (random maps)', (
         expect(got.voidSpill.regions.map((v) => v.area).sort((a, b) => a - b)).toEqual(ref.filter((c) => c.isVoidSpill).map((c) => c.pixels.length).sort((a, b) => a - b));
         const pairPixels = got.counts.byPair.reduce((a, p) => a + p.pixels, 0);
         expect(pairPixels).toBe(wrong);
+        // Per-pixel maps for painting carry the same ids as the lists.
+        const labels = regionLabelMap(truth, pred, IDS, 255);
+        const expectedLabels = new Int32Array(w * h).fill(-1);
+        ref.forEach((c, id) => c.pixels.forEach((i) => (expectedLabels[i] = id)));
+        expect(labels.ok && Array.from(labels.value)).toEqual(Array.from(expectedLabels));
+        const segIds = (segs: number[][]) => {
+          const out = new Int32Array(w * h);
+          segs.forEach((seg, id) => seg.forEach((i) => (out[i] = id)));
+          return Array.from(out);
+        };
+        expect(Array.from(segmentLabelMap(truth, IDS, 255, 'truth'))).toEqual(segIds(truthSegs));
+        expect(Array.from(segmentLabelMap(pred, IDS, 255, 'prediction'))).toEqual(segIds(predSegs));
       });
     }
   });
@@ -121,4 +138,27 @@ describe('frameRegionsCompute: hand-checked cases', () => {
     expect(got.counts.unlisted).toBe(1);
     expect(got.counts.all).toEqual({ regions: 3, pixels: 57 });
   });
+});
+
+describe('thickness: both ways of computing it against brute force', () => {
+  for (const seed of [5, 6, 7, 8]) {
+    it(`random maps, seed ${seed}: the bbox distance transform and the run-wise minimum agree with brute force on every component`, () => {
+      const w = 37, h = 23;
+      const { truth, pred } = randomPair(w, h, 900 + seed, { classIds: IDS, ignore: 255, invalidIds: [4], voids: true, shapes: 16 });
+      const table = new Uint16Array(65536);
+      codeTableBuild(IDS, 255, table);
+      const tc = Uint16Array.from(truth.ids, (v) => table[v]);
+      const pc = Uint16Array.from(pred.ids, (v) => Math.min(table[v], IDS.length));
+      const t = runTableCreate(), s = componentStatsCreate(), work = thicknessWorkCreate();
+      runsLabel(tc, pc, null, w, h, IDS.length, RUN_KEEP.pairs, t);
+      componentStatsFill(t, s);
+      const ref = refRegions(truth, pred, IDS, 255);
+      expect(s.count).toBe(ref.length);
+      for (let c = 0; c < s.count; c++) {
+        const expected = refThickness(ref[c].pixels, w, h) ** 2;
+        expect(thicknessByWindow(t, s, c, work)).toBeCloseTo(expected, 9);
+        expect(thicknessByRuns(t, s, c, work)).toBeCloseTo(expected, 9);
+      }
+    });
+  }
 });
