@@ -26,7 +26,7 @@ if (new URLSearchParams(location.search).has('check')) {
   (window as unknown as { hairline?: typeof app }).hairline = app;
   root.render(
     <StrictMode>
-      <StoreProvider store={app.store}>
+      <StoreProvider store={app.store} viewPool={app.viewPool}>
         <Workspace viewPool={app.viewPool} />
       </StoreProvider>
     </StrictMode>,

@@ -1,6 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { layerSettingsDefault, type LayerSettings } from '../core/composite/layerSettings.ts';
 import type { AppState } from './store.ts';
+import type { FlagInput } from './reviewSlice.ts';
 
 /** Per-frame scores the frame list and timeline can sort and colour by. */
 export const FRAME_SCORE_KEYS = ['meanIoU', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels'] as const;
@@ -35,6 +36,10 @@ export interface ViewSlice {
   queueSelected: string | null;
   /** Which list the left pane shows. */
   leftTab: 'frames' | 'queue' | 'flags';
+  /** A flag being written (the dialog is open while this is set). */
+  flagDraft: FlagInput | null;
+  /** Drawing a box on the viewer to flag (also with Shift held while dragging). */
+  boxDrawing: boolean;
   frameIndexSet(index: number): void;
   layersSet(patch: Partial<LayerSettings>): void;
   placeSet(place: ViewPlace | null): void;
@@ -50,6 +55,8 @@ export interface ViewSlice {
   /** Selects a queue item: goes to its frame and focuses its box. */
   queueSelect(key: string, frameIndex: number, bbox: readonly [number, number, number, number]): void;
   leftTabSet(tab: 'frames' | 'queue' | 'flags'): void;
+  flagDraftSet(draft: FlagInput | null): void;
+  boxDrawingSet(on: boolean): void;
 }
 
 /** Returns the view slice of the app store (what is on screen and how). */
@@ -67,6 +74,8 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   focusSeq: 0,
   queueSelected: null,
   leftTab: 'frames',
+  flagDraft: null,
+  boxDrawing: false,
   frameIndexSet: (index) => {
     const count = get().dataset?.pairing.frames.length ?? 0;
     const clamped = count === 0 ? 0 : Math.max(0, Math.min(count - 1, Math.round(index)));
@@ -95,6 +104,8 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
     set({ queueSelected: key });
   },
   leftTabSet: (leftTab) => set({ leftTab }),
+  flagDraftSet: (flagDraft) => set({ flagDraft }),
+  boxDrawingSet: (boxDrawing) => set({ boxDrawing }),
   focusClear: () => {
     const { highlight } = get().layers;
     set({ focusBox: null, layers: { ...get().layers, highlight: { ...highlight, boxes: [] } } });

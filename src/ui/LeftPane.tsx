@@ -1,3 +1,4 @@
+import { FlagsPanel } from './FlagsPanel.tsx';
 import { FrameList } from './FrameList.tsx';
 import { QueuePanel } from './QueuePanel.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
@@ -5,6 +6,7 @@ import { useApp, useAppStore } from './storeContext.tsx';
 const TABS = [
   ['frames', 'Frames'],
   ['queue', 'Label check'],
+  ['flags', 'Flags'],
 ] as const;
 
 /** The left pane: the frame list, or the dataset-wide queue of likely label mistakes. */
@@ -20,7 +22,7 @@ export function LeftPane() {
           </button>
         ))}
       </div>
-      <div className="left-body">{tab === 'frames' ? <FrameList /> : <QueuePanel />}</div>
+      <div className="left-body">{tab === 'frames' ? <FrameList /> : tab === 'queue' ? <QueuePanel /> : <FlagsPanel />}</div>
     </div>
   );
 }

@@ -115,6 +115,17 @@ export function QueuePanel() {
                       {VERDICT_NAMES[v]}
                     </button>
                   ))}
+                  <button
+                    title="Flag this region for relabelling (Shift+M)"
+                    onClick={() =>
+                      store.getState().flagDraftSet({
+                        frame: q.frame, kind: 'region', bbox: q.bbox, reason: verdict ?? 'label-mistake', run: q.run,
+                        region: { kind: q.kind, truthClass: q.truthClass, predictedClass: q.predictedClass, score: q.score, reasons: q.reasons },
+                      })
+                    }
+                  >
+                    flag…
+                  </button>
                 </div>
               </div>
             </li>

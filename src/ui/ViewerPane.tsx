@@ -8,6 +8,7 @@ import { viewerCreate } from '../view/viewer.ts';
 import type { WorkerPool } from '../workers/pool.ts';
 import { VIEW_COMMANDS } from '../workers/viewJobs.ts';
 import type { DecodedFrame } from '../workers/viewJobs.ts';
+import { BoxDraw } from './BoxDraw.tsx';
 import { Readout } from './Readout.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
 
@@ -125,6 +126,7 @@ export function ViewerPane({ pool, onViewer }: { pool: WorkerPool; onViewer: (v:
       {!shownError && notes.length > 0 && <div className="viewer-note">{notes.join(' · ')}</div>}
       {loading && <div className="viewer-loading">decoding…</div>}
       {viewer && <Readout viewer={viewer} />}
+      {viewer && host.current && <BoxDraw host={host.current} viewer={viewer} />}
     </div>
   );
 }

@@ -3,6 +3,7 @@ import type { Viewer } from '../view/viewer.ts';
 import type { WorkerPool } from '../workers/pool.ts';
 import type { CommandContext } from './commands/registry.ts';
 import { LeftPane } from './LeftPane.tsx';
+import { FlagDialog } from './FlagDialog.tsx';
 import { HelpOverlay } from './HelpOverlay.tsx';
 import { LayerBar } from './LayerBar.tsx';
 import { filesOpen } from './OpenFolder.tsx';
@@ -90,6 +91,7 @@ export function Workspace({ viewPool }: { viewPool: WorkerPool }) {
       )}
       {hasDataset && <Timeline />}
       <HelpOverlay />
+      <FlagDialog />
     </div>
   );
 }

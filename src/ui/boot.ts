@@ -8,6 +8,9 @@ import { datasetFromSource, datasetInstall } from '../state/datasetLoad.ts';
 import { scoringKeep } from '../state/scoringRun.ts';
 import { shownKeep } from '../state/shownKeep.ts';
 import { appStoreCreate, type AppStore } from '../state/store.ts';
+import { reviewBackendIdb } from '../state/reviewBackendIdb.ts';
+import { reviewChannelOpen } from '../state/reviewChannel.ts';
+import { reviewKeep } from '../state/reviewKeep.ts';
 import { urlViewApply, urlViewDecode, urlViewKeep, type UrlView } from '../state/urlState.ts';
 import type { WorkerPool } from '../workers/pool.ts';
 import { scorePoolCreate, viewPoolCreate } from '../workers/scorePool.ts';
@@ -28,7 +31,9 @@ export function appStart(): AppRuntime {
   const scorePool = scorePoolCreate();
   const viewPool = viewPoolCreate();
   const fromUrl = urlViewDecode(location.hash);
-  const stops = [scoringKeep(store, scorePool), shownKeep(store, viewPool), urlViewKeep(store)];
+  // Flags and verdicts are saved in IndexedDB per dataset as they change, and shared with other tabs.
+  const keeper = reviewKeep(store, { backend: reviewBackendIdb(), channel: reviewChannelOpen() });
+  const stops = [scoringKeep(store, scorePool), shownKeep(store, viewPool), urlViewKeep(store), () => keeper.stop()];
   void datasetOpenInitial(store, fromUrl);
   return {
     store,

@@ -2,12 +2,25 @@ import { createContext, useContext, type ReactNode } from 'react';
 import { useStore } from 'zustand';
 import { useShallow } from 'zustand/react/shallow';
 import type { AppState, AppStore } from '../state/store.ts';
+import type { WorkerPool } from '../workers/pool.ts';
 
 const StoreContext = createContext<AppStore | null>(null);
+const ViewPoolContext = createContext<WorkerPool | null>(null);
 
-/** Makes `store` available to every component below. */
-export function StoreProvider({ store, children }: { store: AppStore; children: ReactNode }) {
-  return <StoreContext.Provider value={store}>{children}</StoreContext.Provider>;
+/** Makes `store` (and the view workers, for exports) available to every component below. */
+export function StoreProvider({ store, viewPool, children }: { store: AppStore; viewPool?: WorkerPool; children: ReactNode }) {
+  return (
+    <StoreContext.Provider value={store}>
+      <ViewPoolContext.Provider value={viewPool ?? null}>{children}</ViewPoolContext.Provider>
+    </StoreContext.Provider>
+  );
+}
+
+/** Returns the pool of view workers (frames decoded for the viewer and for tile exports). */
+export function useViewPool(): WorkerPool {
+  const pool = useContext(ViewPoolContext);
+  if (!pool) throw new Error('useViewPool outside StoreProvider with a viewPool');
+  return pool;
 }
 
 /** Returns the app store itself (for actions and non-React subscribers). */

@@ -68,6 +68,22 @@ function verdictCommand(v: SuspectVerdictKind, label: string, key: string): Comm
   };
 }
 
+/** Opens the flag form for the selected queue item, else the focused region, else nothing. */
+function flagSelected(ctx: CommandContext): void {
+  const s = ctx.store.getState();
+  const frame = s.dataset?.pairing.frames[s.frameIndex]?.name;
+  if (!frame) return;
+  const q = s.queueSelected ? suspectsOf(s).find((x) => suspectKey(x) === s.queueSelected) : undefined;
+  if (q && q.frameIndex === s.frameIndex) {
+    s.flagDraftSet({
+      frame, kind: 'region', bbox: q.bbox, reason: 'label-mistake', run: q.run,
+      region: { kind: q.kind, truthClass: q.truthClass, predictedClass: q.predictedClass, score: q.score, reasons: q.reasons },
+    });
+    return;
+  }
+  if (s.focusBox) s.flagDraftSet({ frame, kind: 'region', bbox: s.focusBox, reason: 'label-mistake', run: s.layers.runA });
+}
+
 /** Every command of the workspace, in the order the help overlay lists them. */
 export const APP_COMMANDS: Command[] = [
   {
@@ -135,8 +151,13 @@ export const APP_COMMANDS: Command[] = [
     },
   },
   {
-    id: 'solo.off', label: 'Stop showing one class only', group: 'Layers', keys: ['Escape'], enabled: ({ store }) => store.getState().layers.solo.on,
-    run: ({ store }) => store.getState().layersSet({ solo: { ...store.getState().layers.solo, on: false } }),
+    id: 'solo.off', label: 'Stop box drawing, or stop showing one class only', group: 'Layers', keys: ['Escape'],
+    enabled: ({ store }) => store.getState().layers.solo.on || store.getState().boxDrawing,
+    run: ({ store }) => {
+      const s = store.getState();
+      if (s.boxDrawing) return s.boxDrawingSet(false);
+      s.layersSet({ solo: { ...s.layers.solo, on: false } });
+    },
   },
   {
     id: 'run.next', label: 'Next run as A', group: 'Runs', keys: ['R'], enabled: ({ store }) => (store.getState().dataset?.pairing.runs.length ?? 0) > 1,
@@ -165,6 +186,30 @@ export const APP_COMMANDS: Command[] = [
   verdictCommand('label-mistake', 'label mistake', 'L'),
   verdictCommand('model-error', 'model error', 'E'),
   verdictCommand('unsure', 'unsure', 'U'),
+  {
+    id: 'flag.frame', label: 'Flag this frame', group: 'Flags', keys: ['M'], enabled: hasFrames,
+    run: ({ store }) => {
+      const s = store.getState();
+      const frame = s.dataset!.pairing.frames[s.frameIndex].name;
+      s.flagDraftSet({ frame, kind: 'frame', bbox: null, reason: 'label-mistake', run: s.layers.runA });
+    },
+  },
+  {
+    id: 'flag.selected', label: 'Flag the selected region or queue item', group: 'Flags', keys: ['Shift+M'],
+    enabled: ({ store }) => store.getState().focusBox !== null || store.getState().queueSelected !== null, run: flagSelected,
+  },
+  {
+    id: 'flag.box', label: 'Draw a box on the picture to flag (or Shift+drag)', group: 'Flags', keys: ['B'], enabled: hasFrames,
+    run: ({ store }) => store.getState().boxDrawingSet(!store.getState().boxDrawing),
+  },
+  {
+    id: 'review.undo', label: 'Undo the last flag change', group: 'Flags', keys: ['Ctrl+Z'],
+    enabled: ({ store }) => store.getState().reviewUndoStack.length > 0, run: ({ store }) => void store.getState().reviewUndo(),
+  },
+  {
+    id: 'review.redo', label: 'Redo', group: 'Flags', keys: ['Ctrl+Shift+Z', 'Ctrl+Y'],
+    enabled: ({ store }) => store.getState().reviewRedoStack.length > 0, run: ({ store }) => void store.getState().reviewRedo(),
+  },
   { id: 'view.in', label: 'Zoom in', group: 'View', keys: ['+', '='], enabled: hasViewer, run: ({ viewer }) => viewer!.zoomBy(1.5) },
   { id: 'view.out', label: 'Zoom out', group: 'View', keys: ['-', '_'], enabled: hasViewer, run: ({ viewer }) => viewer!.zoomBy(1 / 1.5) },
   { id: 'view.fit', label: 'Fit frame', group: 'View', keys: ['F'], enabled: hasViewer, run: ({ viewer }) => viewer!.fit() },
