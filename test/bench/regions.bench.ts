@@ -11,6 +11,15 @@ import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
 import { frameRegionsCompute } from '../../src/core/regions/frameRegions.ts';
 import { regionScratchCreate } from '../../src/core/regions/regionScratch.ts';
 import { REGION_DEFAULTS } from '../../src/core/regions/regionSettings.ts';
+import type { LabelMap } from '../../src/core/labelMap.ts';
+import { labelCodesFill } from '../../src/core/metrics/codes.ts';
+import { componentStatsFill } from '../../src/core/regions/componentStats.ts';
+import { gridDominant, gridShape } from '../../src/core/regions/frameGrid.ts';
+import { photoLuma } from '../../src/core/regions/photoEdges.ts';
+import { regionScratchFit, regionScratchPhoto, regionScratchTables } from '../../src/core/regions/regionScratch.ts';
+import { regionThickness } from '../../src/core/regions/regionThickness.ts';
+import { RUN_KEEP, runsLabel } from '../../src/core/regions/runLabel.ts';
+import { bandCountRun, bandReach, truthEdgePrefix } from '../../src/core/regions/truthBand.ts';
 import { DEMO_CLASS_COUNT } from '../../src/data/demo/classes.ts';
 import { demoFrameRaster } from '../../src/data/demo/frame.ts';
 
@@ -35,13 +44,56 @@ function idsSum(ids: Uint8Array | Uint16Array): number {
   return sum;
 }
 
+/** Runs the stages of frameRegionsCompute one by one with the same scratch, timing each. */
+function stages(truth: LabelMap, preds: LabelMap[], photo: { width: number; height: number; rgba: Uint8Array }): void {
+  const s = stageScratch, n = W * H, k = classIds.length;
+  const shape = gridShape(W, H, REGION_DEFAULTS.gridColumns);
+  regionScratchFit(s, W, H, preds.length, shape.columns * shape.rows);
+  regionScratchTables(s, classIds, 255);
+  timed('  stage: codes (truth + runs)', () => {
+    labelCodesFill(truth.ids, s.truthTable, s.truthCodes, 0, n);
+    preds.forEach((p, i) => labelCodesFill(p.ids, s.predTable, s.predCodes[i], 0, n));
+  });
+  timed('  stage: truth boundary counts', () => truthEdgePrefix(s.truthCodes, W, H, s.edgePrefix));
+  timed('  stage: truth segments + grid', () => {
+    runsLabel(s.truthCodes, null, null, W, H, k, RUN_KEEP.all, s.truthRuns);
+    componentStatsFill(s.truthRuns, s.truthSegments);
+    gridDominant(s.truthRuns, k, classIds, 255, shape);
+  });
+  timed('  stage: photo luma', () => photoLuma(photo.rgba, n, regionScratchPhoto(s).luma));
+  for (let i = 0; i < preds.length; i++) {
+    timed('  stage: prediction segments (per run)', () => {
+      runsLabel(s.predCodes[i], null, s.truthCodes, W, H, k, RUN_KEEP.all, s.predRuns);
+      componentStatsFill(s.predRuns, s.predSegments);
+    });
+    timed('  stage: pair runs + components (per run)', () => {
+      runsLabel(s.truthCodes, s.predCodes[i], null, W, H, k, RUN_KEEP.pairs, s.pairRuns);
+      componentStatsFill(s.pairRuns, s.pairs);
+    });
+    const reach = bandReach(REGION_DEFAULTS.bandWidth);
+    timed('  stage: band counts (per run)', () => {
+      const t = s.pairRuns;
+      for (let r = 0; r < t.count; r++) if (s.pairs.area[t.comp[r]] >= REGION_DEFAULTS.minArea) bandCountRun(s.edgePrefix, W, H, t.y[r], t.x0[r], t.x1[r], 3, reach);
+    });
+    timed('  stage: thickness of listed (per run)', () => {
+      let listed = 0;
+      for (let c = 0; c < s.pairs.count && listed < REGION_DEFAULTS.listMax; c++) {
+        if (s.pairs.area[c] < REGION_DEFAULTS.minArea || s.pairs.a[c] >= k) continue;
+        listed++;
+        regionThickness(s.pairRuns, s.pairs, c, s.thickness);
+      }
+    });
+  }
+}
+const stageScratch = regionScratchCreate();
+
 const times: Record<string, number[]> = {};
-const timed = <T>(name: string, fn: () => T): T => {
+function timed<T>(name: string, fn: () => T): T {
   const t0 = performance.now();
   const v = fn();
   (times[name] ??= []).push(performance.now() - t0);
   return v;
-};
+}
 const scoreScratch = scoreScratchCreate();
 const regionScratch = regionScratchCreate();
 let sink = 0, regions = 0, pixels = 0;
@@ -59,6 +111,7 @@ for (let rep = 0; rep < REPS + 1; rep++) {
     timed('frameRegionsCompute, 2 runs, no photo', () =>
       frameRegionsCompute({ truth: f.truth, preds, classIds, ignore: 255, photo: null }, { ...REGION_DEFAULTS }, regionScratch),
     );
+    stages(f.truth, preds.map((p) => p.map), f.photo);
     if (r.ok && rep === 0) {
       for (const run of r.value.runs) {
         regions += run!.counts.all.regions;
@@ -68,5 +121,6 @@ for (let rep = 0; rep < REPS + 1; rep++) {
   }
 }
 process.stdout.write(`${FRAMES} frames ${W}×${H}, ${REPS} reps, median ms per frame (sink ${sink & 1}):\n`);
-for (const [k, v] of Object.entries(times)) process.stdout.write(`  ${k.padEnd(40)} ${median(v).toFixed(1).padStart(8)}\n`);
+// Per-run stages ran once per run and frame: their medians are per run.
+for (const [k, v] of Object.entries(times)) process.stdout.write(`  ${k.padEnd(44)} ${median(v).toFixed(1).padStart(8)}\n`);
 process.stdout.write(`  regions per run and frame: ${(regions / FRAMES / 2).toFixed(0)}, wrong pixels per run and frame: ${(pixels / FRAMES / 2).toFixed(0)}\n`);

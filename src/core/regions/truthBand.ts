@@ -15,16 +15,19 @@ export function truthEdgePrefix(tc: Uint16Array, width: number, height: number, 
   const stride = width + 1;
   for (let y = 0; y < height; y++) {
     const o = y * width, p = y * stride;
-    const up = y > 0 ? o - width : -1, down = y < height - 1 ? o + width : -1;
+    // A missing neighbour (first or last row) reads the pixel itself: no change.
+    const up = y > 0 ? -width : 0, down = y < height - 1 ? width : 0;
     let count = 0;
     out[p] = 0;
+    let left = tc[o];
     for (let x = 0; x < width; x++) {
-      const v = tc[o + x];
-      const edge =
-        (x > 0 && tc[o + x - 1] !== v) || (x < width - 1 && tc[o + x + 1] !== v) ||
-        (up >= 0 && tc[up + x] !== v) || (down >= 0 && tc[down + x] !== v);
-      if (edge) count++;
+      const i = o + x;
+      const v = tc[i];
+      const right = x < width - 1 ? tc[i + 1] : v;
+      // XOR is non-zero exactly where codes differ; OR of the four says "some neighbour differs".
+      if (((v ^ left) | (v ^ right) | (v ^ tc[i + up]) | (v ^ tc[i + down])) !== 0) count++;
       out[p + x + 1] = count;
+      left = v;
     }
   }
 }
@@ -50,11 +53,14 @@ export function bandCountRun(
   prefix: Int32Array, width: number, height: number, y: number, x0: number, x1: number, w: number, reach: Int32Array,
 ): number {
   const stride = width + 1;
-  const ya = y - w > 0 ? y - w : 0, yb = y + w < height - 1 ? y + w : height - 1;
   let inside = 0;
   for (let x = x0; x < x1; x++) {
-    for (let yy = ya; yy <= yb; yy++) {
-      const dx = reach[yy - y + w];
+    // Rows nearest first (0, −1, +1, −2, …): most pixels of a region near a boundary stop early.
+    for (let k = 0; k <= 2 * w; k++) {
+      const dy = k & 1 ? -((k + 1) >> 1) : k >> 1;
+      const yy = y + dy;
+      if (yy < 0 || yy >= height) continue;
+      const dx = reach[dy + w];
       const p = yy * stride;
       const lo = x - dx > 0 ? x - dx : 0, hi = x + dx + 1 < width ? x + dx + 1 : width;
       if (prefix[p + hi] - prefix[p + lo] > 0) {
