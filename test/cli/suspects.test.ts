@@ -1,10 +1,18 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { LabelMap } from '../../src/core/labelMap.ts';
+import { labelMapToPng, rgbaToPng } from '../../src/core/png/encode.ts';
+import { paintRect } from '../support/paint.ts';
 import { scoreCli } from './scoreRun.ts';
+
+function writeAt(path: string, bytes: Uint8Array | string): void {
+  mkdirSync(join(path, '..'), { recursive: true });
+  writeFileSync(path, bytes);
+}
 
 // The likely-label-mistake queue of the real CLI on the Kestrel Quay demo (default 48 frames at
 // 1024×512, seed 1), judged against the demo's answer key of injected label mistakes — a key written
@@ -99,5 +107,60 @@ describe('likely label mistakes on the Kestrel Quay demo (real CLI, --images, tw
       expect(f.voidSpill!.regions.some((v) => v.predictedClass === k.trueClass && finds(f.name, v.bbox, k)), `${k.frame} ${k.bbox}`).toBe(true);
     }
     expect(report.suspects.every((s) => s.truthClass !== 255)).toBe(true);
+  });
+});
+
+describe('npm run score with --images and --confidence on a small constructed dataset', () => {
+  // Three frames of 64×48: a grey quay (class 2) with a bright truck (class 6). The truth of frame
+  // "b" calls the truck a container (class 4); both runs see a truck, run a with a confidence map
+  // high on it. One confidence file is the wrong size and one photo is not a PNG: warnings, not failures.
+  const W = 64, H = 48;
+  let small = '';
+  const truck = (m: LabelMap, cls: number) => paintRect(m, 20, 14, 40, 34, cls);
+  beforeAll(() => {
+    small = join(dir, 'small');
+    for (const name of ['a', 'b', 'c']) {
+      const truth: LabelMap = { width: W, height: H, ids: new Uint8Array(W * H).fill(2) };
+      truck(truth, name === 'b' ? 4 : 6);
+      const pred: LabelMap = { width: W, height: H, ids: new Uint8Array(W * H).fill(2) };
+      truck(pred, 6);
+      // Confidence 200/255 everywhere, but 250/255 on the truck of frame b: run a is surer there than
+      // it usually is of trucks (its threshold for truck is the mean over frame a's truck, 200/255).
+      const conf: LabelMap = { width: W, height: H, ids: new Uint8Array(W * H).fill(200) };
+      if (name === 'b') truck(conf, 250);
+      const rgba = new Uint8Array(W * H * 4);
+      for (let i = 0; i < W * H; i++) rgba.set(pred.ids[i] === 6 ? [220, 200, 40, 255] : [90, 90, 90, 255], i * 4);
+      writeAt(join(small, 'truth', `${name}.png`), labelMapToPng(truth, { kind: 'gray', bitDepth: 8 }));
+      writeAt(join(small, 'run-a', `${name}.png`), labelMapToPng(pred, { kind: 'gray', bitDepth: 8 }));
+      writeAt(join(small, 'run-b', `${name}.png`), labelMapToPng(pred, { kind: 'gray', bitDepth: 8 }));
+      writeAt(join(small, 'conf-a', `${name}.png`), labelMapToPng(name === 'c' ? { width: W + 1, height: H, ids: new Uint8Array((W + 1) * H) } : conf, { kind: 'gray', bitDepth: 8 }));
+      writeAt(join(small, 'images', name === 'c' ? 'c.jpg' : `${name}.png`), name === 'c' ? new Uint8Array([0xff, 0xd8, 0xff]) : rgbaToPng(W, H, rgba));
+    }
+    writeAt(join(small, 'classes.json'), JSON.stringify({
+      ignore: 255, classes: [2, 4, 6].map((id) => ({ id, name: ({ 2: 'quay', 4: 'container', 6: 'truck' } as Record<number, string>)[id], color: `#${(id * 30).toString(16).padStart(2, '0')}8040` })),
+    }));
+  });
+
+  it('puts the mislabelled truck first, run a with its confidence evidence, and warns about the unusable files', () => {
+    const r = scoreCli([
+      '--truth', join(small, 'truth'), '--pred', join(small, 'run-a'), '--pred', join(small, 'run-b'), '--classes', join(small, 'classes.json'),
+      '--images', join(small, 'images'), '--confidence', `run-a=${join(small, 'conf-a')}`, '--workers', '1',
+    ]);
+    expect(r.status).toBe(0);
+    const rep = JSON.parse(r.stdout);
+    expect(r.stderr).toMatch(/warning: confidence\/run-a\/c\.png: is 65×48 pixels but truth\/c\.png is 64×48/);
+    expect(r.stderr).toMatch(/warning: images\/c\.jpg: only PNG photos are decoded headless/);
+    const top = rep.suspects[0] as Suspect;
+    expect([top.frame, top.run, top.bbox, top.truthClass, top.predictedClass, top.kind]).toEqual(['b', 'run-a', [20, 14, 40, 34], 4, 6, 'missedObject']);
+    const text = top.reasons.join(' | ');
+    expect(text).toMatch(/both runs agree on truck here \(run-b on 100 % of it\), the label says container/);
+    expect(text).toMatch(/run-a is confident here: 100 % of it at or above its usual confidence for truck \(0\.78; confident learning, Northcutt et al\., JAIR 2021\)/);
+    expect(text).toMatch(/the label says container here only briefly: truck in a and again in c, while run-a predicts truck in every frame between/);
+    expect(text).toMatch(/thick \(10 px\)/);
+    expect(text).toMatch(/run-b finds it too/);
+    // Label and prediction draw the same outline: the photo cannot tell them apart, so it says nothing.
+    expect(text).not.toMatch(/image edge/);
+    // Frames a and c agree with the truth everywhere: no regions there.
+    expect(rep.frames.map((f: { regions: unknown[] }) => f.regions.length)).toEqual([0, 1, 0]);
   });
 });

@@ -64,7 +64,7 @@ export function suspectReasons(c: SuspectCandidate, s: SuspectSignals, weights: 
   if (s.temporal > 0) {
     items.push({
       strength: 2 + s.temporal,
-      text: `the label says ${label} here only around this frame: ${pred} in ${ctx.flip.before} and in ${ctx.flip.after}, while ${c.run} predicts ${pred} throughout (${pct(s.temporal)} of its cells)`,
+      text: `the label says ${label} here only briefly: ${pred} in ${ctx.flip.before} and again in ${ctx.flip.after}, while ${c.run} predicts ${pred} in every frame between (${pct(s.temporal)} of its cells)`,
     });
   }
   if (s.steady >= 0.5) {
