@@ -9,6 +9,10 @@ const ALL: [string, string, string[]][] = [
   ['scoreCli', 'test/bench/scoreCli.bench.ts', []],
   ['viewerRedraw', 'test/bench/viewerRedraw.bench.ts', []],
   ['workspace', 'test/bench/workspace.bench.ts', []],
+  ['regions', 'test/bench/regions.bench.ts', []],
+  ['tilesExport', 'test/bench/tilesExport.bench.ts', []],
+  ['demo', 'test/bench/demo.bench.ts', []],
+  ['largeDataset', 'test/bench/largeDataset.bench.ts', []],
 ];
 const wanted = process.argv.slice(2);
 let failed = 0;
