@@ -19,7 +19,7 @@ import { photoLuma } from '../../src/core/regions/photoEdges.ts';
 import { regionScratchFit, regionScratchPhoto, regionScratchTables } from '../../src/core/regions/regionScratch.ts';
 import { regionThickness } from '../../src/core/regions/regionThickness.ts';
 import { RUN_KEEP, runsLabel } from '../../src/core/regions/runLabel.ts';
-import { bandCountRun, bandReach, truthEdgePrefix } from '../../src/core/regions/truthBand.ts';
+import { bandCountRun, bandReach, truthEdgeReach } from '../../src/core/regions/truthBand.ts';
 import { DEMO_CLASS_COUNT } from '../../src/data/demo/classes.ts';
 import { demoFrameRaster } from '../../src/data/demo/frame.ts';
 
@@ -54,7 +54,7 @@ function stages(truth: LabelMap, preds: LabelMap[], photo: { width: number; heig
     labelCodesFill(truth.ids, s.truthTable, s.truthCodes, 0, n);
     preds.forEach((p, i) => labelCodesFill(p.ids, s.predTable, s.predCodes[i], 0, n));
   });
-  timed('  stage: truth boundary counts', () => truthEdgePrefix(s.truthCodes, W, H, s.edgePrefix));
+  timed('  stage: truth boundary reach', () => truthEdgeReach(s.truthCodes, W, H, s.edgeReach));
   timed('  stage: truth segments + grid', () => {
     runsLabel(s.truthCodes, null, null, W, H, k, RUN_KEEP.all, s.truthRuns);
     componentStatsFill(s.truthRuns, s.truthSegments);
@@ -73,7 +73,7 @@ function stages(truth: LabelMap, preds: LabelMap[], photo: { width: number; heig
     const reach = bandReach(REGION_DEFAULTS.bandWidth);
     timed('  stage: band counts (per run)', () => {
       const t = s.pairRuns;
-      for (let r = 0; r < t.count; r++) if (s.pairs.area[t.comp[r]] >= REGION_DEFAULTS.minArea) bandCountRun(s.edgePrefix, W, H, t.y[r], t.x0[r], t.x1[r], 3, reach);
+      for (let r = 0; r < t.count; r++) if (s.pairs.area[t.comp[r]] >= REGION_DEFAULTS.minArea) bandCountRun(s.edgeReach, W, H, t.y[r], t.x0[r], t.x1[r], 3, reach);
     });
     timed('  stage: thickness of listed (per run)', () => {
       let listed = 0;

@@ -10,7 +10,7 @@ import { regionScratchCreate, regionScratchFit, regionScratchPhoto, regionScratc
 import type { RegionSettings } from './regionSettings.ts';
 import type { FrameGrid, RunRegions } from './regionTypes.ts';
 import { RUN_KEEP, runsLabel } from './runLabel.ts';
-import { truthEdgePrefix } from './truthBand.ts';
+import { truthEdgeReach } from './truthBand.ts';
 import { runRegions } from './runRegions.ts';
 
 /** One frame's maps for region extraction; a run without a map is null. */
@@ -68,7 +68,7 @@ export function frameRegionsCompute(
 
   const tc = s.truthCodes;
   labelCodesFill(truth.ids, s.truthTable, tc, 0, n);
-  truthEdgePrefix(tc, width, height, s.edgePrefix);
+  truthEdgeReach(tc, width, height, s.edgeReach);
   runsLabel(tc, null, null, width, height, k, RUN_KEEP.all, s.truthRuns);
   componentStatsFill(s.truthRuns, s.truthSegments);
   const grid: FrameGrid = { ...shape, truth: gridDominant(s.truthRuns, k, classIds, ignore, shape) };

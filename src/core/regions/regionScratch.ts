@@ -5,15 +5,15 @@ import { thicknessWorkCreate, type ThicknessWork } from './regionThickness.ts';
 
 /**
  * Buffers frameRegionsCompute reuses from frame to frame (one per thread): code maps of the truth and
- * of each run, truth boundary counts, the photo's luma and gradient, run tables and component sums, and
+ * of each run, truth boundary reach, the photo's luma and gradient, run tables and component sums, and
  * the id → code tables of the last class list. They grow to the largest frame and are never shrunk.
  */
 export interface RegionScratch {
   pixels: number;
   truthCodes: Uint16Array;
   predCodes: Uint16Array[];
-  /** Per row, running counts of ground-truth boundary pixels (truthEdgePrefix), (width + 1) × height. */
-  edgePrefix: Int32Array;
+  /** Per pixel, the distance along its row to the nearest ground-truth boundary pixel (truthEdgeReach). */
+  edgeReach: Uint8Array;
   luma: Uint8Array;
   gradient: Uint8Array;
   truthRuns: RunTable;
@@ -34,7 +34,7 @@ export interface RegionScratch {
 /** Returns an empty region scratch (buffers are sized by the first frame). */
 export function regionScratchCreate(): RegionScratch {
   return {
-    pixels: 0, truthCodes: new Uint16Array(0), predCodes: [], edgePrefix: new Int32Array(0), luma: new Uint8Array(0), gradient: new Uint8Array(0),
+    pixels: 0, truthCodes: new Uint16Array(0), predCodes: [], edgeReach: new Uint8Array(0), luma: new Uint8Array(0), gradient: new Uint8Array(0),
     truthRuns: runTableCreate(), truthSegments: componentStatsCreate(), predRuns: runTableCreate(), predSegments: componentStatsCreate(),
     pairRuns: runTableCreate(), pairs: componentStatsCreate(), thickness: thicknessWorkCreate(),
     cellCount: new Int32Array(0), cellTouched: new Int32Array(0),
@@ -53,7 +53,7 @@ export function regionScratchFit(s: RegionScratch, width: number, height: number
     s.pixels = n;
   }
   while (s.predCodes.length < runs) s.predCodes.push(new Uint16Array(s.pixels));
-  if (s.edgePrefix.length < (width + 1) * height) s.edgePrefix = new Int32Array((width + 1) * height);
+  if (s.edgeReach.length < n) s.edgeReach = new Uint8Array(n);
   if (s.cellCount.length < cells) {
     s.cellCount = new Int32Array(cells);
     s.cellTouched = new Int32Array(cells);

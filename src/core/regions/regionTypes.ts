@@ -4,9 +4,6 @@
 export const REGION_KINDS = ['boundary', 'missedObject', 'falseObject', 'classConfusion'] as const;
 export type RegionKind = (typeof REGION_KINDS)[number];
 
-/** Predicted-class value of a region whose prediction is no class id (void or an id outside the table). */
-export const NOT_A_CLASS = null;
-
 /** Bins of a region's confidence histogram over 0..1 (bin b holds [b/16, (b+1)/16), the last one includes 1). */
 export const CONFIDENCE_BINS = 16;
 

@@ -64,7 +64,7 @@ export function runRegions(input: RunRegionsInput, s: RegionScratch, settings: R
   for (let r = 0; r < t.count; r++) {
     // Void-spill areas and tiny regions are never measured against the band.
     if (t.a[r] >= k || cs.area[t.comp[r]] < settings.minArea) continue;
-    inBand[t.comp[r]] += bandCountRun(s.edgePrefix, width, height, t.y[r], t.x0[r], t.x1[r], w, reach);
+    inBand[t.comp[r]] += bandCountRun(s.edgeReach, width, height, t.y[r], t.x0[r], t.x1[r], w, reach);
   }
 
   const idOf = (code: number) => (code < k ? classIds[code] : null);
