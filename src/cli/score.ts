@@ -16,6 +16,9 @@ import { threadPortCreate } from './threadPort.ts';
 
 const THREAD = new URL('./scoreThread.ts', import.meta.url);
 
+/** Warnings printed before the rest are only counted. */
+const WARNINGS_SHOWN = 20;
+
 /** Exit codes: every frame scored / bad arguments or unreadable folder / some frames failed. */
 export const EXIT = { ok: 0, usage: 1, someFailed: 3 } as const;
 
@@ -37,8 +40,10 @@ async function run(options: ScoreOptions): Promise<number> {
   let failed = 0;
   const progress = progressCreate(n);
 
+  // A folder of unusable photos would warn once per frame: the first few are shown, the rest counted.
+  let warned = 0;
   const take = (index: number, result: FrameJobResult) => {
-    for (const w of result.warnings ?? []) process.stderr.write(`warning: ${w}\n`);
+    for (const w of result.warnings ?? []) if (warned++ < WARNINGS_SHOWN) process.stderr.write(`warning: ${w}\n`);
     regionGatherAdd(regions, index, result, runs[0]);
     let anyFailed = false;
     const rows: FrameCsvRow[] = [];
@@ -84,6 +89,7 @@ async function run(options: ScoreOptions): Promise<number> {
     pool.destroy();
   }
   progress.end(done, failed);
+  if (warned > WARNINGS_SHOWN) process.stderr.write(`… and ${warned - WARNINGS_SHOWN} more warnings like these\n`);
 
   const classesOf = (t: DatasetTotals) => (generated ? t.classIds.map((id) => ({ id, name: String(id) })) : table.classes);
   const reports = runs.map((r) => scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]));
