@@ -18,7 +18,7 @@ function writeAt(path: string, bytes: Uint8Array | string): void {
 // 1024×512, seed 1), judged against the demo's answer key of injected label mistakes — a key written
 // by the demo generator from the pixels it changed, not by the scorer. A suspect "finds" a key entry
 // when it names the same frame and its box overlaps the entry's with IoU ≥ 0.3 (the PASCAL VOC
-// detection criterion uses 0.5, Everingham et al., IJCV 2010, §4.4; 0.3 here because a merged suspect
+// detection criterion uses 0.5, Everingham et al., IJCV 2010, §4.4, section from memory; 0.3 here because a merged suspect
 // and a key entry may each cover only part of one mistake), or when at least 80 % of either box lies
 // inside the other (one mistake can show as several regions, each inside the key's box).
 
