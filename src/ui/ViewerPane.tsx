@@ -1,6 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { compositePaletteFromTable } from '../core/composite/compositePalette.ts';
 import type { CompositeFrame } from '../core/composite/compositeFrame.ts';
+import type { LayerSettings } from '../core/composite/layerSettings.ts';
 import type { AppStore } from '../state/store.ts';
 import { scoringTableOf } from '../state/scoringRun.ts';
 import type { Viewer } from '../view/viewer.ts';
@@ -13,6 +14,19 @@ import { Readout } from './Readout.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
 
 const NO_NOTES: string[] = [];
+
+/**
+ * Returns true when two layer settings draw the same picture because the only difference is the band
+ * width while the band layer is off (the band slider then updates numbers without a redraw).
+ */
+function layersLookAlike(a: LayerSettings, b: LayerSettings): boolean {
+  if (a.band.on || b.band.on) return false;
+  const { band: ba, ...ra } = a;
+  const { band: bb, ...rb } = b;
+  if (ba.opacity !== bb.opacity || ba.side !== bb.side) return false;
+  const keys = Object.keys(ra) as (keyof typeof ra)[];
+  return keys.every((k) => ra[k] === rb[k]);
+}
 
 function compositeFrameOf(f: DecodedFrame): CompositeFrame {
   return { photo: f.photo, truth: f.truth!, preds: f.preds, bandBins: f.bandBins };
@@ -47,7 +61,7 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused
       const r = viewer.frameSet(s.shown ? compositeFrameOf(s.shown) : null);
       onRefused(r.ok ? null : r.error);
     }
-    if (!prev || s.layers !== prev.layers) viewer.layersSet(s.layers);
+    if (!prev || (s.layers !== prev.layers && !layersLookAlike(s.layers, prev.layers))) viewer.layersSet(s.layers);
     if (!prev || s.pixelGrid !== prev.pixelGrid) viewer.gridSet(s.pixelGrid);
     if (!prev || s.place !== prev.place) {
       if (s.place === null) viewer.viewFit();
