@@ -1,3 +1,4 @@
+import { csvField } from '../core/export/tileRows.ts';
 import { createWriteStream } from 'node:fs';
 import type { ScoreReport } from '../core/metrics/report.ts';
 
@@ -15,13 +16,6 @@ export interface FrameCsvRow {
 }
 
 const CSV_COLUMNS: (keyof FrameCsvRow)[] = ['frame', 'run', 'meanIoU', 'pixelAccuracy', 'bandIoU3', 'boundaryIoU', 'boundaryF', 'errorPixels', 'error'];
-
-/** Returns `v` as a CSV field (RFC 4180: quoted when it holds a comma, quote or line break). */
-export function csvField(v: string | number | null): string {
-  if (v === null) return '';
-  const s = String(v);
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
 
 /** Returns the CSV text (header + rows, CRLF line ends as RFC 4180 has them). */
 export function framesCsv(rows: FrameCsvRow[]): string {

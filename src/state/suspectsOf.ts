@@ -1,4 +1,3 @@
-import type { FrameJobResult } from '../core/frameJob.ts';
 import { suspectQueueOfResults, type Suspect } from '../core/suspects/suspectQueue.ts';
 import { SUSPECT_DEFAULTS } from '../core/suspects/suspectSettings.ts';
 import { scoringTableOf } from './scoringRun.ts';
@@ -15,9 +14,7 @@ export function suspectsOf(s: AppState): Suspect[] {
   if (memo && memo.version === s.resultsVersion && memo.dataset === s.dataset) return memo.queue;
   const table = scoringTableOf(s.dataset, s.settings);
   const names = new Map(table.classes.map((c) => [c.id, c.name]));
-  // The queue reads regions and grids only; the stored digests stand in for the stats it never reads.
-  const results = s.results as unknown as (FrameJobResult | undefined)[];
-  const queue = suspectQueueOfResults(results, (id) => names.get(id) ?? `id ${id}`, SUSPECT_DEFAULTS);
+  const queue = suspectQueueOfResults(s.results, (id) => names.get(id) ?? `id ${id}`, SUSPECT_DEFAULTS);
   memo = { version: s.resultsVersion, dataset: s.dataset, queue };
   return queue;
 }

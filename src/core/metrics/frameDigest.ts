@@ -1,7 +1,6 @@
 import { BAND_WIDTH_MAX } from './bandHistogram.ts';
 import type { FrameStats } from './frameScore.ts';
-import { frameBoundaryF, frameBoundaryIoU, type FrameCounts, type FrameSummary } from './frameSummary.ts';
-import { iouFamily } from './iouFamily.ts';
+import { frameSummaryOf, type FrameCounts, type FrameSummary } from './frameSummary.ts';
 
 /**
  * A frame's counts as a long-lived list keeps them: everything but the band histogram, which is
@@ -62,21 +61,7 @@ export function digestBandScores(d: FrameDigest, w: number): { iou: (number | nu
 
 /** Returns the frame summary (as frameSummary) from a digest. */
 export function digestSummary(d: FrameDigest, bandWidth: number): FrameSummary {
-  const all = iouFamily(d.confusion, d.classIds.length);
-  let valid = 0, correct = 0;
-  for (const p of all.perClass) {
-    valid += p.tp + p.fn;
-    correct += p.tp;
-  }
-  return {
-    meanIoU: all.meanIoU,
-    pixelAccuracy: all.pixelAccuracy,
-    bandIoU: digestBandScores(d, bandWidth).meanIoU,
-    boundaryIoU: frameBoundaryIoU(d),
-    boundaryF: frameBoundaryF(d),
-    errorPixels: valid - correct,
-    validPixels: valid,
-  };
+  return frameSummaryOf(d, digestBandScores(d, bandWidth).meanIoU);
 }
 
 /** Returns the frame's band curve: mean IoU and pixel accuracy in Band(w) for w = 0..64. */

@@ -54,11 +54,9 @@ export function frameBoundaryF(stats: FrameCounts): number | null {
   return n ? sum / n : null;
 }
 
-/** Returns the frame's summary with the band at width `bandWidth` (0..64 pixels, rounded and clamped). */
-export function frameSummary(stats: FrameStats, bandWidth: number): FrameSummary {
-  const k = stats.classIds.length;
-  const all = iouFamily(stats.confusion, k);
-  const band = iouFamily(bandConfusionAt(stats.band, k, Math.round(bandWidth)), k);
+/** Returns the summary of a frame's counts with the band's mean IoU already worked out (shared by stats and digests). */
+export function frameSummaryOf(counts: FrameCounts, bandIoU: number | null): FrameSummary {
+  const all = iouFamily(counts.confusion, counts.classIds.length);
   let valid = 0, correct = 0;
   for (const p of all.perClass) {
     valid += p.tp + p.fn;
@@ -67,10 +65,16 @@ export function frameSummary(stats: FrameStats, bandWidth: number): FrameSummary
   return {
     meanIoU: all.meanIoU,
     pixelAccuracy: all.pixelAccuracy,
-    bandIoU: band.meanIoU,
-    boundaryIoU: frameBoundaryIoU(stats),
-    boundaryF: frameBoundaryF(stats),
+    bandIoU,
+    boundaryIoU: frameBoundaryIoU(counts),
+    boundaryF: frameBoundaryF(counts),
     errorPixels: valid - correct,
     validPixels: valid,
   };
+}
+
+/** Returns the frame's summary with the band at width `bandWidth` (0..64 pixels, rounded and clamped). */
+export function frameSummary(stats: FrameStats, bandWidth: number): FrameSummary {
+  const k = stats.classIds.length;
+  return frameSummaryOf(stats, iouFamily(bandConfusionAt(stats.band, k, Math.round(bandWidth)), k).meanIoU);
 }

@@ -1,4 +1,7 @@
-import type { FrameJobResult } from '../frameJob.ts';
+import type { FrameJobResult, FrameRunResult } from '../frameJob.ts';
+
+/** What the queue reads of a scored frame: its name, error, grid and each run's regions (never the scores). */
+export type SuspectFrame = Pick<FrameJobResult, 'name' | 'error' | 'grid'> & { runs: readonly Pick<FrameRunResult, 'run' | 'regions'>[] };
 import type { RegionEvidence, RegionKind } from '../regions/regionTypes.ts';
 import type { SuspectSettings } from './suspectSettings.ts';
 import { signalAgreement, signalGeometry, signalImage } from './suspectSignals.ts';
@@ -46,7 +49,7 @@ export function weightedMean(parts: readonly [number | null, number][]): number 
  * prediction of no class cannot say what the label should be, and void spill is never an error),
  * with their geometry, agreement and image signals, at most `perFrameMax` per run by `bound`.
  */
-export function suspectCandidates(result: FrameJobResult, frameIndex: number, s: SuspectSettings): SuspectCandidate[] {
+export function suspectCandidates(result: SuspectFrame, frameIndex: number, s: SuspectSettings): SuspectCandidate[] {
   const out: SuspectCandidate[] = [];
   if (result.error) return out;
   for (const r of result.runs) {
@@ -72,7 +75,7 @@ export function suspectCandidates(result: FrameJobResult, frameIndex: number, s:
 }
 
 /** Returns the grids of one frame's result for the temporal pass, or null when it has none. */
-export function frameGridsOf(result: FrameJobResult): FrameGrids | null {
+export function frameGridsOf(result: SuspectFrame): FrameGrids | null {
   if (result.error || !result.grid) return null;
   const runs: Record<string, Uint16Array> = {};
   for (const r of result.runs) if (r.regions) runs[r.run] = r.regions.grid;
@@ -83,7 +86,7 @@ export function frameGridsOf(result: FrameJobResult): FrameGrids | null {
 export type ConfidenceSums = Map<string, Map<number, { sum: number; count: number }>>;
 
 /** Adds one frame's confidence sums to `acc`. */
-export function confidenceSumsAdd(acc: ConfidenceSums, result: FrameJobResult): void {
+export function confidenceSumsAdd(acc: ConfidenceSums, result: SuspectFrame): void {
   if (result.error) return;
   for (const r of result.runs) {
     const c = r.regions?.confidence;

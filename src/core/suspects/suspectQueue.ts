@@ -1,7 +1,6 @@
-import type { FrameJobResult } from '../frameJob.ts';
 import { REGION_DEFAULTS } from '../regions/regionSettings.ts';
 import type { RegionKind } from '../regions/regionTypes.ts';
-import { confidenceSumsAdd, frameGridsOf, suspectCandidates, weightedMean, type ConfidenceSums, type SuspectCandidate } from './suspectCandidates.ts';
+import { confidenceSumsAdd, frameGridsOf, suspectCandidates, weightedMean, type ConfidenceSums, type SuspectCandidate, type SuspectFrame } from './suspectCandidates.ts';
 import { suspectReasons, type SuspectSignals } from './suspectReasons.ts';
 import type { SuspectSettings } from './suspectSettings.ts';
 import { candidateIndexBuild, steadyDisagreement } from './steadyDisagreement.ts';
@@ -129,7 +128,7 @@ export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Susp
 
 /** Returns the queue from frame results in dataset order (missing frames undefined): the same pass the scorer runs. */
 export function suspectQueueOfResults(
-  results: readonly (FrameJobResult | undefined)[], className: (id: number) => string, s: SuspectSettings, bandWidth?: number,
+  results: readonly (SuspectFrame | undefined)[], className: (id: number) => string, s: SuspectSettings, bandWidth?: number,
 ): Suspect[] {
   const candidates: SuspectCandidate[] = [];
   const confidence: ConfidenceSums = new Map();
