@@ -1,5 +1,5 @@
 // `npm run score -- --truth DIR --pred [NAME=]DIR ...`: scores a dataset headless with the same core
-// code as the browser, in a pool of worker threads; writes the METRICS.md JSON report.
+// code as the browser, in a pool of worker threads; writes the src/docs/metrics.md JSON report.
 import type { ClassTable } from '../core/classTable.ts';
 import type { FrameJobResult } from '../core/frameJob.ts';
 import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';

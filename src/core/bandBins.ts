@@ -5,7 +5,7 @@ import { edgeMark } from './metrics/edgeMark.ts';
 
 /**
  * Returns per pixel min(ceil(d), 65) with d the Euclidean distance (pixels) to the nearest
- * ground-truth boundary pixel (METRICS.md; void counts as a value), so `bins[i] ≤ w` means the pixel
+ * ground-truth boundary pixel (src/docs/metrics.md; void counts as a value), so `bins[i] ≤ w` means the pixel
  * is in Band(w). Uses the same boundary marking and capped transform as the scorer.
  */
 export function truthBandBins(truth: LabelMap): Uint8Array {

@@ -8,7 +8,7 @@ function isBoundary(ids: LabelMap['ids'], w: number, h: number, x: number, y: nu
 
 /**
  * Returns the exact Euclidean distance (pixels, between centres) from (x, y) to the nearest
- * ground-truth boundary pixel (METRICS.md), or null when none lies within `maxDistance`. For one
+ * ground-truth boundary pixel (src/docs/metrics.md), or null when none lies within `maxDistance`. For one
  * pixel under the cursor: scans squares of growing radius and stops once no closer pixel can remain.
  */
 export function truthBoundaryDistanceAt(truth: LabelMap, x: number, y: number, maxDistance = 64): number | null {

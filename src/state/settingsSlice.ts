@@ -3,7 +3,7 @@ import { DEFAULT_SCORE_SETTINGS, type ScoreSettings } from '../core/metrics/sett
 import type { AppState } from './store.ts';
 
 export interface SettingsSlice {
-  /** Score settings (METRICS.md); changing any of them rescores every frame. */
+  /** Score settings (src/docs/metrics.md); changing any of them rescores every frame. */
   settings: ScoreSettings;
   settingsSet(patch: Partial<ScoreSettings>): void;
 }

@@ -20,7 +20,7 @@ function NumberField({ label, value, step, min, max, onCommit, note }: { label: 
   );
 }
 
-/** Score settings (METRICS.md) and the class table; any change rescores every frame in the workers. */
+/** Score settings (src/docs/metrics.md) and the class table; any change rescores every frame in the workers. */
 export function SettingsTab() {
   const store = useAppStore();
   const settings = useApp((s) => s.settings);

@@ -91,7 +91,7 @@ function scopeOf(c: Counts, classes: Map<number, ClassInfo>, w: number, frameMea
   };
 }
 
-/** Returns the dataset's scores from its totals (METRICS.md: sums over frames; BF and frame mIoU per-frame means). */
+/** Returns the dataset's scores from its totals (src/docs/metrics.md: sums over frames; BF and frame mIoU per-frame means). */
 export function datasetScope(t: DatasetTotals, classes: Map<number, ClassInfo>, w: number): ScopeScores {
   const k = t.classIds.length;
   const confs = bandConfusions(t.band, k);

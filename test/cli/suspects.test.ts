@@ -84,7 +84,7 @@ describe('likely label mistakes on the Kestrel Quay demo (real CLI, --images, tw
   it('finds the injected label mistakes: precision among the top 20 and recall of the key within the top 50 both ≥ 0.6', () => {
     const top20 = report.suspects.slice(0, 20), top50 = report.suspects.slice(0, 50);
     const precision = top20.filter((s) => key.some((k) => finds(s.frame, s.bbox, k))).length / top20.length;
-    // Void painted over an object is not a disagreement (METRICS.md leaves void out), so the queue
+    // Void painted over an object is not a disagreement (src/docs/metrics.md leaves void out), so the queue
     // never holds it by design; it is checked against the void-spill areas below.
     const addressable = key.filter((k) => k.kind !== 'void-over-object');
     const recall = addressable.filter((k) => top50.some((s) => finds(s.frame, s.bbox, k))).length / addressable.length;

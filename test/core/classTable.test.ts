@@ -22,7 +22,7 @@ function errorOf(json: unknown): string {
   return r.error;
 }
 
-describe('classTableFromJson (schema of DESIGN.md "Inputs")', () => {
+describe('classTableFromJson (schema of src/docs/design.md "Inputs")', () => {
   it('reads a valid table, sorts by id and lower-cases colours', () => {
     const r = classTableFromJson(good);
     expect(r.ok).toBe(true);

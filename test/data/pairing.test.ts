@@ -10,7 +10,7 @@ describe('fileStem', () => {
   });
 });
 
-describe('datasetPair (layout of DESIGN.md "Inputs": images/, truth/, predictions/<run>/)', () => {
+describe('datasetPair (layout of src/docs/design.md "Inputs": images/, truth/, predictions/<run>/)', () => {
   it('pairs by stem in natural order and reports every unpaired file', () => {
     const p = datasetPair({
       images: ['f10.jpg', 'f2.png', 'f1.webp', 'orphan.png', 'notes.txt', '.DS_Store'],

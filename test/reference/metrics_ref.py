@@ -1,5 +1,5 @@
 #!/usr/bin/env python3
-"""Reference scorer for Hairline's METRICS.md, written the plain per-class way with numpy + scipy.
+"""Reference scorer for Hairline's src/docs/metrics.md, written the plain per-class way with numpy + scipy.
 
 It shares no code with the app. Each score follows its published source:
   * confusion, IoU family: Long, Shelhamer, Darrell, FCN, CVPR 2015 sec. 5; void truth left out
@@ -23,7 +23,7 @@ Usage:
       relative to the JSON file). A frame with "error" is reported failed as given.
   --time N  also time each score family N times per frame; adds "timing": median wall ms per frame
             per family and "total", and "cpuTotal" (process CPU ms, steadier on a busy machine).
-Prints the report JSON (METRICS.md "What the scorer prints") on stdout.
+Prints the report JSON (src/docs/metrics.md "What the scorer prints") on stdout.
 """
 import argparse
 import json
@@ -294,7 +294,7 @@ def frames_from_dirs(args):
 
 
 def main(argv):
-    ap = argparse.ArgumentParser(description="Reference scorer for METRICS.md (numpy + scipy).")
+    ap = argparse.ArgumentParser(description="Reference scorer for src/docs/metrics.md (numpy + scipy).")
     ap.add_argument("--frames")
     ap.add_argument("--truth")
     ap.add_argument("--pred")

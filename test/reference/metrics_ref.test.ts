@@ -13,7 +13,7 @@ import { randomPair } from '../support/randomMaps.ts';
 import { pythonRefRequire, pythonRefRun, reportDifferences } from './pythonRef.ts';
 
 // Every number of the report must agree to 1e-9 with test/reference/metrics_ref.py, an independent
-// numpy/scipy implementation of METRICS.md (scipy.ndimage.distance_transform_edt for distances and
+// numpy/scipy implementation of src/docs/metrics.md (scipy.ndimage.distance_transform_edt for distances and
 // the Boundary F tolerance, scipy.ndimage.binary_erosion with a 3×3 square for Boundary IoU).
 
 interface Frame { name: string; truth: LabelMap | null; pred: LabelMap | null; error?: string; png?: LabelPngEncoding }

@@ -11,7 +11,7 @@ export interface CompositeFrame {
   truth: LabelMap;
   /** Prediction runs by name. */
   preds: Record<string, LabelMap>;
-  /** Per pixel min(ceil(d), 65), d = distance to the nearest truth boundary pixel (METRICS.md), or null. */
+  /** Per pixel min(ceil(d), 65), d = distance to the nearest truth boundary pixel (src/docs/metrics.md), or null. */
   bandBins: Uint8Array | null;
 }
 

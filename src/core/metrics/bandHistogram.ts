@@ -1,4 +1,4 @@
-/** Largest band width answered (METRICS.md: every integer width 0..64). */
+/** Largest band width answered (src/docs/metrics.md: every integer width 0..64). */
 export const BAND_WIDTH_MAX = 64;
 /** Histogram bins: ceil(d) = 0..64, and 65 for everything farther (including "no boundary"). */
 export const BAND_BINS = BAND_WIDTH_MAX + 2;

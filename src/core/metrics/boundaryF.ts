@@ -52,7 +52,7 @@ function diskHit(
 }
 
 /**
- * Adds one frame's Boundary F counts (Csurka, Larlus, Perronnin, BMVC 2013; METRICS.md) to `out`.
+ * Adds one frame's Boundary F counts (Csurka, Larlus, Perronnin, BMVC 2013; src/docs/metrics.md) to `out`.
  * `scan.listT` holds the pixels of ∂G (each in ∂G of its truth class), `scan.listP` those of ∂P
  * (each in ∂P of its predicted class; void truth already left out), both row by row. A boundary
  * pixel is matched when one of the other side's same-class boundary pixels lies within squared

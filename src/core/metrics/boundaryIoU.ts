@@ -24,7 +24,7 @@ export function innerBandReset(work: InnerBandWork, width: number): void {
 /**
  * Adds `n` pixels of truth code t and prediction code p to the Boundary IoU counts, given whether
  * they lie in the inner band of their truth class (`tb`) and of their predicted class (`pb`);
- * void-truth pixels are removed after the bands are made (METRICS.md), so they count for neither.
+ * void-truth pixels are removed after the bands are made (src/docs/metrics.md), so they count for neither.
  */
 function bandRunCount(t: number, p: number, k: number, tb: number, pb: number, n: number, inter: Uint32Array, union: Uint32Array): void {
   if (t >= k || n === 0) return;

@@ -7,7 +7,7 @@ import { iouFamily } from './iouFamily.ts';
 /**
  * Dataset sums of frame counts (pixels), over a fixed class list. Float64 so sums pass 2^32; every
  * dataset score is computed from these sums (VOC convention), except the two per-frame means
- * METRICS.md defines (frame-mean IoU, dataset BF), kept as running sums.
+ * src/docs/metrics.md defines (frame-mean IoU, dataset BF), kept as running sums.
  */
 export interface DatasetTotals {
   classIds: number[];

@@ -1,7 +1,7 @@
 /**
  * Sets `out[i] = 1` where pixel i has a 4-neighbour inside the image with a different code, 0
  * elsewhere; returns the number of marked pixels. With truth codes (or raw truth ids) this is
- * METRICS.md's ground-truth boundary: void is a value like any other, the image border is no boundary.
+ * src/docs/metrics.md's ground-truth boundary: void is a value like any other, the image border is no boundary.
  * Hot loop: flat typed arrays, row offsets hoisted, no allocation per pixel.
  */
 export function edgeMark(codes: Uint8Array | Uint16Array, width: number, height: number, out: Uint8Array): number {

@@ -31,7 +31,7 @@ export function edgeScanCreate(pixels: number, height: number): EdgeScan {
  * Scans row `y` of both maps. First writes the codes of row y+1 (`table` maps raw ids to codes, see
  * codes.ts; row 0 must be coded before row 0 is scanned), so each row is read from the input once.
  * A pixel is a boundary pixel of its map when a 4-neighbour inside the image has another code
- * (METRICS.md; void is a value, the border is no boundary). Writes the truth map's forward column
+ * (src/docs/metrics.md; void is a value, the border is no boundary). Writes the truth map's forward column
  * distance (0 on its boundary, capped at `far` ≤ 255) and appends Boundary F edge pixels to the lists.
  * Hot loop: flat typed arrays, codes compared by XOR so no booleans, no allocation per pixel;
  * border pixels take a separate checked path so the interior loop has no bounds tests.

@@ -60,7 +60,7 @@ function frameInputCheck(truth: LabelMap, pred: LabelMap): Result<true> {
 }
 
 /**
- * Returns the additive counts of every METRICS.md score for one frame, or the problem with its input
+ * Returns the additive counts of every src/docs/metrics.md score for one frame, or the problem with its input
  * (sizes that differ, a bad class list or settings). Truth ids outside the table are scored as void.
  * Pass one `scratch` per thread to reuse buffers across frames.
  */

@@ -4,7 +4,7 @@ import type { FrameStats } from './frameScore.ts';
 export type FrameCounts = Omit<FrameStats, 'band'>;
 import { bandConfusionAt, iouFamily } from './iouFamily.ts';
 
-/** The per-frame numbers lists and timelines show; null where METRICS.md leaves a score undefined. */
+/** The per-frame numbers lists and timelines show; null where src/docs/metrics.md leaves a score undefined. */
 export interface FrameSummary {
   meanIoU: number | null;
   pixelAccuracy: number | null;
@@ -19,7 +19,7 @@ export interface FrameSummary {
 
 /**
  * Returns the Boundary F-score (ratio 0..1) of class index `c` on one frame (Csurka et al., BMVC 2013):
- * F = 2PR/(P+R); 0 when one side has boundary pixels and the other none (METRICS.md), and 0 when
+ * F = 2PR/(P+R); 0 when one side has boundary pixels and the other none (src/docs/metrics.md), and 0 when
  * both have some but none matches, P = R = 0 (common practice: the limit of 2PR/(P+R)); null when
  * neither side has any.
  */

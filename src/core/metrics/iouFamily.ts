@@ -52,7 +52,7 @@ export function iouFamily(m: ArrayLike<number>, k: number, offset = 0): IoUFamil
 
 /**
  * Returns the confusion (K × (K+1), pixels) of Band(w) from a band histogram (BAND_BINS × K × (K+1)):
- * the sum of bins 0..w, i.e. the valid pixels with ceil(d) ≤ w, i.e. d ≤ w (METRICS.md). `w` is
+ * the sum of bins 0..w, i.e. the valid pixels with ceil(d) ≤ w, i.e. d ≤ w (src/docs/metrics.md). `w` is
  * clamped to 0..64.
  */
 export function bandConfusionAt(band: ArrayLike<number>, k: number, w: number): Float64Array {
@@ -70,7 +70,7 @@ export function bandScoresAt(band: ArrayLike<number>, k: number, w: number): IoU
 
 /**
  * Returns the confusion of Band(w) for every width w = 0..64 from a band histogram (BAND_BINS × K ×
- * (K+1)): a running prefix sum over bins, so width w holds the pixels with ceil(d) ≤ w (METRICS.md).
+ * (K+1)): a running prefix sum over bins, so width w holds the pixels with ceil(d) ≤ w (src/docs/metrics.md).
  */
 export function bandConfusions(band: ArrayLike<number>, k: number): Float64Array[] {
   const stride = k * (k + 1);

@@ -5,7 +5,7 @@ import { frameBoundaryF, frameBoundaryIoU } from './frameSummary.ts';
 import { bandCurve, iouFamily } from './iouFamily.ts';
 import type { ScoreSettings } from './settings.ts';
 
-/** The scorer's JSON report, keys and meaning exactly as METRICS.md "What the scorer prints". */
+/** The scorer's JSON report, keys and meaning exactly as src/docs/metrics.md "What the scorer prints". */
 export interface ScoreReport {
   classes: { id: number; name: string }[];
   settings: { ignore: number; biouDilationRatio: number; bfTolerance: number };

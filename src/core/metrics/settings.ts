@@ -1,6 +1,6 @@
 import { fail, ok, type Result } from '../result.ts';
 
-/** The settings every score depends on (METRICS.md); they are printed with every report. */
+/** The settings every score depends on (src/docs/metrics.md); they are printed with every report. */
 export interface ScoreSettings {
   /** Ground-truth id of void pixels, left out of every score. */
   ignore: number;
@@ -10,7 +10,7 @@ export interface ScoreSettings {
   bfTolerance: number;
 }
 
-/** The defaults METRICS.md names. */
+/** The defaults src/docs/metrics.md names. */
 export const DEFAULT_SCORE_SETTINGS: ScoreSettings = Object.freeze({
   ignore: 255,
   biouDilationRatio: 0.02,

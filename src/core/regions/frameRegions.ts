@@ -35,7 +35,7 @@ function sizeCheck(what: string, w: number, h: number, width: number, height: nu
 
 /**
  * Returns the error regions of every run of one frame, or the problem with the input (sizes that
- * differ, a bad class list). The truth's codes, boundary counts for Band(w) (METRICS.md) and segments
+ * differ, a bad class list). The truth's codes, boundary counts for Band(w) (src/docs/metrics.md) and segments
  * are made once and shared by the runs; every run sees the others'
  * predictions for agreement. Pass one `scratch` per thread to reuse buffers.
  */

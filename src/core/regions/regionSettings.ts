@@ -7,7 +7,7 @@ import { fail, ok, type Result } from '../result.ts';
 export const REGION_DEFAULTS = {
   /** Regions with fewer pixels are counted (kind "tiny") but not listed. */
   minArea: 20,
-  /** Width w of the METRICS.md Band(w) a region is measured against, pixels. */
+  /** Width w of the src/docs/metrics.md Band(w) a region is measured against, pixels. */
   bandWidth: 3,
   /** boundary: at least this share of the region lies in Band(bandWidth). */
   boundaryBandShare: 0.5,
@@ -40,7 +40,7 @@ export function regionSettingsCheck(partial: Partial<RegionSettings> = {}): Resu
     const v = s[key];
     if (!Number.isInteger(v) || v < min || v > 1e9) return fail('', `region settings: "${key}" must be a whole number ≥ ${min}, got ${v}`);
   }
-  if (s.bandWidth > 64) return fail('', `region settings: "bandWidth" must be 0..64 pixels (METRICS.md band widths), got ${s.bandWidth}`);
+  if (s.bandWidth > 64) return fail('', `region settings: "bandWidth" must be 0..64 pixels (src/docs/metrics.md band widths), got ${s.bandWidth}`);
   if (s.edgeTolerance > 16) return fail('', `region settings: "edgeTolerance" must be 0..16 pixels, got ${s.edgeTolerance}`);
   const shares: (keyof RegionSettings)[] = ['boundaryBandShare', 'objectCover', 'counterpartShareMax', 'bandPixelWeight', 'gridCellShare'];
   for (const key of shares) {

@@ -57,7 +57,7 @@ export interface ErrorRegion {
   bbox: [number, number, number, number];
   /** Mean of pixel centres (x + 0.5, y + 0.5), in the same frame as bbox. */
   centroid: [number, number];
-  /** Share of its pixels inside Band(bandWidth) of the ground-truth boundary (METRICS.md), 0..1. */
+  /** Share of its pixels inside Band(bandWidth) of the ground-truth boundary (src/docs/metrics.md), 0..1. */
   bandShare: number;
   /** Largest Euclidean distance (pixels, centre to centre) from a region pixel to the nearest pixel outside it; 1 for a one-pixel line. */
   thickness: number;

@@ -1,5 +1,5 @@
 /**
- * Band(w) membership (METRICS.md) for the pixels of regions only, without a distance transform of the
+ * Band(w) membership (src/docs/metrics.md) for the pixels of regions only, without a distance transform of the
  * whole frame: per pixel, the distance along its row to the row's nearest ground-truth boundary
  * pixel, so a pixel lies in Band(w) exactly when some row y' with |y' − y| ≤ w has one within
  * floor(√(w² − (y' − y)²)) of its column: one read per row looked at.

@@ -14,7 +14,7 @@ export interface DatasetSource {
   close?(): void;
 }
 
-/** Splits `a/b/c.png` under a dataset root into its top folder and the rest, for the layout of DESIGN.md. */
+/** Splits `a/b/c.png` under a dataset root into its top folder and the rest, for the layout of src/docs/design.md. */
 export function datasetPathSplit(path: string): { folder: string; rest: string } | null {
   const parts = path.split('/').filter((p) => p !== '' && p !== '.');
   if (parts.length < 2) return null;

@@ -1,4 +1,4 @@
-// Band bins straight from the definitions in METRICS.md: a boundary pixel has a 4-neighbour inside
+// Band bins straight from the definitions in src/docs/metrics.md: a boundary pixel has a 4-neighbour inside
 // the image with a different truth value; bin = min(ceil(d), 65) with d the Euclidean distance between
 // pixel centres to the nearest boundary pixel (65 when there is none).
 import type { LabelMap } from '../../../src/core/labelMap.ts';

@@ -6,7 +6,7 @@ import { plainInnerBand } from './plainScores.ts';
 
 // The all-classes-at-once window reading (a pixel is in its own class's inner band iff its
 // (2·dil+1)² window leaves the image or holds another value) must equal, class by class, the
-// definition of Cheng et al. (CVPR 2021) as METRICS.md states it: X minus X eroded dil times with a
+// definition of Cheng et al. (CVPR 2021) as src/docs/metrics.md states it: X minus X eroded dil times with a
 // 3×3 square, pixels outside the image not in X; then void-truth pixels are removed.
 
 function kernelCounts(truth: Uint16Array, pred: Uint16Array, w: number, h: number, k: number, dil: number) {

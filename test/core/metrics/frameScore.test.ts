@@ -7,7 +7,7 @@ import { randomPair, type RandomPairOptions } from '../../support/randomMaps.ts'
 import { plainDistance2, plainEdges, plainFrameStats } from './plainScores.ts';
 
 // The fast multi-label kernels must give exactly the counts of the plain per-class reference in
-// plainScores.ts (written from METRICS.md: brute-force Euclidean distances, erosion repeated dil
+// plainScores.ts (written from src/docs/metrics.md: brute-force Euclidean distances, erosion repeated dil
 // times with a 3×3 square as in Cheng et al. CVPR 2021, Boundary F per class as in Csurka et al.
 // BMVC 2013). One scratch is shared by all cases so buffer reuse across sizes is exercised too.
 

@@ -5,7 +5,7 @@ import { boundaryFOfClass, frameBoundaryF, frameBoundaryIoU } from '../../../src
 import { bandScoresAt, iouFamily } from '../../../src/core/metrics/iouFamily.ts';
 import { DEFAULT_SCORE_SETTINGS, type ScoreSettings } from '../../../src/core/metrics/settings.ts';
 
-// Tiny maps whose scores are worked out by hand below, from the definitions in METRICS.md and the
+// Tiny maps whose scores are worked out by hand below, from the definitions in src/docs/metrics.md and the
 // papers it cites. Rows are written top to bottom; (x, y) is column, row.
 
 function map(rows: number[][]): LabelMap {
@@ -26,7 +26,7 @@ describe('IoU family and band on a 4×2 frame', () => {
   const pred = map([[0, 1, 1, 1], [0, 0, 9, 1]]);
   const s = score(truth, pred, [0, 1]);
 
-  it('confusion: void truth left out, the invalid prediction in the extra column (PASCAL VOC; METRICS.md)', () => {
+  it('confusion: void truth left out, the invalid prediction in the extra column (PASCAL VOC; src/docs/metrics.md)', () => {
     // truth 0 (4 px) predicted 0,1,0,0; truth 1 (3 px) predicted 1,1,9; the void pixel is dropped.
     expect(Array.from(s.confusion)).toEqual([3, 1, 0, 0, 2, 1]);
   });
@@ -109,7 +109,7 @@ describe('Boundary IoU and Boundary F on a 5×5 frame', () => {
   });
 
   it('Boundary F is 0 when only one side has boundary pixels and undefined when neither has', () => {
-    // Class 2 appears only in the prediction (one pixel): ∂P_2 = 1, ∂G_2 = 0 → F = 0 (METRICS.md).
+    // Class 2 appears only in the prediction (one pixel): ∂P_2 = 1, ∂G_2 = 0 → F = 0 (src/docs/metrics.md).
     const p = map(sq(2));
     p.ids[12] = 2;
     const s = score(truth, p, [0, 1, 2, 3]);

@@ -3,7 +3,7 @@ import type { FrameStats } from '../../../src/core/metrics/frameScore.ts';
 import type { ScoreSettings } from '../../../src/core/metrics/settings.ts';
 
 /**
- * Plain per-class reference versions of every frame count, written straight from METRICS.md with
+ * Plain per-class reference versions of every frame count, written straight from src/docs/metrics.md with
  * no shared code and no speed tricks (brute-force distances, erosion repeated `dil` times), to check
  * the fast multi-label kernels against. Small maps only: distances are O(pixels × boundary pixels).
  */

@@ -8,7 +8,7 @@ import { reportFrameLine, scoreReport, scoreReportOfFrames } from '../../../src/
 import { DEFAULT_SCORE_SETTINGS } from '../../../src/core/metrics/settings.ts';
 import { randomPair } from '../../support/randomMaps.ts';
 
-// The report must have exactly the keys of METRICS.md "What the scorer prints", dataset scores from
+// The report must have exactly the keys of src/docs/metrics.md "What the scorer prints", dataset scores from
 // the confusion summed over frames (PASCAL VOC convention), frame-mean IoU and Boundary F as means
 // over frames, failed frames left out of every sum, and null (never NaN) where a score is undefined.
 
@@ -30,7 +30,7 @@ describe('scoreReport', () => {
   ];
   const report = scoreReportOfFrames(CLASSES, IDS, DEFAULT_SCORE_SETTINGS, frames);
 
-  it('has exactly the METRICS.md keys, in order', () => {
+  it('has exactly the src/docs/metrics.md keys, in order', () => {
     expect(Object.keys(report)).toEqual(['classes', 'settings', 'dataset', 'frames']);
     expect(Object.keys(report.settings)).toEqual(['ignore', 'biouDilationRatio', 'bfTolerance']);
     expect(Object.keys(report.dataset)).toEqual(['pixelAccuracy', 'meanAccuracy', 'meanIoU', 'fwIoU', 'frameMeanIoU', 'perClass', 'band', 'boundaryIoU', 'boundaryF']);

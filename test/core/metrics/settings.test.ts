@@ -4,7 +4,7 @@ import {
 } from '../../../src/core/metrics/settings.ts';
 
 describe('Boundary IoU dilation (Cheng et al., CVPR 2021; rounding as Python 3 round)', () => {
-  it('rounds half to even, as METRICS.md requires for 75×100 (0.02 · 125 = 2.5 → 2)', () => {
+  it('rounds half to even, as src/docs/metrics.md requires for 75×100 (0.02 · 125 = 2.5 → 2)', () => {
     expect(boundaryIoUDilation(75, 100, 0.02)).toBe(2);
     expect(roundHalfEven(2.5)).toBe(2);
     expect(roundHalfEven(3.5)).toBe(4);

@@ -32,7 +32,7 @@ const EXPECTED: Record<string, RegExp | ((map: DecodedLabelMap) => void)> = {
   'iend-missing.png': /is truncated: the file ends before its end marker \(IEND\)/,
   'idat-before-plte.png': (m) => expect(m.encoding.kind).toBe('palette'),
   'palette-index-past-end.png': (m) => {
-    // Index = id (METRICS.md): indices past the 5 colours are kept as ids, not clamped or refused.
+    // Index = id (src/docs/metrics.md): indices past the 5 colours are kept as ids, not clamped or refused.
     expect(m.encoding.kind === 'palette' && m.encoding.colors.length).toBe(15);
     expect(Math.max(...m.ids)).toBeGreaterThan(4);
   },

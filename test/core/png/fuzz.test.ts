@@ -181,7 +181,7 @@ function jobMismatch(res: FrameJobResult, r: Result<DecodedLabelMap>, role: 'tru
   }
   if (role === 'truth' && res.error !== null) return res.error.startsWith(`${file}: `) ? '' : `frame error not naming the truth file: ${res.error}`;
   if (run.error !== null) return run.error.includes(file) ? '' : `run error not naming the mutant: ${run.error}`;
-  // METRICS.md: void ground truth is left out of the confusion matrix, every other truth pixel is counted once.
+  // src/docs/metrics.md: void ground truth is left out of the confusion matrix, every other truth pixel is counted once.
   const counted = run.stats!.confusion.reduce((a, b) => a + b, 0);
   let nonVoid = 0;
   for (let p = 0; p < truthIds.length; p++) if (truthIds[p] !== DEFAULT_SCORE_SETTINGS.ignore) nonVoid++;

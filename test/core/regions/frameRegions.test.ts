@@ -14,7 +14,7 @@ import { refBandShare, refBoundary, refRegions, refSegments, refThickness } from
 // Region extraction against the plain reference in regionsReference.ts (breadth-first flood fill,
 // brute-force distances): 8-connected components as in Rosenfeld & Pfaltz, "Sequential Operations in
 // Digital Picture Processing", JACM 13(4), 1966 (the two-pass labelling the runs implement); Band(w)
-// as METRICS.md defines it.
+// as src/docs/metrics.md defines it.
 
 const IDS = [0, 1, 2, 3, 5];
 function settingsOf(partial: Partial<RegionSettings>): RegionSettings {

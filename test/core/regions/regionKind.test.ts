@@ -7,7 +7,7 @@ import { paintRect } from '../../support/paint.ts';
 
 // Kinds on constructed cases whose answer is plain from the picture (README "Error regions" gives
 // the rules): a one-pixel shift of an edge, a deleted object, a hallucinated blob, an interior patch,
-// a prediction over void. Band(3) as METRICS.md defines it.
+// a prediction over void. Band(3) as src/docs/metrics.md defines it.
 
 const IDS = [0, 1, 2, 3];
 const W = 80, H = 60;

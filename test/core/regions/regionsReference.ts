@@ -74,7 +74,7 @@ export function refSegments(map: LabelMap, classIds: number[] | null): number[][
   return floodComponents(keys, map.width, map.height);
 }
 
-/** Returns the METRICS.md truth boundary pixels: a 4-neighbour inside the image with another value. */
+/** Returns the src/docs/metrics.md truth boundary pixels: a 4-neighbour inside the image with another value. */
 export function refBoundary(truth: LabelMap): number[] {
   const { width, height, ids } = truth;
   const out: number[] = [];
