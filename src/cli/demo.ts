@@ -3,7 +3,7 @@
 // classes.json, answer-key.json) into DIR.
 import { argsParse, UsageError } from './args.ts';
 import { demoDatasetWrite } from './demoWrite.ts';
-import { demoOptionsCheck, type DemoOptions } from '../data/demo/options.ts';
+import { demoOptionsCheck, type DemoOptions } from '../demo/options.ts';
 
 const USAGE = 'usage: demo --out DIR [--size WxH] [--frames N] [--seed S] [--threads N]';
 

@@ -3,10 +3,10 @@
 import { writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { deflateSync } from 'node:zlib';
-import { demoFrame, type DemoZlib } from '../data/demo/frame.ts';
-import type { DemoMistake } from '../data/demo/mistakes.ts';
-import type { DemoOptions } from '../data/demo/options.ts';
-import { DEMO_RUNS } from '../data/demo/runs.ts';
+import { demoFrame, type DemoZlib } from '../demo/frame.ts';
+import type { DemoMistake } from '../demo/mistakes.ts';
+import type { DemoOptions } from '../demo/options.ts';
+import { DEMO_RUNS } from '../demo/runs.ts';
 
 // Label maps through Node's zlib: the same files, about ten times quicker than the portable default
 // (measured: 1 ms against 14 ms for a 1024×512 map). Photos keep the portable Huffman-only writer.

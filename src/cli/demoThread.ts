@@ -1,5 +1,5 @@
 // Worker thread of the demo writer: generates and writes single frames on request.
-import type { DemoOptions } from '../data/demo/options.ts';
+import type { DemoOptions } from '../demo/options.ts';
 import { workerServe } from '../workers/serve.ts';
 import { demoFrameFilesWrite } from './demoFrameFiles.ts';
 import { threadEndpoint } from './threadPort.ts';

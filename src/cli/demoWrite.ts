@@ -5,10 +5,10 @@ import { mkdir, readdir, stat, unlink, writeFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { fail, ok, type Result } from '../core/result.ts';
-import { demoClassesJson } from '../data/demo/classes.ts';
-import type { DemoMistake } from '../data/demo/mistakes.ts';
-import { demoFrameName, type DemoOptions } from '../data/demo/options.ts';
-import { DEMO_RUNS } from '../data/demo/runs.ts';
+import { demoClassesJson } from '../demo/classes.ts';
+import type { DemoMistake } from '../demo/mistakes.ts';
+import { demoFrameName, type DemoOptions } from '../demo/options.ts';
+import { DEMO_RUNS } from '../demo/runs.ts';
 import { workerPoolCreate } from '../workers/pool.ts';
 import { threadPortCreate } from './threadPort.ts';
 

@@ -1,4 +1,4 @@
-import { demoOptionsCheck, type DemoOptions } from '../data/demo/options.ts';
+import { demoOptionsCheck, type DemoOptions } from '../demo/options.ts';
 import { demoSourceOpen } from '../data/sources/demoSource.ts';
 import type { Result } from '../core/result.ts';
 import type { ScoreReport } from '../core/metrics/report.ts';

@@ -20,8 +20,8 @@ import { regionScratchFit, regionScratchPhoto, regionScratchTables } from '../..
 import { regionThickness } from '../../src/core/regions/regionThickness.ts';
 import { RUN_KEEP, runsLabel } from '../../src/core/regions/runLabel.ts';
 import { bandCountRun, bandReach, truthEdgeReach } from '../../src/core/regions/truthBand.ts';
-import { DEMO_CLASS_COUNT } from '../../src/data/demo/classes.ts';
-import { demoFrameRaster } from '../../src/data/demo/frame.ts';
+import { DEMO_CLASS_COUNT } from '../../src/demo/classes.ts';
+import { demoFrameRaster } from '../../src/demo/frame.ts';
 
 const W = 2048, H = 1024;
 const args = process.argv.slice(2);

@@ -8,7 +8,7 @@ import { demoArgsParse } from '../../src/cli/demo.ts';
 import { demoDatasetWrite } from '../../src/cli/demoWrite.ts';
 import { classTableFromText } from '../../src/core/classTable.ts';
 import { labelMapFromPng } from '../../src/core/png/decodeLabel.ts';
-import { demoAnswerKey, demoFrameRaster } from '../../src/data/demo/frame.ts';
+import { demoAnswerKey, demoFrameRaster } from '../../src/demo/frame.ts';
 
 const O = { width: 256, height: 128, frames: 5, seed: 3 };
 let root: string;

@@ -1,7 +1,7 @@
-import { demoClassesJson } from '../demo/classes.ts';
-import type { DemoFrame } from '../demo/frame.ts';
-import { DEMO_DEFAULTS, demoFrameName, type DemoOptions } from '../demo/options.ts';
-import { DEMO_RUNS } from '../demo/runs.ts';
+import { demoClassesJson } from '../../demo/classes.ts';
+import type { DemoFrame } from '../../demo/frame.ts';
+import { DEMO_DEFAULTS, demoFrameName, type DemoOptions } from '../../demo/options.ts';
+import { DEMO_RUNS } from '../../demo/runs.ts';
 import { browserPortCreate } from '../../workers/browserPort.ts';
 import { workerPoolCreate } from '../../workers/pool.ts';
 import type { DatasetSource } from './source.ts';
@@ -20,7 +20,7 @@ export interface DemoSource extends DatasetSource {
  */
 export function demoSourceOpen(options: DemoOptions = { ...DEMO_DEFAULTS }, workers = Math.max(1, Math.min(2, navigator.hardwareConcurrency || 2))): DemoSource {
   const pool = workerPoolCreate(
-    () => browserPortCreate(() => new Worker(new URL('../demo/demo.worker.ts', import.meta.url), { type: 'module', name: 'hairline-demo' })),
+    () => browserPortCreate(() => new Worker(new URL('../../workers/demo.worker.ts', import.meta.url), { type: 'module', name: 'hairline-demo' })),
     workers,
   );
   const frames = new Map<number, Promise<Record<string, Blob>>>();

@@ -2,7 +2,7 @@
 // matching. Photos with sensor noise give LZ77 almost nothing to match, so this is as small as a
 // fast general compressor's output and several times quicker; it runs anywhere (browser, worker,
 // Node). Hot loops: flat typed arrays, no allocation per byte.
-import { adler32 } from '../../core/png/adler32.ts';
+import { adler32 } from '../core/png/adler32.ts';
 
 /** Bytes coded under one Huffman table: big enough to amortise the table, small enough to follow the image. */
 const BLOCK = 1 << 16;

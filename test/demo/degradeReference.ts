@@ -1,7 +1,7 @@
 // Plain reference of labelsDegrade: the same model written the obvious way (every class summed at
 // every pixel, the displacement interpolated per pixel), to check the fast version against.
-import type { DegradeSettings } from '../../../src/data/demo/degrade.ts';
-import { noise2 } from '../../../src/data/demo/random.ts';
+import type { DegradeSettings } from '../../src/demo/degrade.ts';
+import { noise2 } from '../../src/demo/random.ts';
 
 /** Returns the degraded map and, per pixel, the margin between the best and second-best class weight. */
 export function labelsDegradeReference(src: Uint8Array, width: number, height: number, s: DegradeSettings): { ids: Uint8Array; margin: Float64Array } {

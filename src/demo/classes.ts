@@ -1,4 +1,4 @@
-import { classTableFromJson, colorToRgb24, type ClassTable } from '../../core/classTable.ts';
+import { classTableFromJson, colorToRgb24, type ClassTable } from '../core/classTable.ts';
 
 /** Class ids of the Kestrel Quay demo. */
 export const DEMO_CLASS = {

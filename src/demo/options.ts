@@ -1,4 +1,4 @@
-import { fail, ok, type Result } from '../../core/result.ts';
+import { fail, ok, type Result } from '../core/result.ts';
 
 /** What to generate: frame size in pixels, number of frames and the seed of the whole sequence. */
 export interface DemoOptions {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { classTableFromText } from '../../../src/core/classTable.ts';
-import { DEMO_CLASS, DEMO_CLASS_COUNT, demoClassesJson, demoClassTable, demoPalette } from '../../../src/data/demo/classes.ts';
+import { classTableFromText } from '../../src/core/classTable.ts';
+import { DEMO_CLASS, DEMO_CLASS_COUNT, demoClassesJson, demoClassTable, demoPalette } from '../../src/demo/classes.ts';
 
 describe('demo classes', () => {
   it('lists the twelve Kestrel Quay classes, ids 0..11, with void 255', () => {
@@ -13,7 +13,7 @@ describe('demo classes', () => {
     expect(DEMO_CLASS.vegetation).toBe(11);
   });
 
-  it('writes classes.json that the users’ parser accepts (schema of DESIGN.md)', () => {
+  it('writes classes.json that the users’ parser accepts (schema of src/docs/design.md)', () => {
     const text = JSON.stringify(demoClassesJson());
     const parsed = classTableFromText(text);
     expect(parsed.ok).toBe(true);

@@ -3,9 +3,9 @@
 import { inflateSync } from 'node:zlib';
 import { unzlibSync } from 'fflate';
 import { describe, expect, it } from 'vitest';
-import { Rng } from '../../../src/data/demo/random.ts';
-import { adler32 } from '../../../src/core/png/adler32.ts';
-import { huffmanLengths, zlibHuffmanOnly } from '../../../src/data/demo/zlibHuffman.ts';
+import { Rng } from '../../src/demo/random.ts';
+import { adler32 } from '../../src/core/png/adler32.ts';
+import { huffmanLengths, zlibHuffmanOnly } from '../../src/demo/zlibHuffman.ts';
 
 function inputs(): Uint8Array[] {
   const rng = new Rng(5);

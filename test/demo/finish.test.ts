@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { demoCamera } from '../../../src/data/demo/camera.ts';
-import { hoodPass, hoodTop, photoFinish } from '../../../src/data/demo/finish.ts';
-import { hash3, Rng } from '../../../src/data/demo/random.ts';
-import { rasterTargetCreate } from '../../../src/data/demo/raster.ts';
+import { demoCamera } from '../../src/demo/camera.ts';
+import { hoodPass, hoodTop, photoFinish } from '../../src/demo/finish.ts';
+import { hash3, Rng } from '../../src/demo/random.ts';
+import { rasterTargetCreate } from '../../src/demo/raster.ts';
 
 // Plain per-pixel version of photoFinish: clamped 5-tap blur, vignette, the same hashed grain.
 function photoFinishReference(rgb: Float32Array, w: number, h: number, seed: number, frame: number): Uint8Array {

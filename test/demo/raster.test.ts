@@ -1,10 +1,10 @@
 // The rasteriser and the background pass against plain per-pixel references: pixel-centre
 // point-in-polygon (even-odd crossing rule) and a per-pixel ray–ground intersection.
 import { describe, expect, it } from 'vitest';
-import { demoCamera } from '../../../src/data/demo/camera.ts';
-import { groundClassAt, groundPass } from '../../../src/data/demo/ground.ts';
-import { drawState, faceState, rasterFacePolygon, rasterTargetCreate } from '../../../src/data/demo/raster.ts';
-import { Rng } from '../../../src/data/demo/random.ts';
+import { demoCamera } from '../../src/demo/camera.ts';
+import { groundClassAt, groundPass } from '../../src/demo/ground.ts';
+import { drawState, faceState, rasterFacePolygon, rasterTargetCreate } from '../../src/demo/raster.ts';
+import { Rng } from '../../src/demo/random.ts';
 
 function insideEvenOdd(px: number, py: number, xs: number[], ys: number[]): boolean {
   let inside = false;

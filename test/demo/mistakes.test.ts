@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { maskShiftDilate } from '../../../src/data/demo/mistakes.ts';
-import { Rng } from '../../../src/data/demo/random.ts';
+import { maskShiftDilate } from '../../src/demo/mistakes.ts';
+import { Rng } from '../../src/demo/random.ts';
 
 describe('maskShiftDilate', () => {
   it('equals the brute-force definition: some mask pixel q with |p − q − s|∞ ≤ r', () => {

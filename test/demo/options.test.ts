@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { demoFrameName, demoOptionsCheck, DEMO_DEFAULTS } from '../../../src/data/demo/options.ts';
+import { demoFrameName, demoOptionsCheck, DEMO_DEFAULTS } from '../../src/demo/options.ts';
 
 describe('demoOptionsCheck', () => {
   it('fills in the defaults: 48 frames of 1024×512', () => {

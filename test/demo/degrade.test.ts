@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { demoCamera } from '../../../src/data/demo/camera.ts';
-import { DEMO_CLASS } from '../../../src/data/demo/classes.ts';
-import { labelsDegrade, type DegradeSettings } from '../../../src/data/demo/degrade.ts';
-import { sceneRender } from '../../../src/data/demo/render.ts';
-import { demoScene } from '../../../src/data/demo/scene.ts';
+import { demoCamera } from '../../src/demo/camera.ts';
+import { DEMO_CLASS } from '../../src/demo/classes.ts';
+import { labelsDegrade, type DegradeSettings } from '../../src/demo/degrade.ts';
+import { sceneRender } from '../../src/demo/render.ts';
+import { demoScene } from '../../src/demo/scene.ts';
 import { labelsDegradeReference } from './degradeReference.ts';
 
 function settings(stride: number, wobble: number, time: number): DegradeSettings {

@@ -1,10 +1,10 @@
 // The two prediction runs against the true scene: the errors each run is meant to make, measured
 // with simple pixel counts over the whole sequence.
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_CLASS, DEMO_CLASS_COUNT, DEMO_IGNORE } from '../../../src/data/demo/classes.ts';
-import { demoFrameRaster, type DemoFrameRaster } from '../../../src/data/demo/frame.ts';
-import { DEMO_RUNS, type DemoRunName } from '../../../src/data/demo/runs.ts';
-import { demoScene } from '../../../src/data/demo/scene.ts';
+import { DEMO_CLASS, DEMO_CLASS_COUNT, DEMO_IGNORE } from '../../src/demo/classes.ts';
+import { demoFrameRaster, type DemoFrameRaster } from '../../src/demo/frame.ts';
+import { DEMO_RUNS, type DemoRunName } from '../../src/demo/runs.ts';
+import { demoScene } from '../../src/demo/scene.ts';
 
 const O = { width: 512, height: 256, frames: 48, seed: 1 };
 const W = O.width;

@@ -2,9 +2,9 @@
 // second per 1024×512 noisy photo here); the demo writes 48+ photos at a time, so it uses the Up
 // filter and Huffman-only deflate (measured on a demo photo: 36 ms and 909 KB, against 155 ms and
 // 934 KB for fflate's fastest level), with the same chunk writer. Photos are lossless either way.
-import { ihdrBytes, pngFromChunks } from '../../core/png/chunkWrite.ts';
-import type { ZlibCompress } from '../../core/png/encode.ts';
-import { pngRowsFilter } from '../../core/png/filterRows.ts';
+import { ihdrBytes, pngFromChunks } from '../core/png/chunkWrite.ts';
+import type { ZlibCompress } from '../core/png/encode.ts';
+import { pngRowsFilter } from '../core/png/filterRows.ts';
 import { zlibHuffmanOnly } from './zlibHuffman.ts';
 
 /** Returns the PNG file bytes (8-bit RGB, colour type 2) of `rgb` (length width*height*3). */

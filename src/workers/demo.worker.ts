@@ -1,9 +1,9 @@
 // Demo worker: generates Kestrel Quay frames as PNG bytes, one frame per request.
-import { buffersOf } from '../../workers/protocol.ts';
-import { selfEndpoint } from '../../workers/browserPort.ts';
-import { workerServe } from '../../workers/serve.ts';
-import { demoFrame } from './frame.ts';
-import type { DemoOptions } from './options.ts';
+import { buffersOf } from './protocol.ts';
+import { selfEndpoint } from './browserPort.ts';
+import { workerServe } from './serve.ts';
+import { demoFrame } from '../demo/frame.ts';
+import type { DemoOptions } from '../demo/options.ts';
 
 workerServe(selfEndpoint(), {
   demoFrame(input: { index: number; options: DemoOptions }) {

@@ -2,12 +2,12 @@
 // pngjs as a second decoder), the answer key against the pixels, and what the sequence contains.
 import { PNG } from 'pngjs';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { labelMapFromPng } from '../../../src/core/png/decodeLabel.ts';
-import { DEMO_CLASS_COUNT, DEMO_IGNORE, demoClassTable } from '../../../src/data/demo/classes.ts';
-import { demoAnswerKey, demoFrame, demoFrameRaster, type DemoFrameRaster } from '../../../src/data/demo/frame.ts';
-import { MISTAKE_KINDS } from '../../../src/data/demo/mistakePlan.ts';
-import type { DemoMistake } from '../../../src/data/demo/mistakes.ts';
-import { DEMO_RUNS } from '../../../src/data/demo/runs.ts';
+import { labelMapFromPng } from '../../src/core/png/decodeLabel.ts';
+import { DEMO_CLASS_COUNT, DEMO_IGNORE, demoClassTable } from '../../src/demo/classes.ts';
+import { demoAnswerKey, demoFrame, demoFrameRaster, type DemoFrameRaster } from '../../src/demo/frame.ts';
+import { MISTAKE_KINDS } from '../../src/demo/mistakePlan.ts';
+import type { DemoMistake } from '../../src/demo/mistakes.ts';
+import { DEMO_RUNS } from '../../src/demo/runs.ts';
 
 const O = { width: 512, height: 256, frames: 48, seed: 1 };
 let seq: DemoFrameRaster[] = [];

@@ -1,8 +1,8 @@
 // One demo frame, generated alone from its index: photo, true scene, ground truth with the planned
 // label mistakes, and both runs' predictions; then the same as PNG file bytes.
 import { zlibSync } from 'fflate';
-import { labelMapToPng, type ZlibCompress } from '../../core/png/encode.ts';
-import type { LabelMap } from '../../core/labelMap.ts';
+import { labelMapToPng, type ZlibCompress } from '../core/png/encode.ts';
+import type { LabelMap } from '../core/labelMap.ts';
 import { demoCamera } from './camera.ts';
 import { demoPalette, DEMO_IGNORE } from './classes.ts';
 import { photoFinish } from './finish.ts';
