@@ -84,6 +84,7 @@ async function run(o: ExportOptions): Promise<number> {
   const result = await tilesExport({
     dataset, flags, runs: ds.pairing.runs, table: ds.table, mode: o.mode, source: exportSourceFromFolders(ds, o), sink,
     frameOrder: ds.pairing.frames.map((f) => f.name), onProgress: progressWriter(), signal: ac.signal,
+    pause: () => new Promise((r) => setTimeout(r, 0)),
     compress: (data) => new Uint8Array(deflateSync(data, { level: 6 })),
   });
   process.off('SIGINT', onSigint);

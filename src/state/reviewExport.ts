@@ -50,6 +50,6 @@ export function reviewTilesExport(store: AppStore, pool: WorkerPool, o: ReviewTi
   return tilesExport({
     dataset: reviewFileDataset(s)!, flags: o.flags, runs: s.dataset.pairing.runs, table, mode: o.mode,
     source: exportSourceFromDataset(s.dataset, table, pool), sink: o.sink, frameOrder: s.dataset.pairing.frames.map((f) => f.name),
-    onProgress: o.onProgress, signal: o.signal,
+    onProgress: o.onProgress, signal: o.signal, pause: () => new Promise((r) => setTimeout(r, 0)),
   });
 }

@@ -39,7 +39,13 @@ export interface TilesExportOptions {
   /** Frame names in the order to visit them (the dataset's); frames of flags not listed come last. */
   frameOrder?: readonly string[];
   onProgress?: (p: TilesExportProgress) => void;
-  signal?: AbortSignal;
+  /** Cancels the export when `aborted` turns true (an AbortSignal will do). */
+  signal?: { readonly aborted: boolean };
+  /**
+   * Awaited after each frame, so the caller's event loop can show progress and take a cancel (a
+   * zero-delay timer in a browser tab); none by default. Core has no timers of its own.
+   */
+  pause?: () => Promise<void>;
   /** A faster zlib where there is one (Node's); the PNGs decode to the same pixels. */
   compress?: ZlibCompress;
   /** Export time, ms since the epoch (default now). */
@@ -63,8 +69,6 @@ function flagsByFrame(flags: readonly Flag[], order: readonly string[] | undefin
   }
   return [...groups].filter(([, g]) => g.length > 0);
 }
-
-const yieldToLoop = () => new Promise<void>((r) => setTimeout(r, 0));
 
 /** Limits of a ZIP without the ZIP64 extension (which fflate does not write): entries and bytes (APPNOTE.TXT §4.4.21, §4.4.8). */
 const ZIP_ENTRIES_MAX = 0xffff;
@@ -135,7 +139,7 @@ export async function tilesExport(o: TilesExportOptions): Promise<Result<TilesEx
         progress.flagsDone++;
         report();
       }
-      await yieldToLoop();
+      await o.pause?.();
     }
     if (o.signal?.aborted) return cancelled();
     const manifest: TileManifest = { format: 'hairline-tiles', version: 1, dataset: o.dataset, exportedAt: new Date(now).toISOString(), mode: mode.value, tiles: rows, failed };
