@@ -4,10 +4,13 @@ import { workerServe } from '../workers/serve.ts';
 import { demoFrameFilesWrite } from './demoFrameFiles.ts';
 import { threadEndpoint } from './threadPort.ts';
 
-const endpoint = await threadEndpoint();
-
-workerServe(endpoint, {
+/** The demo thread's command table. */
+const demoThreadJobs = {
   async demoFrameWrite(input: { dir: string; index: number; options: DemoOptions }) {
     return { value: await demoFrameFilesWrite(input.dir, input.index, input.options) };
   },
-});
+};
+
+export type DemoThreadJobs = typeof demoThreadJobs;
+
+workerServe(await threadEndpoint(), demoThreadJobs);

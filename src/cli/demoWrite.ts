@@ -10,6 +10,7 @@ import type { DemoMistake } from '../demo/mistakes.ts';
 import { demoFrameName, type DemoOptions } from '../demo/options.ts';
 import { DEMO_RUNS } from '../demo/runs.ts';
 import { workerPoolCreate } from '../workers/pool.ts';
+import type { DemoThreadJobs } from './demoThread.ts';
 import { threadPortCreate } from './threadPort.ts';
 
 /** What demoDatasetWrite did: frames written, answer-key entries, wall time in ms. */
@@ -70,9 +71,9 @@ async function datasetWrite(dir: string, o: DemoOptions, threads: number): Promi
     perFrame = [];
     for (let i = 0; i < o.frames; i++) perFrame.push(await demoFrameFilesWrite(dir, i, o));
   } else {
-    const pool = workerPoolCreate(() => threadPortCreate(new URL('./demoThread.ts', import.meta.url)), n);
+    const pool = workerPoolCreate<DemoThreadJobs>(() => threadPortCreate(new URL('./demoThread.ts', import.meta.url)), n);
     try {
-      perFrame = await Promise.all(Array.from({ length: o.frames }, (_, i) => pool.run<DemoMistake[]>('demoFrameWrite', { dir, index: i, options: o })));
+      perFrame = await Promise.all(Array.from({ length: o.frames }, (_, i) => pool.run('demoFrameWrite', { dir, index: i, options: o })));
     } finally {
       pool.destroy();
     }

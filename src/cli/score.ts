@@ -12,6 +12,7 @@ import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.t
 import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
 import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect, type ReportVoidSpill } from './scoreRegions.ts';
 import { framesCsv, summaryText, textWrite, type FrameCsvRow } from './scoreReportWrite.ts';
+import type { ScoreThreadJobs } from './scoreThread.ts';
 import { threadPortCreate } from './threadPort.ts';
 
 const THREAD = new URL('./scoreThread.ts', import.meta.url);
@@ -67,7 +68,7 @@ async function run(options: ScoreOptions): Promise<number> {
     progress.tick(done, failed, result.name);
   };
 
-  const pool = workerPoolCreate(() => threadPortCreate(THREAD), Math.min(options.workers, n));
+  const pool = workerPoolCreate<ScoreThreadJobs>(() => threadPortCreate(THREAD), Math.min(options.workers, n));
   try {
     let next = 0;
     // A bounded window keeps memory flat: at most two frames per thread are read or in flight.
@@ -76,7 +77,7 @@ async function run(options: ScoreOptions): Promise<number> {
         const index = next++;
         let result: FrameJobResult;
         try {
-          result = await pool.run<FrameJobResult>('frameScore', scoreJobOf(ds, options, table, index));
+          result = await pool.run('frameScore', scoreJobOf(ds, options, table, index));
         } catch (e) {
           const error = `${pairing.frames[index].name}: ${(e as Error).message}`;
           result = { name: pairing.frames[index].name, width: 0, height: 0, error, runs: runs.map((r) => ({ run: r, stats: null, error })) };

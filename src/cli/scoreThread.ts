@@ -1,10 +1,11 @@
 // Worker thread of the headless scorer: reads a frame's files from disk and runs the same core job
 // as the browser's scoring worker.
 import { readFile } from 'node:fs/promises';
-import { frameJobScore, type FileBytes, type FrameJobInput } from '../core/frameJob.ts';
+import { frameJobScore, type FileBytes, type FrameJobInput, type FrameJobResult } from '../core/frameJob.ts';
 import { scoreScratchCreate } from '../core/metrics/scratch.ts';
 import { photoFromPng } from '../core/png/decodePhoto.ts';
 import { regionScratchCreate } from '../core/regions/regionScratch.ts';
+import type { JobOutput } from '../workers/protocol.ts';
 import { frameResultBuffers } from '../workers/scoreJobs.ts';
 import { workerServe } from '../workers/serve.ts';
 import { threadEndpoint } from './threadPort.ts';
@@ -42,10 +43,9 @@ function photoPixelsOf(photo: FileBytes, maxPixels: number | undefined): FrameJo
   const r = photoFromPng(photo.bytes, { file: photo.file, maxPixels });
   return r.ok ? { file: photo.file, ...r.value } : `${r.error}; image evidence not used on this frame`;
 }
-const endpoint = await threadEndpoint();
-
-workerServe(endpoint, {
-  async frameScore(input: FrameScorePaths) {
+/** The scoring thread's command table. */
+const scoreThreadJobs = {
+  async frameScore(input: FrameScorePaths): Promise<JobOutput<FrameJobResult>> {
     const truth = await bytesOf(input.truth);
     if (typeof truth === 'string') {
       return { value: { name: input.name, width: 0, height: 0, error: truth, runs: input.preds.map((p) => ({ run: p.run, stats: null, error: truth })) } };
@@ -87,4 +87,8 @@ workerServe(endpoint, {
     }
     return { value, transfer: frameResultBuffers(value) };
   },
-});
+};
+
+export type ScoreThreadJobs = typeof scoreThreadJobs;
+
+workerServe(await threadEndpoint(), scoreThreadJobs);

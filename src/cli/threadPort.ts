@@ -1,4 +1,5 @@
 import { Worker } from 'node:worker_threads';
+import { portDeathCreate } from '../workers/portDeath.ts';
 import type { JobRequest, JobResponse, WorkerPort } from '../workers/protocol.ts';
 
 const BOOT = new URL('./threadBoot.mjs', import.meta.url);
@@ -9,22 +10,16 @@ export function threadPortCreate(entry: URL, options: { resourceLimitsMb?: numbe
     workerData: { entry: entry.href },
     resourceLimits: options.resourceLimitsMb ? { maxOldGenerationSizeMb: options.resourceLimitsMb } : undefined,
   });
-  let dead = false;
-  const deathHandlers: ((reason: string) => void)[] = [];
-  const die = (reason: string) => {
-    if (dead) return;
-    dead = true;
-    for (const h of deathHandlers) h(reason);
-  };
-  worker.on('error', (e) => die(e instanceof Error ? e.message : String(e)));
-  worker.on('exit', (code) => die(`exit code ${code}`));
+  const death = portDeathCreate();
+  worker.on('error', (e) => death.die(e instanceof Error ? e.message : String(e)));
+  worker.on('exit', (code) => death.die(`exit code ${code}`));
   worker.unref();
   return {
     postMessage: (m: JobRequest, transfer?: Transferable[]) => worker.postMessage(m, (transfer ?? []) as never),
     onMessage: (h: (m: JobResponse) => void) => void worker.on('message', h),
-    onDeath: (h) => void deathHandlers.push(h),
+    onDeath: death.onDeath,
     terminate: () => {
-      dead = true;
+      death.silence();
       void worker.terminate();
     },
   };

@@ -1,5 +1,5 @@
 import type { ClassTable } from '../core/classTable.ts';
-import type { WorkerPool } from '../workers/pool.ts';
+import type { ViewPool } from '../workers/scorePool.ts';
 import type { FileBlob } from '../workers/scoreJobs.ts';
 import { VIEW_COMMANDS, type DecodedFrame, type FrameDecodeRequest } from '../workers/viewJobs.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
@@ -15,7 +15,7 @@ export interface FrameCache {
 }
 
 /** Returns an LRU cache of at most `capacity` decoded frames of `dataset`. */
-export function frameCacheCreate(dataset: LoadedDataset, table: ClassTable, pool: WorkerPool, capacity = 5): FrameCache {
+export function frameCacheCreate(dataset: LoadedDataset, table: ClassTable, pool: ViewPool, capacity = 5): FrameCache {
   const entries = new Map<number, Promise<DecodedFrame>>();
 
   async function blob(folder: string, path: string | null): Promise<FileBlob | null> {
@@ -34,7 +34,7 @@ export function frameCacheCreate(dataset: LoadedDataset, table: ClassTable, pool
       photo: await blob('images', frame.image).catch(() => null),
       table,
     };
-    return pool.run<DecodedFrame>(VIEW_COMMANDS.frameDecode, req);
+    return pool.run(VIEW_COMMANDS.frameDecode, req);
   }
 
   function touch(index: number): Promise<DecodedFrame> {

@@ -4,7 +4,7 @@ import { tilesExport, type TileExportSource, type TilesExportProgress, type Tile
 import type { ZipSink } from '../core/export/zipStream.ts';
 import { fail, ok, type Result } from '../core/result.ts';
 import type { Flag } from '../core/review/flag.ts';
-import type { WorkerPool } from '../workers/pool.ts';
+import type { ViewPool } from '../workers/scorePool.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
 import { frameCacheCreate } from './frameCache.ts';
 import { reviewFileDataset } from './reviewSlice.ts';
@@ -15,7 +15,7 @@ import type { AppStore } from './store.ts';
  * Returns a tile-export frame source over a loaded dataset: each frame decoded in the view pool the
  * viewer uses (label maps exact, photos by the browser), one frame held at a time.
  */
-export function exportSourceFromDataset(dataset: LoadedDataset, table: ClassTable, pool: WorkerPool): TileExportSource {
+export function exportSourceFromDataset(dataset: LoadedDataset, table: ClassTable, pool: ViewPool): TileExportSource {
   const cache = frameCacheCreate(dataset, table, pool, 1);
   const index = new Map(dataset.pairing.frames.map((f, i) => [f.name, i]));
   return {
@@ -43,7 +43,7 @@ export interface ReviewTilesExportOptions {
 }
 
 /** Exports the given flags of the open dataset as a tile ZIP (every run, the scoring table, frames in dataset order). */
-export function reviewTilesExport(store: AppStore, pool: WorkerPool, o: ReviewTilesExportOptions): Promise<Result<TilesExportSummary>> {
+export function reviewTilesExport(store: AppStore, pool: ViewPool, o: ReviewTilesExportOptions): Promise<Result<TilesExportSummary>> {
   const s = store.getState();
   if (!s.dataset) return Promise.resolve(fail('', 'no dataset is open'));
   const table = scoringTableOf(s.dataset, s.settings);

@@ -3,7 +3,8 @@ import type { FrameJobResult } from '../core/frameJob.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
 import type { FrameFiles } from '../data/pairing.ts';
 import type { DatasetSource } from '../data/sources/source.ts';
-import { JobCancelled, type WorkerPool } from '../workers/pool.ts';
+import { JobCancelled } from '../workers/pool.ts';
+import type { ScorePool } from '../workers/scorePool.ts';
 import { SCORE_COMMANDS, type FileBlob, type FrameScoreRequest } from '../workers/scoreJobs.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
 import type { AppStore } from './store.ts';
@@ -44,7 +45,7 @@ function failedResult(frame: FrameFiles, runs: string[], error: string): FrameJo
  * pass in flight and scores every frame again in the pool, the frame on screen first, with at most
  * two jobs per worker in flight so reading files never runs far ahead of scoring. Returns a stop function.
  */
-export function scoringKeep(store: AppStore, pool: WorkerPool): () => void {
+export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
   let generation = store.getState().scoring.generation;
   let lastDataset: LoadedDataset | null = null;
   let lastSettings: ScoreSettings | null = null;
@@ -91,7 +92,7 @@ export function scoringKeep(store: AppStore, pool: WorkerPool): () => void {
       try {
         const req = await frameScoreRequest(dataset, frame, table, settings);
         if (gen !== generation) return;
-        result = await pool.run<FrameJobResult>(SCORE_COMMANDS.frameScore, req);
+        result = await pool.run(SCORE_COMMANDS.frameScore, req);
       } catch (e) {
         if (e instanceof JobCancelled || gen !== generation) return;
         result = failedResult(frame, dataset.pairing.runs, (e as Error).message.startsWith('truth/') ? (e as Error).message : `${frame.name}: ${(e as Error).message}`);

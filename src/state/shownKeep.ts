@@ -1,4 +1,4 @@
-import type { WorkerPool } from '../workers/pool.ts';
+import type { ViewPool } from '../workers/scorePool.ts';
 import { frameCacheCreate, type FrameCache } from './frameCache.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
 import { scoringTableOf } from './scoringRun.ts';
@@ -12,7 +12,7 @@ const PREFETCH = [1, -1, 2];
  * prefetches its neighbours, and drops answers for frames the user has already moved past.
  * Returns a stop function.
  */
-export function shownKeep(store: AppStore, pool: WorkerPool): () => void {
+export function shownKeep(store: AppStore, pool: ViewPool): () => void {
   let cache: FrameCache | null = null;
   let cacheFor: LoadedDataset | null = null;
   let cacheIgnore = -1;

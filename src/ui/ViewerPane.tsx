@@ -6,7 +6,7 @@ import type { AppStore } from '../state/store.ts';
 import { scoringTableOf } from '../state/scoringRun.ts';
 import type { Viewer } from '../view/viewer.ts';
 import { viewerCreate } from '../view/viewer.ts';
-import type { WorkerPool } from '../workers/pool.ts';
+import type { ViewPool } from '../workers/scorePool.ts';
 import { VIEW_COMMANDS } from '../workers/viewJobs.ts';
 import type { DecodedFrame } from '../workers/viewJobs.ts';
 import { BoxDraw } from './BoxDraw.tsx';
@@ -37,7 +37,7 @@ function compositeFrameOf(f: DecodedFrame): CompositeFrame {
  * passed straight to it (it redraws at most once per animation frame). Without WebGL the same layers
  * are coloured by frameComposite in a view worker and shown as an image.
  */
-function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused: (message: string | null) => void, viewerHost: () => HTMLElement): () => void {
+function viewerBind(store: AppStore, viewer: Viewer, pool: ViewPool, onRefused: (message: string | null) => void, viewerHost: () => HTMLElement): () => void {
   let composing = 0;
   let focusedSeq = -1;
   const recompose = () => {
@@ -47,7 +47,7 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused
     const ticket = ++composing;
     const palette = compositePaletteFromTable(scoringTableOf(s.dataset, s.settings));
     // Copies (not transfers): the decoded frame stays with the cache for the next redraw.
-    void pool.run<Uint8Array>(VIEW_COMMANDS.frameComposite, { frame: compositeFrameOf(s.shown), layers: s.layers, palette }).then(
+    void pool.run(VIEW_COMMANDS.frameComposite, { frame: compositeFrameOf(s.shown), layers: s.layers, palette }).then(
       (rgba) => ticket === composing && viewer.compositeSet(rgba),
       () => {},
     );
@@ -98,7 +98,7 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: WorkerPool, onRefused
 }
 
 /** The centre pane: the viewer, a readout under the cursor, and a note when a frame could not be shown. */
-export function ViewerPane({ pool, onViewer }: { pool: WorkerPool; onViewer: (v: Viewer | null) => void }) {
+export function ViewerPane({ pool, onViewer }: { pool: ViewPool; onViewer: (v: Viewer | null) => void }) {
   const store = useAppStore();
   const host = useRef<HTMLDivElement>(null);
   const [viewer, setViewer] = useState<Viewer | null>(null);

@@ -1,6 +1,6 @@
 import { useCallback, useRef, useState } from 'react';
 import type { Viewer } from '../view/viewer.ts';
-import type { WorkerPool } from '../workers/pool.ts';
+import type { ViewPool } from '../workers/scorePool.ts';
 import type { CommandContext } from './commands/registry.ts';
 import { LeftPane } from './LeftPane.tsx';
 import { FlagDialog } from './FlagDialog.tsx';
@@ -31,7 +31,7 @@ function EmptyState() {
 }
 
 /** The inspection workspace: frames on the left, the viewer in the middle, the scoreboard on the right. */
-export function Workspace({ viewPool }: { viewPool: WorkerPool }) {
+export function Workspace({ viewPool }: { viewPool: ViewPool }) {
   const store = useAppStore();
   const viewer = useRef<Viewer | null>(null);
   const hasDataset = useApp((s) => s.dataset !== null);

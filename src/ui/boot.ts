@@ -12,14 +12,13 @@ import { reviewBackendIdb } from '../state/reviewBackendIdb.ts';
 import { reviewChannelOpen } from '../state/reviewChannel.ts';
 import { reviewKeep } from '../state/reviewKeep.ts';
 import { urlViewApply, urlViewDecode, urlViewKeep, type UrlView } from '../state/urlState.ts';
-import type { WorkerPool } from '../workers/pool.ts';
-import { scorePoolCreate, viewPoolCreate } from '../workers/scorePool.ts';
+import { scorePoolCreate, viewPoolCreate, type ScorePool, type ViewPool } from '../workers/scorePool.ts';
 
 /** The running app: its store, worker pools, and the function that stops everything. */
 export interface AppRuntime {
   store: AppStore;
-  scorePool: WorkerPool;
-  viewPool: WorkerPool;
+  scorePool: ScorePool;
+  viewPool: ViewPool;
   /** The JSON report of `run` over the frames scored so far, as the headless scorer writes it. */
   report(run: string): ScoreReport | null;
   stop(): void;

@@ -2,13 +2,13 @@ import { createContext, useContext, type ReactNode } from 'react';
 import { useStore } from 'zustand';
 import { useShallow } from 'zustand/react/shallow';
 import type { AppState, AppStore } from '../state/store.ts';
-import type { WorkerPool } from '../workers/pool.ts';
+import type { ViewPool } from '../workers/scorePool.ts';
 
 const StoreContext = createContext<AppStore | null>(null);
-const ViewPoolContext = createContext<WorkerPool | null>(null);
+const ViewPoolContext = createContext<ViewPool | null>(null);
 
 /** Makes `store` (and the view workers, for exports) available to every component below. */
-export function StoreProvider({ store, viewPool, children }: { store: AppStore; viewPool?: WorkerPool; children: ReactNode }) {
+export function StoreProvider({ store, viewPool, children }: { store: AppStore; viewPool?: ViewPool; children: ReactNode }) {
   return (
     <StoreContext.Provider value={store}>
       <ViewPoolContext.Provider value={viewPool ?? null}>{children}</ViewPoolContext.Provider>
@@ -17,7 +17,7 @@ export function StoreProvider({ store, viewPool, children }: { store: AppStore; 
 }
 
 /** Returns the pool of view workers (frames decoded for the viewer and for tile exports). */
-export function useViewPool(): WorkerPool {
+export function useViewPool(): ViewPool {
   const pool = useContext(ViewPoolContext);
   if (!pool) throw new Error('useViewPool outside StoreProvider with a viewPool');
   return pool;

@@ -1,26 +1,21 @@
+import { portDeathCreate } from './portDeath.ts';
 import type { JobRequest, JobResponse, WorkerPort } from './protocol.ts';
 
 /** Returns a WorkerPort over a browser Worker made by `make` (so Vite can see `new Worker(new URL(...))`). */
 export function browserPortCreate(make: () => Worker): WorkerPort {
   const worker = make();
-  let dead = false;
-  const deathHandlers: ((reason: string) => void)[] = [];
-  const die = (reason: string) => {
-    if (dead) return;
-    dead = true;
-    for (const h of deathHandlers) h(reason);
-  };
+  const death = portDeathCreate();
   worker.addEventListener('error', (e) => {
     e.preventDefault();
-    die(e.message || 'the worker failed to load or crashed');
+    death.die(e.message || 'the worker failed to load or crashed');
   });
-  worker.addEventListener('messageerror', () => die('a message could not be read'));
+  worker.addEventListener('messageerror', () => death.die('a message could not be read'));
   return {
     postMessage: (m: JobRequest, transfer?: Transferable[]) => worker.postMessage(m, transfer ?? []),
     onMessage: (h: (m: JobResponse) => void) => worker.addEventListener('message', (e: MessageEvent<JobResponse>) => h(e.data)),
-    onDeath: (h) => void deathHandlers.push(h),
+    onDeath: death.onDeath,
     terminate: () => {
-      dead = true;
+      death.silence();
       worker.terminate();
     },
   };

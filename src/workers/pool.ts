@@ -1,4 +1,4 @@
-import type { JobRequest, JobResponse, WorkerPort } from './protocol.ts';
+import type { JobInput, JobRequest, JobResponse, JobTable, JobValue, WorkerPort } from './protocol.ts';
 
 /** Raised for a job whose batch was cancelled before it finished. */
 export class JobCancelled extends Error {
@@ -21,10 +21,13 @@ interface Slot {
   job: Pending | null;
 }
 
-/** A fixed-size pool of workers running queued jobs first-in first-out. */
-export interface WorkerPool {
+/**
+ * A fixed-size pool of workers running queued jobs first-in first-out; `Jobs` is the type of the job
+ * table its workers serve, so `run` knows each command's input and value.
+ */
+export interface WorkerPool<Jobs extends JobTable> {
   /** Queues a command; resolves with the worker's value, rejects with its error or JobCancelled. */
-  run<T>(cmd: string, input: unknown, transfer?: Transferable[]): Promise<T>;
+  run<K extends keyof Jobs & string>(cmd: K, input: JobInput<Jobs, K>, transfer?: Transferable[]): Promise<JobValue<Jobs, K>>;
   /** Rejects every queued and running job of the current batch with JobCancelled; later jobs run normally. */
   cancelAll(): void;
   /** Number of jobs queued or running. */
@@ -36,11 +39,11 @@ export interface WorkerPool {
 }
 
 /**
- * Returns a pool of `size` workers made by `spawn`. A worker that dies fails its current job with a
+ * Returns a pool of `size` workers made by `spawn`, each serving the job table typed `Jobs`. A worker that dies fails its current job with a
  * clear message, is replaced, and the queue goes on. Cancelled running jobs are left to finish in
  * their worker (a frame takes tens of milliseconds) and their answers are dropped.
  */
-export function workerPoolCreate(spawn: () => WorkerPort, size: number): WorkerPool {
+export function workerPoolCreate<Jobs extends JobTable>(spawn: () => WorkerPort, size: number): WorkerPool<Jobs> {
   const queue: Pending[] = [];
   const slots: Slot[] = [];
   let nextId = 1;
@@ -86,9 +89,9 @@ export function workerPoolCreate(spawn: () => WorkerPort, size: number): WorkerP
 
   return {
     size,
-    run<T>(cmd: string, input: unknown, transfer: Transferable[] = []): Promise<T> {
+    run<K extends keyof Jobs & string>(cmd: K, input: JobInput<Jobs, K>, transfer: Transferable[] = []): Promise<JobValue<Jobs, K>> {
       if (destroyed) return Promise.reject(new Error('worker pool was shut down'));
-      return new Promise<T>((resolve, reject) => {
+      return new Promise<JobValue<Jobs, K>>((resolve, reject) => {
         queue.push({ req: { id: nextId++, cmd, input }, transfer, batch, resolve: resolve as (v: unknown) => void, reject });
         pump();
       });

@@ -17,6 +17,12 @@ export interface JobOutput<T = unknown> {
 /** A command table: command name → handler. Handlers throw only on a programming error. */
 export type JobTable = Record<string, (input: never) => JobOutput | Promise<JobOutput>>;
 
+/** The input a job table's command takes. */
+export type JobInput<Jobs extends JobTable, K extends keyof Jobs> = Parameters<Jobs[K]>[0];
+
+/** The value a job table's command answers with. */
+export type JobValue<Jobs extends JobTable, K extends keyof Jobs> = Awaited<ReturnType<Jobs[K]>>['value'];
+
 /** The minimal worker surface the pool needs (a browser Worker or an adapted Node worker_thread). */
 export interface WorkerPort {
   postMessage(message: JobRequest, transfer?: Transferable[]): void;

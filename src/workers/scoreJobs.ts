@@ -89,3 +89,5 @@ export const scoreJobs = {
     return { value, transfer: frameResultBuffers(value) };
   },
 };
+
+export type ScoreJobs = typeof scoreJobs;

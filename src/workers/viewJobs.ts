@@ -93,3 +93,5 @@ export const viewJobs = {
   },
 };
 
+
+export type ViewJobs = typeof viewJobs;

@@ -8,10 +8,12 @@ import type { DatasetSource } from '../../src/data/sources/source.ts';
 import { datasetFromSource, datasetInstall } from '../../src/state/datasetLoad.ts';
 import { reviewTilesExport } from '../../src/state/reviewExport.ts';
 import { appStoreCreate } from '../../src/state/store.ts';
-import { workerPoolCreate, type WorkerPool } from '../../src/workers/pool.ts';
+import { workerPoolCreate } from '../../src/workers/pool.ts';
+import type { ViewPool } from '../../src/workers/scorePool.ts';
+import type { ViewJobs } from '../../src/workers/viewJobs.ts';
 
 const ENTRY = new URL('./fixtures/viewWorkerThread.ts', import.meta.url);
-let pool: WorkerPool | null = null;
+let pool: ViewPool | null = null;
 afterEach(() => pool?.destroy());
 
 const W = 40, H = 24;
@@ -21,7 +23,7 @@ const PALETTE = Uint8Array.from({ length: 16 * 3 }, (_, i) => (i * 53) & 255);
 
 describe('reviewTilesExport: the app\'s export over the view workers', () => {
   it('cuts the store\'s flags from frames decoded in the view pool, ids exact, runs in dataset order', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    pool = workerPoolCreate<ViewJobs>(() => threadPortCreate(ENTRY), 1);
     const truth = new Blob([labelMapToPng({ width: W, height: H, ids: truthIds }, { kind: 'gray', bitDepth: 8 }) as BlobPart]);
     const pred = new Blob([labelMapToPng({ width: W, height: H, ids: predIds }, { kind: 'palette', colors: PALETTE }) as BlobPart]);
     const source: DatasetSource = {

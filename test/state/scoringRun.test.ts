@@ -6,10 +6,12 @@ import type { DatasetSource } from '../../src/data/sources/source.ts';
 import { datasetFromSource, datasetInstall } from '../../src/state/datasetLoad.ts';
 import { scoringKeep } from '../../src/state/scoringRun.ts';
 import { appStoreCreate, type AppStore } from '../../src/state/store.ts';
-import { workerPoolCreate, type WorkerPool } from '../../src/workers/pool.ts';
+import { workerPoolCreate } from '../../src/workers/pool.ts';
+import type { ScorePool } from '../../src/workers/scorePool.ts';
+import type { ScoreJobs } from '../../src/workers/scoreJobs.ts';
 
 const ENTRY = new URL('./fixtures/scoreWorkerThread.ts', import.meta.url);
-let pool: WorkerPool | null = null;
+let pool: ScorePool | null = null;
 let stop: (() => void) | null = null;
 afterEach(() => {
   stop?.();
@@ -50,7 +52,7 @@ function settled(store: AppStore): Promise<void> {
 
 describe('scoringKeep: the pipeline that keeps scores in step with the dataset and settings', () => {
   it('scores every frame; a worker that dies marks its frame with an error, and the rest are scored', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 2);
+    pool = workerPoolCreate<ScoreJobs>(() => threadPortCreate(ENTRY), 2);
     const store = appStoreCreate();
     stop = scoringKeep(store, pool);
     datasetInstall(store, datasetFromSource(sourceMake(['f1', 'f2', 'dies', 'f4', 'f5', 'f6'])));
@@ -67,7 +69,7 @@ describe('scoringKeep: the pipeline that keeps scores in step with the dataset a
   });
 
   it('a settings change cancels the pass in flight and rescores with the new settings', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    pool = workerPoolCreate<ScoreJobs>(() => threadPortCreate(ENTRY), 1);
     const store = appStoreCreate();
     stop = scoringKeep(store, pool);
     datasetInstall(store, datasetFromSource(sourceMake(['a1', 'a2', 'a3', 'a4', 'a5', 'a6', 'a7', 'a8'])));

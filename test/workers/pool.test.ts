@@ -2,38 +2,39 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { threadPortCreate } from '../../src/cli/threadPort.ts';
 import { JobCancelled, workerPoolCreate, type WorkerPool } from '../../src/workers/pool.ts';
 import { buffersOf } from '../../src/workers/protocol.ts';
+import type { TestJobs } from './fixtures/testWorker.ts';
 
 const ENTRY = new URL('./fixtures/testWorker.ts', import.meta.url);
-let pool: WorkerPool | null = null;
+let pool: WorkerPool<TestJobs> | null = null;
 afterEach(() => pool?.destroy());
 
 describe('workerPoolCreate over real Node worker threads', () => {
   it('runs jobs and returns values in the order asked', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 2);
-    const out = await Promise.all([1, 2, 3, 4, 5].map((v) => pool!.run<number>('echo', { value: v, delayMs: 5 })));
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 2);
+    const out = await Promise.all([1, 2, 3, 4, 5].map((v) => pool!.run('echo', { value: v, delayMs: 5 })));
     expect(out).toEqual([2, 4, 6, 8, 10]);
   });
 
   it('moves buffers by transfer (the sender loses them)', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 1);
     const data = new Float64Array([1, 2, 3.5]);
-    const r = await pool.run<{ sum: number; length: number }>('sum', { data }, buffersOf(data));
+    const r = await pool.run('sum', { data }, buffersOf(data));
     expect(r).toEqual({ sum: 6.5, length: 3 });
     expect(data.length).toBe(0); // detached
   });
 
   it('a failing command rejects with its message and the pool goes on', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 1);
     await expect(pool.run('fail', { message: 'truth/f1.png: not a PNG' })).rejects.toThrow('truth/f1.png: not a PNG');
     await expect(pool.run('echo', { value: 4 })).resolves.toBe(8);
   });
 
   it('a worker that dies fails its job with a clear error, is replaced, and the rest continue', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 2);
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 2);
     const jobs = [
       pool.run('echo', { value: 1, delayMs: 30 }),
-      pool.run('die', {}),
-      pool.run('crash', {}),
+      pool.run('die', undefined),
+      pool.run('crash', undefined),
       pool.run('echo', { value: 2 }),
       pool.run('echo', { value: 3 }),
     ];
@@ -46,7 +47,7 @@ describe('workerPoolCreate over real Node worker threads', () => {
   });
 
   it('cancelAll rejects queued and running jobs with JobCancelled; new jobs run', async () => {
-    pool = workerPoolCreate(() => threadPortCreate(ENTRY), 1);
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 1);
     const first = pool.run('echo', { value: 1, delayMs: 100 });
     const queued = [2, 3, 4].map((v) => pool!.run('echo', { value: v }));
     await new Promise((r) => setTimeout(r, 20));
@@ -57,5 +58,16 @@ describe('workerPoolCreate over real Node worker threads', () => {
       expect((s as PromiseRejectedResult).reason).toBeInstanceOf(JobCancelled);
     }
     await expect(pool.run('echo', { value: 21 })).resolves.toBe(42);
+  });
+
+  it('types each command\'s input and value from the job table (checked by npm run typecheck)', async () => {
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 1);
+    const doubled: number = await pool.run('echo', { value: 3 });
+    const summed: { sum: number; length: number } = await pool.run('sum', { data: new Float64Array([2, 5]) });
+    expect([doubled, summed]).toEqual([6, { sum: 7, length: 2 }]);
+    // @ts-expect-error: a command the table does not hold
+    await expect(pool.run('nope', {})).rejects.toThrow('unknown worker command "nope"');
+    // @ts-expect-error: the wrong input for echo
+    await expect(pool.run('echo', { message: 'x' })).resolves.toBeNaN();
   });
 });

@@ -1,8 +1,8 @@
 import { demoClassesJson } from '../../demo/classes.ts';
-import type { DemoFrame } from '../../demo/frame.ts';
 import { DEMO_DEFAULTS, demoFrameName, type DemoOptions } from '../../demo/options.ts';
 import { DEMO_RUNS } from '../../demo/runs.ts';
 import { browserPortCreate } from '../../workers/browserPort.ts';
+import type { DemoJobs } from '../../workers/demoJobs.ts';
 import { workerPoolCreate } from '../../workers/pool.ts';
 import type { DatasetSource } from './source.ts';
 
@@ -19,7 +19,7 @@ export interface DemoSource extends DatasetSource {
  * file goes through the same PNG decoding as a user's files.
  */
 export function demoSourceOpen(options: DemoOptions = { ...DEMO_DEFAULTS }, workers = Math.max(1, Math.min(2, navigator.hardwareConcurrency || 2))): DemoSource {
-  const pool = workerPoolCreate(
+  const pool = workerPoolCreate<DemoJobs>(
     () => browserPortCreate(() => new Worker(new URL('../../workers/demo.worker.ts', import.meta.url), { type: 'module', name: 'hairline-demo' })),
     workers,
   );
@@ -31,7 +31,7 @@ export function demoSourceOpen(options: DemoOptions = { ...DEMO_DEFAULTS }, work
   const frameFiles = (index: number): Promise<Record<string, Blob>> => {
     let p = frames.get(index);
     if (!p) {
-      p = pool.run<DemoFrame>('demoFrame', { index, options }).then((f) => {
+      p = pool.run('demoFrame', { index, options }).then((f) => {
         done++;
         const png = (b: Uint8Array) => new Blob([b as BlobPart], { type: 'image/png' });
         const files: Record<string, Blob> = { images: png(f.photoPng), truth: png(f.truthPng) };
