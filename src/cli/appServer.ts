@@ -1,8 +1,8 @@
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { realpath } from 'node:fs/promises';
-import { basename, join } from 'node:path';
-import { filesUnder } from './listFiles.ts';
-import { pathResolveInside, sendError, sendFile } from './serveFiles.ts';
+import { join } from 'node:path';
+import { datasetIndexCache, type DatasetIndex } from './datasetIndex.ts';
+import { DATASET_HEADERS, datasetFileHeaders, pathResolveInside, sendError, sendFile } from './serveFiles.ts';
 
 /** The Content-Security-Policy of every page: scripts, styles, workers and requests from this origin only. */
 export const CONTENT_SECURITY_POLICY = [
@@ -26,12 +26,27 @@ export interface AppServerOptions {
   port: number;
 }
 
-/** Returns a running HTTP server on 127.0.0.1 serving the built app and, read-only, one dataset folder. */
-export async function appServerStart(options: AppServerOptions): Promise<{ server: Server; url: string }> {
+/** What one request needs to know about the server. */
+interface Served {
+  appReal: string;
+  dataReal: string | null;
+  /** Host header values this server answers (lower case); any other is refused (DNS rebinding). */
+  hosts: Set<string>;
+  index: (() => Promise<DatasetIndex>) | null;
+}
+
+/**
+ * Returns a running HTTP server on 127.0.0.1 serving the built app and, read-only, one dataset folder,
+ * and the files of that folder it will not serve (reported, not silently left out).
+ */
+export async function appServerStart(
+  options: AppServerOptions,
+): Promise<{ server: Server; url: string; skipped: () => Promise<DatasetIndex['skipped']> }> {
   const appReal = await realpath(options.appDir);
   const dataReal = options.datasetDir ? await realpath(options.datasetDir) : null;
+  const served: Served = { appReal, dataReal, hosts: new Set(), index: dataReal ? datasetIndexCache(dataReal) : null };
   const server = createServer((req, res) => {
-    handle(req, res, appReal, dataReal).catch((e) => {
+    handle(req, res, served).catch((e) => {
       if (!res.headersSent) sendError(res, 500, `server error: ${(e as Error).message}`);
       else res.destroy();
     });
@@ -42,10 +57,18 @@ export async function appServerStart(options: AppServerOptions): Promise<{ serve
   });
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : options.port;
-  return { server, url: `http://127.0.0.1:${port}/` };
+  for (const name of ['127.0.0.1', 'localhost', '[::1]']) served.hosts.add(`${name}:${port}`);
+  const skipped = async () => (served.index ? (await served.index()).skipped : []);
+  return { server, url: `http://127.0.0.1:${port}/`, skipped };
 }
 
-async function handle(req: IncomingMessage, res: ServerResponse, appReal: string, dataReal: string | null): Promise<void> {
+async function handle(req: IncomingMessage, res: ServerResponse, served: Served): Promise<void> {
+  const { appReal, dataReal } = served;
+  // A page on another site can point its own name at 127.0.0.1 (DNS rebinding); its requests then
+  // carry that name as Host. Answering only our loopback names keeps the dataset to our own page.
+  if (!served.hosts.has((req.headers.host ?? '').toLowerCase())) {
+    return sendError(res, 421, 'this server answers only http://127.0.0.1, localhost or [::1] on its own port');
+  }
   res.setHeader('content-security-policy', CONTENT_SECURITY_POLICY);
   res.setHeader('x-content-type-options', 'nosniff');
   res.setHeader('referrer-policy', 'no-referrer');
@@ -55,23 +78,26 @@ async function handle(req: IncomingMessage, res: ServerResponse, appReal: string
   const raw = req.url ?? '/';
   if (!raw.startsWith('/')) return sendError(res, 400, 'bad request target');
   const path = raw.split('?')[0].split('#')[0];
+  if (path.startsWith('/dataset')) for (const [k, v] of Object.entries(DATASET_HEADERS)) res.setHeader(k, v);
 
   if (path === '/dataset/index.json') {
+    const json = { 'content-type': 'application/json; charset=utf-8' };
     // Without a dataset the page opens the demo; a 200 "none" keeps the probe out of the error console.
-    if (!dataReal) {
-      res.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
+    if (!served.index) {
+      res.writeHead(200, { ...json, 'cache-control': 'no-store' });
       return void res.end(head ? undefined : JSON.stringify({ title: null, files: null }));
     }
-    const files = await datasetFiles(dataReal);
-    const body = JSON.stringify({ title: basename(dataReal), files });
-    res.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
-    return void res.end(head ? undefined : body);
+    const index = await served.index();
+    const headers = { ...json, 'cache-control': 'no-cache', etag: index.etag };
+    if (req.headers['if-none-match'] === index.etag) return void res.writeHead(304, headers).end();
+    res.writeHead(200, headers);
+    return void res.end(head ? undefined : index.body);
   }
   if (path.startsWith('/dataset/file/')) {
     if (!dataReal) return sendError(res, 404, 'no dataset folder was given to npm start');
     const r = await pathResolveInside(dataReal, path.slice('/dataset/file/'.length));
     if (!r.ok) return sendError(res, r.status, r.reason);
-    return sendFile(res, r.path, head, 'no-cache');
+    return sendFile(res, r.path, head, 'no-cache', datasetFileHeaders(r.path));
   }
   if (path.startsWith('/dataset')) return sendError(res, 404, 'not found');
 
@@ -80,15 +106,4 @@ async function handle(req: IncomingMessage, res: ServerResponse, appReal: string
   if (r.ok && r.path !== appReal) return sendFile(res, r.path, head, path.startsWith('/assets/') ? 'public, max-age=31536000, immutable' : 'no-cache');
   if (/\.[a-z0-9]+$/i.test(path)) return sendError(res, 404, 'not found');
   return sendFile(res, join(appReal, 'index.html'), head, 'no-cache');
-}
-
-/** Returns the dataset's files (relative paths) whose real location is inside the folder. */
-async function datasetFiles(dataReal: string): Promise<string[]> {
-  const all = await filesUnder(dataReal, 'dataset');
-  const inside: string[] = [];
-  for (const f of all) {
-    const r = await pathResolveInside(dataReal, f.split('/').map(encodeURIComponent).join('/'));
-    if (r.ok) inside.push(f);
-  }
-  return inside;
 }

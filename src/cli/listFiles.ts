@@ -2,8 +2,12 @@ import { readdir, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { UsageError } from './args.ts';
 
-/** Returns every file under `dir` as `/`-separated paths relative to it, in no particular order. */
-export async function filesUnder(dir: string, option: string): Promise<string[]> {
+/**
+ * Returns every file under `dir` as `/`-separated paths relative to it, in no particular order; names
+ * starting with `.` are left out. When `dirs` is given, each folder walked (absolute path) is put in it
+ * with its modification time (ms) read before the folder is listed, so a later change shows.
+ */
+export async function filesUnder(dir: string, option: string, dirs?: Map<string, number>): Promise<string[]> {
   let info;
   try {
     info = await stat(dir);
@@ -13,6 +17,7 @@ export async function filesUnder(dir: string, option: string): Promise<string[]>
   if (!info.isDirectory()) throw new UsageError(`--${option} ${dir}: is not a folder`);
   const out: string[] = [];
   async function walk(abs: string, rel: string): Promise<void> {
+    if (dirs) dirs.set(abs, await stat(abs).then((s) => s.mtimeMs, () => -1));
     let entries;
     try {
       entries = await readdir(abs, { withFileTypes: true });

@@ -19,13 +19,39 @@ const TYPES: Record<string, string> = {
   '.txt': 'text/plain; charset=utf-8',
 };
 
+/**
+ * Types a dataset file keeps: the label maps, photos and JSON the app reads. Everything else in a
+ * dataset folder (HTML, scripts, SVG) is sent as an opaque download, so it never runs as the app's origin.
+ */
+const DATASET_TYPES: Record<string, string> = {
+  '.png': 'image/png',
+  '.jpg': 'image/jpeg',
+  '.jpeg': 'image/jpeg',
+  '.webp': 'image/webp',
+  '.json': 'application/json; charset=utf-8',
+};
+
+/** Headers of every response under /dataset/: sandboxed (no script, no same-origin access even if opened as a page) and never sniffed. */
+export const DATASET_HEADERS = {
+  'content-security-policy': "sandbox; default-src 'none'",
+  'x-content-type-options': 'nosniff',
+} as const;
+
+/** Returns the content type and disposition a dataset file is sent with: data the app reads, or an attachment. */
+export function datasetFileHeaders(path: string): Record<string, string> {
+  const type = DATASET_TYPES[extname(path).toLowerCase()];
+  if (type) return { 'content-type': type };
+  return { 'content-type': 'application/octet-stream', 'content-disposition': 'attachment' };
+}
+
 /** Outcome of resolving a URL path inside a served folder. */
 export type Resolved = { ok: true; path: string } | { ok: false; status: 400 | 403 | 404; reason: string };
 
 /**
  * Resolves the URL-encoded `urlPath` (no query) to a file inside `rootReal` (an already-resolved real
- * path). Refuses, with 403, any path whose decoded segments climb out (`..`), absolute or drive
- * paths, backslashes, NUL bytes, and symlinks whose target lies outside the root.
+ * path). Refuses, with 403, any path whose decoded segments climb out (`..`) or start with `.`
+ * (dotfiles such as `.env` or `.git/config`, and `.` itself), absolute or drive paths, backslashes,
+ * NUL bytes, and symlinks whose target lies outside the root.
  */
 export async function pathResolveInside(rootReal: string, urlPath: string): Promise<Resolved> {
   let decoded: string;
@@ -35,8 +61,9 @@ export async function pathResolveInside(rootReal: string, urlPath: string): Prom
     return { ok: false, status: 400, reason: 'malformed URL encoding' };
   }
   if (decoded.includes('\0') || decoded.includes('\\')) return { ok: false, status: 403, reason: 'forbidden characters' };
-  const segments = decoded.split('/').filter((s) => s !== '' && s !== '.');
+  const segments = decoded.split('/').filter((s) => s !== '');
   if (segments.some((s) => s === '..')) return { ok: false, status: 403, reason: 'path leaves the served folder' };
+  if (segments.some((s) => s.startsWith('.'))) return { ok: false, status: 403, reason: 'names starting with a dot are not served' };
   if (segments.length && /^[a-zA-Z]:$/.test(segments[0])) return { ok: false, status: 403, reason: 'absolute path' };
   const joined = join(rootReal, ...segments);
   let real: string;
@@ -57,8 +84,17 @@ export function sendError(res: ServerResponse, status: number, message: string):
   res.end(message + '\n');
 }
 
-/** Streams the regular file `path` with its content type; 404 when it is a folder or missing. */
-export async function sendFile(res: ServerResponse, path: string, head: boolean, cache: string): Promise<void> {
+/**
+ * Streams the regular file `path` with its content type (or the `headers` given, which win); 404 when
+ * it is a folder or missing.
+ */
+export async function sendFile(
+  res: ServerResponse,
+  path: string,
+  head: boolean,
+  cache: string,
+  headers: Record<string, string> = {},
+): Promise<void> {
   let info;
   try {
     info = await stat(path);
@@ -70,6 +106,7 @@ export async function sendFile(res: ServerResponse, path: string, head: boolean,
     'content-type': TYPES[extname(path).toLowerCase()] ?? 'application/octet-stream',
     'content-length': String(info.size),
     'cache-control': cache,
+    ...headers,
   });
   if (head) return void res.end();
   createReadStream(path).on('error', () => res.destroy()).pipe(res);

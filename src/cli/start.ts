@@ -5,6 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { build } from 'vite';
 import { appServerStart } from './appServer.ts';
 import { argsParse, UsageError } from './args.ts';
+import { termText } from './termText.ts';
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -21,15 +22,23 @@ async function main(): Promise<void> {
   if (!args['no-build']) {
     process.stderr.write('building the app…\n');
     await build({ configFile: `${ROOT}/vite.config.ts`, logLevel: 'warn' });
+  } else if (!(await stat(`${ROOT}/dist/index.html`).catch(() => null))?.isFile()) {
+    throw new UsageError('--no-build: there is no built app in dist/ yet; run npm start once without --no-build');
   }
-  const { url } = await appServerStart({ appDir: `${ROOT}/dist`, datasetDir: dataset, port });
-  process.stdout.write(`Hairline is serving ${dataset ? `dataset ${dataset}` : 'the Kestrel Quay demo'} at ${url}\n`);
-  process.stdout.write('Only this machine can reach it (127.0.0.1). Press Ctrl+C to stop.\n');
+  const { url, skipped } = await appServerStart({ appDir: `${ROOT}/dist`, datasetDir: dataset, port });
+  process.stdout.write(`Hairline is serving ${dataset ? `dataset ${termText(dataset)}` : 'the Kestrel Quay demo'} at ${url}\n`);
+  process.stdout.write('Only this machine can reach it (127.0.0.1), and only pages it serves itself. Press Ctrl+C to stop.\n');
+  const left = await skipped();
+  if (left.length) {
+    process.stderr.write(`${left.length} file${left.length === 1 ? '' : 's'} of the folder will not be served:\n`);
+    for (const f of left.slice(0, 20)) process.stderr.write(`  ${termText(f.path)}: ${f.reason}\n`);
+    if (left.length > 20) process.stderr.write(`  … and ${left.length - 20} more\n`);
+  }
 }
 
 main().catch((e) => {
   if (e instanceof UsageError || (e as NodeJS.ErrnoException).code === 'EADDRINUSE') {
-    process.stderr.write(`hairline start: ${(e as Error).message}\n`);
+    process.stderr.write(`hairline start: ${termText((e as Error).message)}\n`);
     process.exit(1);
   }
   throw e;

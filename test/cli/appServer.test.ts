@@ -11,9 +11,13 @@ let port: number;
 let root: string;
 
 /** Sends a raw request target (not normalised by a URL parser, so `..` reaches the server as typed). */
-function get(target: string, method = 'GET'): Promise<{ status: number; body: string; headers: Record<string, unknown> }> {
+function get(
+  target: string,
+  method = 'GET',
+  headers: Record<string, string> = {},
+): Promise<{ status: number; body: string; headers: Record<string, unknown> }> {
   return new Promise((resolve, reject) => {
-    const req = request({ host: '127.0.0.1', port, method, path: target }, (res) => {
+    const req = request({ host: '127.0.0.1', port, method, path: target, headers }, (res) => {
       let body = '';
       res.on('data', (c) => (body += c));
       res.on('end', () => resolve({ status: res.statusCode!, body, headers: res.headers }));
@@ -35,6 +39,14 @@ beforeAll(async () => {
   await writeFile(join(data, 'classes.json'), '{}');
   await symlink(join(root, 'secret.txt'), join(data, 'truth', 'leak.png'));
   await symlink(join(data, 'truth', 'f1.png'), join(data, 'truth', 'alias.png'));
+  await writeFile(join(data, '.env'), 'API_KEY=hunter2');
+  await mkdir(join(data, '.git'), { recursive: true });
+  await writeFile(join(data, '.git', 'config'), '[remote] url=secret');
+  await mkdir(join(data, 'web'), { recursive: true });
+  await writeFile(join(data, 'web', 'page.html'), '<script src="x.js"></script>');
+  await writeFile(join(data, 'web', 'x.js'), 'fetch("/dataset/index.json")');
+  await writeFile(join(data, 'web', 'pic.svg'), '<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>');
+  await writeFile(join(data, 'truth', 'back\\slash.png'), 'PNGDATA');
   ({ server } = await appServerStart({ appDir: app, datasetDir: data, port: 0 }));
   port = (server.address() as { port: number }).port;
 });
@@ -50,7 +62,7 @@ describe('dataset server (read-only, loopback, traversal refused)', () => {
     expect(f.status).toBe(200);
     expect(f.body).toBe('PNGDATA');
     const idx = JSON.parse((await get('/dataset/index.json')).body);
-    expect(idx.files.sort()).toEqual(['classes.json', 'truth/alias.png', 'truth/f1.png']);
+    expect(idx.files.sort()).toEqual(['classes.json', 'truth/alias.png', 'truth/f1.png', 'web/page.html', 'web/pic.svg', 'web/x.js']);
     expect((await get('/dataset/file/truth/alias.png')).status).toBe(200);
   });
 
@@ -77,6 +89,85 @@ describe('dataset server (read-only, loopback, traversal refused)', () => {
     expect([403, 404]).toContain(r.status);
     expect(r.body).not.toContain('top secret');
     expect((await get('/dataset/file//etc/passwd')).status).toBe(404);
+  });
+
+  it.each([['evil.example'], ['evil.example:PORT'], ['127.0.0.1.evil.example:PORT'], ['127.0.0.1:1'], ['localhost']])(
+    'answers a request naming host %s with 421 and no data (DNS rebinding)',
+    async (host) => {
+      for (const target of ['/dataset/index.json', '/dataset/file/truth/f1.png', '/']) {
+        const r = await get(target, 'GET', { host: host.replace('PORT', String(port)) });
+        expect(r.status).toBe(421);
+        expect(r.body).not.toContain('f1.png');
+        expect(r.body).not.toContain('PNGDATA');
+      }
+    },
+  );
+
+  it.each([['127.0.0.1:PORT'], ['localhost:PORT'], ['[::1]:PORT'], ['LOCALHOST:PORT']])('accepts the loopback host %s', async (host) => {
+    const r = await get('/dataset/file/truth/f1.png', 'GET', { host: host.replace('PORT', String(port)) });
+    expect(r.status).toBe(200);
+  });
+
+  it.each([['/dataset/file/.env'], ['/dataset/file/.git/config'], ['/dataset/file/%2egit/config'], ['/dataset/file/truth/./f1.png'], ['/.env']])(
+    'refuses the dot segment in %s with 403',
+    async (target) => {
+      const r = await get(target);
+      expect(r.status).toBe(403);
+      expect(r.body).not.toContain('hunter2');
+      expect(r.body).not.toContain('secret');
+    },
+  );
+
+  it('serves dataset files as data, never as active content of the app origin', async () => {
+    const html = await get('/dataset/file/web/page.html');
+    expect(html.status).toBe(200);
+    expect(String(html.headers['content-type'])).not.toMatch(/html/);
+    expect(String(html.headers['content-disposition'])).toMatch(/^attachment/);
+    expect(String(html.headers['content-security-policy'])).toMatch(/^sandbox/);
+    expect(html.headers['x-content-type-options']).toBe('nosniff');
+    const js = await get('/dataset/file/web/x.js');
+    expect(String(js.headers['content-type'])).not.toMatch(/javascript/);
+    expect(String(js.headers['content-disposition'])).toMatch(/^attachment/);
+    const svg = await get('/dataset/file/web/pic.svg');
+    expect(String(svg.headers['content-type'])).not.toMatch(/svg/);
+    expect(String(svg.headers['content-disposition'])).toMatch(/^attachment/);
+    // What the app reads keeps its type, still sandboxed and not sniffed.
+    const png = await get('/dataset/file/truth/f1.png');
+    expect(png.headers['content-type']).toBe('image/png');
+    expect(png.headers['content-disposition']).toBeUndefined();
+    expect(String(png.headers['content-security-policy'])).toMatch(/^sandbox/);
+    expect(png.headers['x-content-type-options']).toBe('nosniff');
+    const json = await get('/dataset/file/classes.json');
+    expect(String(json.headers['content-type'])).toMatch(/^application\/json/);
+    expect(String(json.headers['content-security-policy'])).toMatch(/^sandbox/);
+    const idx = await get('/dataset/index.json');
+    expect(String(idx.headers['content-security-policy'])).toMatch(/^sandbox/);
+  });
+
+  it('reports files it cannot serve (a backslash in the name, a link leading out) instead of dropping them silently', async () => {
+    const idx = JSON.parse((await get('/dataset/index.json')).body);
+    expect(idx.files).not.toContain('truth/back\\slash.png');
+    expect(idx.skipped).toEqual([
+      { path: 'truth/back\\slash.png', reason: expect.stringMatching(/backslash/) },
+      { path: 'truth/leak.png', reason: expect.stringMatching(/outside/) },
+    ]);
+  });
+
+  it('keeps the listing between requests (ETag, 304) and refreshes it when the folder changes', async () => {
+    const a = await get('/dataset/index.json');
+    const etag = String(a.headers.etag);
+    expect(etag).toMatch(/^"/);
+    const b = await get('/dataset/index.json', 'GET', { 'if-none-match': etag });
+    expect(b.status).toBe(304);
+    expect(b.body).toBe('');
+    await writeFile(join(root, 'data', 'truth', 'f2.png'), 'PNGDATA');
+    const c = await get('/dataset/index.json', 'GET', { 'if-none-match': etag });
+    expect(c.status).toBe(200);
+    expect(c.headers.etag).not.toBe(etag);
+    expect(JSON.parse(c.body).files).toContain('truth/f2.png');
+    await mkdir(join(root, 'data', 'truth', 'deeper'));
+    await writeFile(join(root, 'data', 'truth', 'deeper', 'f3.png'), 'PNGDATA');
+    expect(JSON.parse((await get('/dataset/index.json')).body).files).toContain('truth/deeper/f3.png');
   });
 
   it('is read-only and sends a self-only Content-Security-Policy', async () => {
