@@ -5,7 +5,7 @@ import { suspectReasons, type SuspectSignals } from './suspectReasons.ts';
 import type { SuspectSettings } from './suspectSettings.ts';
 import { candidateIndexBuild, steadyDisagreement } from './steadyDisagreement.ts';
 import { signalConfidence } from './suspectSignals.ts';
-import { temporalFlip, type FrameGrids } from './temporalFlip.ts';
+import { temporalFlip, type FrameGrids, type TemporalFlip } from './temporalFlip.ts';
 
 /** One entry of the likely-label-mistake queue. */
 export interface Suspect {
@@ -64,38 +64,69 @@ export function bboxIoU(a: readonly number[], b: readonly number[]): number {
   return union > 0 ? inter / union : 0;
 }
 
+/** A candidate with its signals, its score, the confidence threshold used and its temporal evidence. */
+export interface ScoredCandidate {
+  c: SuspectCandidate;
+  signals: SuspectSignals;
+  score: number;
+  threshold: number | null;
+  flip: TemporalFlip;
+}
+
 /**
- * Returns the queue of likely label mistakes over all runs, best first: each candidate's signals
- * combined as the weighted mean of geometry, agreement, confidence and image (those it has), then
- * raised by a label flip, 1 − (1 − mean)(1 − weightTemporal · flip), lowered by steady disagreement,
- * · (1 − weightSteady · steady), and scaled down below the geometry gate (thin slivers along label boundaries); nearby regions of one truth segment or
- * one class pair (any run) merged into the best of them; at most `queueMax` entries.
+ * Returns a candidate's score from its signals: the weighted mean of geometry, agreement, confidence
+ * and image (those it has), raised by a label flip, 1 − (1 − mean)(1 − weightTemporal · flip),
+ * lowered by steady disagreement, · (1 − weightSteady · steady), and scaled down below the geometry
+ * gate (thin slivers along label boundaries).
+ */
+export function suspectScore(signals: SuspectSignals, s: SuspectSettings): number {
+  const mean = weightedMean([
+    [signals.geometry, s.weightGeometry], [signals.agreement, s.weightAgreement], [signals.confidence, s.weightConfidence], [signals.image, s.weightImage],
+  ]);
+  const raised = 1 - (1 - mean) * (1 - s.weightTemporal * signals.temporal);
+  return geometryGateFactor(signals.geometry, s) * raised * (1 - s.weightSteady * signals.steady);
+}
+
+/** The queue's order: higher score first, then larger area, then earlier frame. */
+export function suspectOrder(a: Pick<ScoredCandidate, 'c' | 'score'>, b: Pick<ScoredCandidate, 'c' | 'score'>): number {
+  return b.score - a.score || b.c.area - a.c.area || a.c.frameIndex - b.c.frameIndex;
+}
+
+/**
+ * Returns the queue of likely label mistakes over all runs, best first (see suspectScore); nearby
+ * regions of one truth segment or one class pair (any run) merged into the best of them; at most
+ * `queueMax` entries.
  */
 export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Suspect[] {
-  const weights = {
-    geometry: s.weightGeometry, agreement: s.weightAgreement, confidence: s.weightConfidence, image: s.weightImage, temporal: s.weightTemporal, steady: s.weightSteady,
-  };
   const thresholdOf = (run: string, id: number): number | null => {
     const e = input.confidence.get(run)?.get(id);
     return e && e.count > 0 ? e.sum / e.count : null;
   };
   const index = candidateIndexBuild(input.candidates);
   const scoredFrame = (t: number, run: string) => t >= 0 && t < input.grids.length && !!input.grids[t]?.runs[run];
-  const scored = input.candidates.map((c) => {
+  const scored = input.candidates.map((c): ScoredCandidate => {
     const threshold = thresholdOf(c.run, c.predictedClass);
     const flip = temporalFlip(input.grids, c.frameIndex, c.run, c.cells, c.truthClass, c.predictedClass, s.temporalWindow, s.temporalReach);
     const signals: SuspectSignals = {
       geometry: c.geometry, agreement: c.agreement, confidence: signalConfidence(c.confidenceHist, threshold), image: c.image,
       temporal: flip.share, steady: steadyDisagreement(c, index, s.temporalWindow, scoredFrame),
     };
-    const mean = weightedMean([
-      [signals.geometry, s.weightGeometry], [signals.agreement, s.weightAgreement], [signals.confidence, s.weightConfidence], [signals.image, s.weightImage],
-    ]);
-    const raised = 1 - (1 - mean) * (1 - s.weightTemporal * signals.temporal);
-    const score = geometryGateFactor(signals.geometry, s) * raised * (1 - s.weightSteady * signals.steady);
-    return { c, signals, score, threshold, flip };
+    return { c, signals, score: suspectScore(signals, s), threshold, flip };
   });
-  scored.sort((a, b) => b.score - a.score || b.c.area - a.c.area || a.c.frameIndex - b.c.frameIndex);
+  return suspectRank(scored, input, s);
+}
+
+/**
+ * Returns the queue from scored candidates (sorted here by suspectOrder): each candidate joins an
+ * earlier entry of its frame in the same truth segment or with the same class pair whose box is near
+ * and whose score it reaches mergeScoreShare of, or starts an entry while fewer than `queueMax` exist.
+ * Merging never crosses frames, so the queue of a dataset is the best `queueMax` entries of its frames' queues.
+ */
+export function suspectRank(scored: ScoredCandidate[], input: Pick<SuspectQueueInput, 'className' | 'bandWidth'>, s: SuspectSettings): Suspect[] {
+  const weights = {
+    geometry: s.weightGeometry, agreement: s.weightAgreement, confidence: s.weightConfidence, image: s.weightImage, temporal: s.weightTemporal, steady: s.weightSteady,
+  };
+  scored.sort(suspectOrder);
   const out: Suspect[] = [];
   const segmentOf = new Map<Suspect, number>();
   for (const x of scored) {
