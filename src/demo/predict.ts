@@ -7,7 +7,7 @@ import { labelsDegrade } from './degrade.ts';
 import { DRAW_SKIP } from './draw.ts';
 import { hash3, noise2 } from './random.ts';
 import { sceneRender } from './render.ts';
-import { MISSABLE, RUN_STYLES, stretchHas, type DemoRunName, type ObjectPick } from './runs.ts';
+import { flickersAt, MISSABLE, RUN_STYLES, stretchHas, type DemoRunName, type ObjectPick } from './runs.ts';
 import type { DemoScene, SceneObject } from './scene.ts';
 
 /** Inputs shared by both runs for one frame. */
@@ -32,9 +32,10 @@ export function predictionClasses(run: DemoRunName, ctx: PredictionContext): Uin
   const cls = scene.baseClass.slice();
   const areaScale = (cam.width * cam.height) / (1024 * 512);
   const index = cam.time;
+  const flicker = flickersAt(style, index, frames);
   for (const o of scene.objects) {
     const i = o.inst;
-    if (o.cls === DEMO_IGNORE) cls[i] = o.voidAs;
+    if (o.cls === DEMO_IGNORE) cls[i] = flicker ? style.flicker!.voidAs : o.voidAs;
     if (exempt.has(i) || o.ghostCls >= 0) continue;
     if (MISSABLE.includes(o.cls) && visible[i] < style.missBelow * areaScale) cls[i] = DRAW_SKIP;
     else if (style.farContainerAsBuildingBeyond !== null && o.cls === DEMO_CLASS.container) {
@@ -67,7 +68,7 @@ export function predictionLabels(run: DemoRunName, ctx: PredictionContext): Uint
     thinBreak: style.thinBreak,
     jitter: style.jitter,
     seed: hash3(scene.seed, run === 'run-a' ? 1 : 2, 0x9e1d) & 0xffff,
-    time: cam.time,
+    time: cam.time + (flickersAt(style, cam.time, frames) ? style.flicker!.timeStep : 0),
   });
   for (const b of style.invalid) if (stretchHas(b.during, cam.time, frames)) invalidBlob(out, cam, b.id, b.x, b.y, b.r);
   return out;

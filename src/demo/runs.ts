@@ -27,6 +27,11 @@ export interface RunStyle {
   farContainerAsBuildingBeyond: number | null;
   confusions: readonly { pick: ObjectPick; as: number; during: Stretch }[];
   ghosts: readonly { name: GhostName; during: Stretch }[];
+  /**
+   * Frame-to-frame flicker: in the stretch, every odd frame draws void clutter as `voidAs` and takes
+   * its output grid `timeStep` further along, so those pixels flip and come back a frame later.
+   */
+  flicker: { during: Stretch; voidAs: number; timeStep: number } | null;
   /** Blobs of an id outside the class table: centre and radius as shares of the width. */
   invalid: readonly { id: number; x: number; y: number; r: number; during: Stretch }[];
 }
@@ -57,6 +62,7 @@ export const RUN_STYLES: Record<DemoRunName, RunStyle> = {
       { name: 'puddle', during: [0.62, 0.92] },
     ],
     invalid: [{ id: 12, x: 0.82, y: 0.1, r: 0.028, during: [0.6, 0.76] }],
+    flicker: { during: [0.3, 0.8], voidAs: DEMO_CLASS.water, timeStep: 9 },
   },
   'run-b': {
     stride: 4,
@@ -78,11 +84,17 @@ export const RUN_STYLES: Record<DemoRunName, RunStyle> = {
       { name: 'shrub', during: [0.5, 1] },
     ],
     invalid: [{ id: 13, x: 0.1, y: 0.64, r: 0.024, during: [0.2, 0.36] }],
+    flicker: null,
   },
 };
 
 /** Classes a run can miss when they are small in the frame. */
 export const MISSABLE: readonly number[] = [DEMO_CLASS.person, DEMO_CLASS.bollard, DEMO_CLASS.truck, DEMO_CLASS.lightMast];
+
+/** Returns true when the run flickers at frame `index` of `frames` (an odd frame in its flicker stretch). */
+export function flickersAt(style: RunStyle, index: number, frames: number): boolean {
+  return style.flicker !== null && index % 2 === 1 && stretchHas(style.flicker.during, index, frames);
+}
 
 /** Returns true when frame `index` of `frames` lies in the stretch. */
 export function stretchHas(s: Stretch, index: number, frames: number): boolean {
