@@ -6,7 +6,9 @@ import type { RegionKind } from '../core/regions/regionTypes.ts';
 import {
   confidenceSumsAdd, frameGridsOf, suspectCandidates, type ConfidenceSums, type SuspectCandidate,
 } from '../core/suspects/suspectCandidates.ts';
+import { pairRecurrenceAdd, type PairRecurrence } from '../core/suspects/pairRecurrence.ts';
 import { suspectQueue } from '../core/suspects/suspectQueue.ts';
+import type { SuspectContributions } from '../core/suspects/suspectScore.ts';
 import { SUSPECT_DEFAULTS, type SuspectSettings } from '../core/suspects/suspectSettings.ts';
 import type { FrameGrids } from '../core/suspects/temporalFlip.ts';
 
@@ -35,6 +37,9 @@ export interface ReportSuspect {
   kind: RegionKind;
   score: number;
   reasons: string[];
+  /** What each signal added to the score (score = 0.5 + their sum), and the same in words. */
+  contributions: SuspectContributions;
+  contributionsText: string;
 }
 
 /** What the scorer keeps per dataset for regions and suspects. */
@@ -43,6 +48,8 @@ export interface RegionGather {
   candidates: SuspectCandidate[];
   grids: (FrameGrids | null)[];
   confidence: ConfidenceSums;
+  /** How often each class pair shows per run (frames; additive over frames and shards). */
+  recurrence: PairRecurrence;
   /** Per frame: the first run's listed regions, or null when it has none (failed, or no prediction). */
   lines: (ReportRegion[] | null)[];
   voidSpill: (ReportVoidSpill | null)[];
@@ -51,7 +58,7 @@ export interface RegionGather {
 /** Returns an empty gatherer for `frames` frames with a queue of `queueMax` entries. */
 export function regionGatherCreate(frames: number, queueMax: number): RegionGather {
   return {
-    settings: { ...SUSPECT_DEFAULTS, queueMax }, candidates: [], grids: new Array(frames).fill(null), confidence: new Map(),
+    settings: { ...SUSPECT_DEFAULTS, queueMax }, candidates: [], grids: new Array(frames).fill(null), confidence: new Map(), recurrence: new Map(),
     lines: new Array(frames).fill(null), voidSpill: new Array(frames).fill(null),
   };
 }
@@ -60,6 +67,7 @@ export function regionGatherCreate(frames: number, queueMax: number): RegionGath
 export function regionGatherAdd(g: RegionGather, index: number, result: FrameJobResult, firstRun: string): void {
   g.candidates.push(...suspectCandidates(result, index, g.settings));
   confidenceSumsAdd(g.confidence, result);
+  pairRecurrenceAdd(g.recurrence, result, g.settings);
   g.grids[index] = frameGridsOf(result);
   const first = result.error ? null : result.runs.find((r) => r.run === firstRun);
   g.lines[index] = first?.regions
@@ -70,8 +78,8 @@ export function regionGatherAdd(g: RegionGather, index: number, result: FrameJob
 
 /** Returns the likely-label-mistake queue over every run, best first, in the report's shape. */
 export function regionGatherSuspects(g: RegionGather, className: (id: number) => string): ReportSuspect[] {
-  return suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, className }, g.settings).map((s) => ({
+  return suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, recurrence: g.recurrence, className }, g.settings).map((s) => ({
     frame: s.frame, run: s.run, bbox: s.bbox, truthClass: s.truthClass, predictedClass: s.predictedClass, kind: s.kind,
-    score: s.score, reasons: s.reasons,
+    score: s.score, reasons: s.reasons, contributions: s.contributions, contributionsText: s.contributionsText,
   }));
 }

@@ -25,7 +25,7 @@ function writeAt(path: string, bytes: Uint8Array | string): void {
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 type Box = [number, number, number, number];
 interface KeyEntry { frame: string; kind: string; bbox: Box; trueClass: number; labelledClass: number }
-interface Suspect { frame: string; run: string; bbox: Box; truthClass: number; predictedClass: number; kind: string; score: number; reasons: string[] }
+interface Suspect { frame: string; run: string; bbox: Box; truthClass: number; predictedClass: number; kind: string; score: number; reasons: string[]; contributions: Record<string, number>; contributionsText: string }
 
 const area = (b: Box) => (b[2] - b[0]) * (b[3] - b[1]);
 const overlap = (a: Box, b: Box) => Math.max(0, Math.min(a[2], b[2]) - Math.max(a[0], b[0])) * Math.max(0, Math.min(a[3], b[3]) - Math.max(a[1], b[1]));
@@ -70,8 +70,10 @@ describe('likely label mistakes on the Kestrel Quay demo (real CLI, --images, tw
   it('suspects have exactly the documented keys, best first, each with reasons in words', () => {
     expect(report.suspects.length).toBeGreaterThan(50);
     for (const s of report.suspects) {
-      expect(Object.keys(s).sort()).toEqual(['bbox', 'frame', 'kind', 'predictedClass', 'reasons', 'run', 'score', 'truthClass']);
+      expect(Object.keys(s).sort()).toEqual(['bbox', 'contributions', 'contributionsText', 'frame', 'kind', 'predictedClass', 'reasons', 'run', 'score', 'truthClass']);
       expect(s.reasons.length).toBeGreaterThan(0);
+      // The contributions are the score split by signal: 0.5 plus their sum is the score.
+      expect(0.5 + Object.values(s.contributions).reduce((a, b) => a + b, 0)).toBeCloseTo(s.score, 9);
       expect(s.score).toBeGreaterThanOrEqual(0);
       expect(s.score).toBeLessThanOrEqual(1);
     }

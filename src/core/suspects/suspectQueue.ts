@@ -1,6 +1,8 @@
 import { REGION_DEFAULTS } from '../regions/regionSettings.ts';
 import type { RegionKind } from '../regions/regionTypes.ts';
-import { confidenceSumsAdd, frameGridsOf, suspectCandidates, weightedMean, type ConfidenceSums, type SuspectCandidate, type SuspectFrame } from './suspectCandidates.ts';
+import { confidenceSumsAdd, frameGridsOf, suspectCandidates, type ConfidenceSums, type SuspectCandidate, type SuspectFrame } from './suspectCandidates.ts';
+import { pairHabitOf, pairRecurrenceAdd, type PairHabit, type PairRecurrence } from './pairRecurrence.ts';
+import { contributionsText, suspectScoreOf, type SuspectContributions } from './suspectScore.ts';
 import { suspectReasons, type SuspectSignals } from './suspectReasons.ts';
 import type { SuspectSettings } from './suspectSettings.ts';
 import { candidateIndexBuild, steadyDisagreement } from './steadyDisagreement.ts';
@@ -23,6 +25,9 @@ export interface Suspect {
   frameIndex: number;
   regionId: number;
   signals: SuspectSignals;
+  /** What each signal added to the score (score = 0.5 + their sum), and the same in words. */
+  contributions: SuspectContributions;
+  contributionsText: string;
   /** Other runs whose regions were merged into this entry. */
   alsoRuns: string[];
   /** Regions merged into this entry besides its own (any run), with their region ids per run. */
@@ -34,6 +39,8 @@ export interface SuspectQueueInput {
   candidates: readonly SuspectCandidate[];
   grids: readonly (FrameGrids | null)[];
   confidence: ConfidenceSums;
+  /** How often each class pair shows in each run's frames (absent: no pair is taken as a habit). */
+  recurrence?: PairRecurrence;
   className: (id: number) => string;
   /** Band width the regions' band shares were measured at (REGION_DEFAULTS.bandWidth unless changed). */
   bandWidth?: number;
@@ -48,11 +55,6 @@ function boxesNear(a: readonly number[], b: readonly number[], gap: number): boo
 function mergeGapOf(a: readonly number[], b: readonly number[], s: SuspectSettings): number {
   const long = (x: readonly number[]) => Math.max(x[2] - x[0], x[3] - x[1]);
   return Math.max(s.mergeGap, s.mergeReach * Math.min(long(a), long(b)));
-}
-
-/** Returns the factor 0..1 that scales the score of thin regions along label boundaries (1 at or above the gate). */
-export function geometryGateFactor(geometry: number, s: SuspectSettings): number {
-  return s.geometryGate > 0 && geometry < s.geometryGate ? geometry / s.geometryGate : 1;
 }
 
 /** Returns the IoU 0..1 of two end-exclusive boxes. */
@@ -71,20 +73,13 @@ export interface ScoredCandidate {
   score: number;
   threshold: number | null;
   flip: TemporalFlip;
+  /** How common its class pair is across the dataset (absent: not known). */
+  pair?: PairHabit;
 }
 
-/**
- * Returns a candidate's score from its signals: the weighted mean of geometry, agreement, confidence
- * and image (those it has), raised by a label flip, 1 − (1 − mean)(1 − weightTemporal · flip),
- * lowered by steady disagreement, · (1 − weightSteady · steady), and scaled down below the geometry
- * gate (thin slivers along label boundaries).
- */
+/** Returns a candidate's score 0..1 from its signals (suspectScoreOf, src/core/suspects/suspectScore.ts). */
 export function suspectScore(signals: SuspectSignals, s: SuspectSettings): number {
-  const mean = weightedMean([
-    [signals.geometry, s.weightGeometry], [signals.agreement, s.weightAgreement], [signals.confidence, s.weightConfidence], [signals.image, s.weightImage],
-  ]);
-  const raised = 1 - (1 - mean) * (1 - s.weightTemporal * signals.temporal);
-  return geometryGateFactor(signals.geometry, s) * raised * (1 - s.weightSteady * signals.steady);
+  return suspectScoreOf(signals, s).score;
 }
 
 /** The queue's order: higher score first, then larger area, then earlier frame. */
@@ -104,14 +99,23 @@ export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Susp
   };
   const index = candidateIndexBuild(input.candidates);
   const scoredFrame = (t: number, run: string) => t >= 0 && t < input.grids.length && !!input.grids[t]?.runs[run];
+  const recurrence: PairRecurrence = input.recurrence ?? new Map();
+  const habits = new Map<string, PairHabit>();
+  const habitOf = (g: number, p: number) => {
+    const k = `${g}>${p}`;
+    let h = habits.get(k);
+    if (!h) habits.set(k, (h = pairHabitOf(recurrence, g, p, s)));
+    return h;
+  };
   const scored = input.candidates.map((c): ScoredCandidate => {
     const threshold = thresholdOf(c.run, c.predictedClass);
     const flip = temporalFlip(input.grids, c.frameIndex, c.run, c.cells, c.truthClass, c.predictedClass, s.temporalWindow, s.temporalReach);
+    const pair = habitOf(c.truthClass, c.predictedClass);
     const signals: SuspectSignals = {
       geometry: c.geometry, agreement: c.agreement, confidence: signalConfidence(c.confidenceHist, threshold), image: c.image,
-      temporal: flip.share, steady: steadyDisagreement(c, index, s.temporalWindow, scoredFrame),
+      temporal: flip.share, steady: steadyDisagreement(c, index, s.temporalWindow, scoredFrame), habit: pair.habit,
     };
-    return { c, signals, score: suspectScore(signals, s), threshold, flip };
+    return { c, signals, score: suspectScore(signals, s), threshold, flip, pair };
   });
   return suspectRank(scored, input, s);
 }
@@ -125,6 +129,7 @@ export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Susp
 export function suspectRank(scored: ScoredCandidate[], input: Pick<SuspectQueueInput, 'className' | 'bandWidth'>, s: SuspectSettings): Suspect[] {
   const weights = {
     geometry: s.weightGeometry, agreement: s.weightAgreement, confidence: s.weightConfidence, image: s.weightImage, temporal: s.weightTemporal, steady: s.weightSteady,
+    habit: s.weightHabit,
   };
   scored.sort(suspectOrder);
   const out: Suspect[] = [];
@@ -142,10 +147,12 @@ export function suspectRank(scored: ScoredCandidate[], input: Pick<SuspectQueueI
       continue;
     }
     if (out.length >= s.queueMax) continue;
-    const reasons = suspectReasons(c, x.signals, weights, { className: input.className, threshold: x.threshold, flip: x.flip, bandWidth: input.bandWidth ?? REGION_DEFAULTS.bandWidth });
+    const reasons = suspectReasons(c, x.signals, weights, { className: input.className, threshold: x.threshold, flip: x.flip, bandWidth: input.bandWidth ?? REGION_DEFAULTS.bandWidth, pair: x.pair });
+    const { contributions } = suspectScoreOf(x.signals, s);
     out.push({
       frame: c.frame, run: c.run, bbox: c.bbox, truthClass: c.truthClass, predictedClass: c.predictedClass, kind: c.kind, score: x.score,
-      reasons, frameIndex: c.frameIndex, regionId: c.regionId, signals: x.signals, alsoRuns: [], merged: [],
+      reasons, frameIndex: c.frameIndex, regionId: c.regionId, signals: x.signals, contributions,
+      contributionsText: contributionsText(contributions), alsoRuns: [], merged: [],
     });
     segmentOf.set(out[out.length - 1], c.truthSegment);
   }
@@ -163,11 +170,13 @@ export function suspectQueueOfResults(
 ): Suspect[] {
   const candidates: SuspectCandidate[] = [];
   const confidence: ConfidenceSums = new Map();
+  const recurrence: PairRecurrence = new Map();
   const grids = results.map((r, i) => {
     if (!r) return null;
     candidates.push(...suspectCandidates(r, i, s));
     confidenceSumsAdd(confidence, r);
+    pairRecurrenceAdd(recurrence, r, s);
     return frameGridsOf(r);
   });
-  return suspectQueue({ candidates, grids, confidence, className, bandWidth }, s);
+  return suspectQueue({ candidates, grids, confidence, recurrence, className, bandWidth }, s);
 }

@@ -1,3 +1,4 @@
+import type { PairHabit } from './pairRecurrence.ts';
 import type { SuspectCandidate } from './suspectCandidates.ts';
 import type { TemporalFlip } from './temporalFlip.ts';
 
@@ -11,6 +12,8 @@ export interface SuspectSignals {
   temporal: number;
   /** Share of the frames around where the same disagreement recurs under the same label. */
   steady: number;
+  /** Habit strength 0..1 of the region's class pair: how common it is in every run across the dataset (pairRecurrence.ts). */
+  habit: number;
 }
 
 /** What the sentences need besides the candidate: class names, the threshold used, the temporal bracket, the band width. */
@@ -19,6 +22,8 @@ export interface ReasonContext {
   threshold: number | null;
   flip: TemporalFlip;
   bandWidth: number;
+  /** How common the region's class pair is across the dataset (absent: not known). */
+  pair?: PairHabit;
 }
 
 const pct = (v: number) => `${Math.round(v * 100)} %`;
@@ -71,6 +76,13 @@ export function suspectReasons(c: SuspectCandidate, s: SuspectSignals, weights: 
     items.push({
       strength: -3 - s.steady,
       text: `the label says ${label} here in the frames around too, and ${c.run} predicts ${pred} there as well (${pct(s.steady)}): a steady habit of the model more often than a slip of the labeller`,
+    });
+  }
+  if (s.habit > 0 && ctx.pair) {
+    const p = ctx.pair;
+    items.push({
+      strength: -1 - 2 * s.habit,
+      text: `${c.agreementRuns.length ? 'every run predicts' : `${c.run} predicts`} ${pred} where the label says ${label} in many frames (${p.frames} of ${p.of}, ${pct(p.share)}${c.agreementRuns.length ? ' in the run where it is rarest' : ''}): a common confusion of the model${c.agreementRuns.length ? 's, so their agreement counts for less' : ''}`,
     });
   }
   const add = (key: keyof SuspectSignals, v: number | null, text: () => string) => {

@@ -15,6 +15,18 @@ export const SUSPECT_DEFAULTS = {
   weightTemporal: 0.6,
   /** The same disagreement under the same label in the frames around lowers it: score · (1 − weightSteady · steady). */
   weightSteady: 0.5,
+  /**
+   * A class pair every run makes in many frames (habit h, pairRecurrence.ts) moves h of agreement's
+   * weight to a "common confusion" term of value 0, and adds weightHabit · h more of it, so a shared
+   * model habit is not read as proof of a wrong label.
+   */
+  weightHabit: 1,
+  /** Habit strength is 0 at or below this share of frames showing the pair (in the run where it is rarest)... */
+  recurrenceFrom: 0.1,
+  /** ... and 1 at or above this share, linear between. */
+  recurrenceFull: 0.3,
+  /** A pair shown in fewer frames than this (in the run where it is rarest) is no habit, whatever its share. */
+  recurrenceMinFrames: 4,
   /** Thickness (pixels) scoring 0 and 1 in the geometry signal; linear between. */
   thinPx: 1,
   thickPx: 3,
@@ -57,8 +69,9 @@ export function suspectSettingsCheck(partial: Partial<SuspectSettings> = {}): Re
     if (s[key] > 1) return fail('', `suspect settings: "${key}" must be 0..1, got ${s[key]}`);
   }
   if (s.mergeScoreShare > 1) return fail('', `suspect settings: "mergeScoreShare" must be 0..1, got ${s.mergeScoreShare}`);
+  if (!(s.recurrenceFull > s.recurrenceFrom) || s.recurrenceFull > 1) return fail('', `suspect settings: "recurrenceFull" (${s.recurrenceFull}) must be above "recurrenceFrom" (${s.recurrenceFrom}) and at most 1`);
   if (!(s.thickPx > s.thinPx)) return fail('', `suspect settings: "thickPx" (${s.thickPx}) must be larger than "thinPx" (${s.thinPx})`);
-  for (const key of ['temporalWindow', 'temporalReach', 'perFrameMax', 'queueMax'] as const) {
+  for (const key of ['temporalWindow', 'temporalReach', 'perFrameMax', 'queueMax', 'recurrenceMinFrames'] as const) {
     if (!Number.isInteger(s[key])) return fail('', `suspect settings: "${key}" must be a whole number, got ${s[key]}`);
   }
   if (s.weightGeometry + s.weightAgreement + s.weightConfidence + s.weightImage <= 0) {

@@ -29,7 +29,7 @@ function candidates(seed: number, frames: number): SuspectCandidate[] {
 }
 
 const scoredOf = (c: SuspectCandidate): ScoredCandidate => {
-  const signals = { geometry: c.geometry, agreement: null, confidence: null, image: null, temporal: 0, steady: 0 };
+  const signals = { geometry: c.geometry, agreement: null, confidence: null, image: null, temporal: 0, steady: 0, habit: 0 };
   return { c, signals, score: suspectScore(signals, SUSPECT_DEFAULTS), threshold: null, flip: { share: 0, before: null, after: null } };
 };
 
