@@ -24,7 +24,8 @@ export function datasetInstall(store: AppStore, dataset: LoadedDataset, frameInd
   if (dataset.table) s.settingsSet({ ignore: dataset.table.ignore });
   const runs = dataset.pairing.runs;
   store.setState({ frameIndex: 0, place: null });
-  s.layersSet({ runA: runs[0] ?? null, runB: null, curtain: { on: false, x: 0 } });
+  s.runsSet({ runA: runs[0] ?? null, runB: null });
+  s.layersSet({ curtain: { on: false, x: 0 } });
   s.datasetSet(dataset);
   store.getState().frameIndexSet(frameIndex);
 }

@@ -30,14 +30,14 @@ export function resultSummary(result: StoredFrame, run: string, w: number): Fram
 
 /** Returns the run the frame list and timeline describe: run A, else the first run. */
 export function shownRun(s: AppState): string | null {
-  return s.layers.runA ?? s.dataset?.pairing.runs[0] ?? null;
+  return s.runA ?? s.dataset?.pairing.runs[0] ?? null;
 }
 
 /** Returns a row per frame for run A at the current band width. */
 export function frameRowsOf(s: AppState): FrameRow[] {
   const frames = s.dataset?.pairing.frames ?? [];
   const run = shownRun(s);
-  const w = s.layers.band.width;
+  const w = s.bandWidth;
   return frames.map((f, index) => {
     const r = s.results[index];
     if (!r) return { index, name: f.name, pending: true, error: null, summary: null };

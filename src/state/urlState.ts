@@ -1,4 +1,5 @@
-import { LAYER_KEYS, type LayerKey, type LayerSettings } from '../core/composite/layerSettings.ts';
+import { LAYER_KEYS, type LayerKey, type LayerLooks } from '../core/composite/layerSettings.ts';
+import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
 import type { AppState, AppStore } from './store.ts';
 import type { ViewPlace } from './viewSlice.ts';
 
@@ -24,10 +25,10 @@ export function urlViewEncode(s: AppState): string {
   if (s.dataset) p.set('ds', s.dataset.source.kind === 'demo' ? 'demo' : s.dataset.source.kind === 'served' ? 'served' : 'folder');
   const frame = s.dataset?.pairing.frames[s.frameIndex]?.name;
   if (frame) p.set('f', frame);
-  if (s.layers.runA) p.set('a', s.layers.runA);
-  if (s.layers.runB) p.set('b', s.layers.runB);
+  if (s.runA) p.set('a', s.runA);
+  if (s.runB) p.set('b', s.runB);
   p.set('l', LAYER_KEYS.filter((k) => k !== 'highlight').map((k) => `${SHORT[k]}${s.layers[k].on ? 'y' : 'n'}${s.layers[k].opacity}`).join('.'));
-  p.set('w', String(s.layers.band.width));
+  p.set('w', String(s.bandWidth));
   if (s.layers.solo.on) p.set('solo', String(s.layers.solo.classId));
   if (s.layers.curtain.on) p.set('cur', String(s.layers.curtain.x));
   if (s.place) p.set('z', `${s.place.cx.toFixed(1)},${s.place.cy.toFixed(1)},${+s.place.scale.toPrecision(4)}`);
@@ -56,7 +57,7 @@ export function urlViewDecode(hash: string): UrlView {
     runA: p.get('a'),
     runB: p.get('b'),
     layers,
-    bandWidth: w !== null && Number.isInteger(w) && w >= 0 && w <= 64 ? w : null,
+    bandWidth: w !== null && Number.isInteger(w) && w >= 0 && w <= BAND_WIDTH_MAX ? w : null,
     place,
     solo: num(p.get('solo')),
     curtain: num(p.get('cur')),
@@ -68,13 +69,13 @@ export function urlViewApply(store: AppStore, v: UrlView): void {
   const s = store.getState();
   if (!s.dataset) return;
   const runs = s.dataset.pairing.runs;
-  const patch: Partial<LayerSettings> = {};
+  const patch: Partial<LayerLooks> = {};
   for (const [k, l] of Object.entries(v.layers) as [LayerKey, { on: boolean; opacity: number }][]) {
     patch[k] = { ...s.layers[k], ...l } as never;
   }
-  if (v.runA && runs.includes(v.runA)) patch.runA = v.runA;
-  if (v.runB && runs.includes(v.runB)) patch.runB = v.runB;
-  if (v.bandWidth !== null) patch.band = { ...(patch.band ?? s.layers.band), width: v.bandWidth };
+  if (v.runA && runs.includes(v.runA)) s.runsSet({ runA: v.runA });
+  if (v.runB && runs.includes(v.runB)) s.runsSet({ runB: v.runB });
+  if (v.bandWidth !== null) s.bandWidthSet(v.bandWidth);
   if (v.solo !== null) patch.solo = { ...s.layers.solo, on: true, classId: v.solo };
   if (v.curtain !== null) patch.curtain = { on: true, x: v.curtain };
   s.layersSet(patch);
@@ -96,7 +97,7 @@ export function urlViewKeep(store: AppStore): () => void {
     history.replaceState(null, '', `${location.pathname}${location.search}#${hash}`);
   };
   const unsub = store.subscribe((s, prev) => {
-    if (s.frameIndex === prev.frameIndex && s.layers === prev.layers && s.place === prev.place && s.dataset === prev.dataset) return;
+    if (s.frameIndex === prev.frameIndex && s.layers === prev.layers && s.runA === prev.runA && s.runB === prev.runB && s.bandWidth === prev.bandWidth && s.place === prev.place && s.dataset === prev.dataset) return;
     clearTimeout(timer);
     timer = window.setTimeout(write, 120);
   });

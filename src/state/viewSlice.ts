@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { layerSettingsDefault, type LayerSettings } from '../core/composite/layerSettings.ts';
+import { layerLooksDefault, type LayerLooks } from '../core/composite/layerSettings.ts';
 import type { AppState } from './store.ts';
 import type { FlagInput } from './reviewSlice.ts';
 
@@ -17,7 +17,14 @@ export interface ViewPlace {
 export interface ViewSlice {
   /** Index of the frame on screen, in the dataset's natural order. */
   frameIndex: number;
-  layers: LayerSettings;
+  /** How each layer looks (switch, opacity, modes); the compositor's settings are `layerSettingsSel` of the state. */
+  layers: LayerLooks;
+  /** The run the scores, frame list and layers describe ("run A"); null when the dataset has none. */
+  runA: string | null;
+  /** The run compared with A (fixed / broke, A / B tab); null for none. */
+  runB: string | null;
+  /** Boundary-band width every band number and the band layer use, pixels (0..BAND_WIDTH_MAX). */
+  bandWidth: number;
   /** null = fit the frame to the canvas. */
   place: ViewPlace | null;
   /** Score the frame list sorts by and the timeline colours by. */
@@ -29,7 +36,7 @@ export interface ViewSlice {
   /** Stepping through frames by itself at `playRate` frames per second. */
   playing: boolean;
   playRate: number;
-  /** A box to centre the viewer on (image pixels, end-exclusive) and outline; bumped `focusSeq` each time. */
+  /** A box to centre the viewer on (image pixels, end-exclusive) and outline; bumped `focusSeq` each time. Cleared on a frame change. */
   focusBox: readonly [number, number, number, number] | null;
   focusSeq: number;
   /** Key (suspectKey) of the queue item being inspected, or null. */
@@ -41,7 +48,9 @@ export interface ViewSlice {
   /** Drawing a box on the viewer to flag (also with Shift held while dragging). */
   boxDrawing: boolean;
   frameIndexSet(index: number): void;
-  layersSet(patch: Partial<LayerSettings>): void;
+  layersSet(patch: Partial<LayerLooks>): void;
+  runsSet(patch: { runA?: string | null; runB?: string | null }): void;
+  bandWidthSet(width: number): void;
   placeSet(place: ViewPlace | null): void;
   frameScoreSet(key: FrameScoreKey): void;
   sortWorstFirstSet(v: boolean): void;
@@ -62,7 +71,10 @@ export interface ViewSlice {
 /** Returns the view slice of the app store (what is on screen and how). */
 export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) => ({
   frameIndex: 0,
-  layers: layerSettingsDefault(),
+  layers: layerLooksDefault(),
+  runA: null,
+  runB: null,
+  bandWidth: 3,
   place: null,
   frameScore: 'meanIoU',
   sortWorstFirst: true,
@@ -81,11 +93,11 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
     const clamped = count === 0 ? 0 : Math.max(0, Math.min(count - 1, Math.round(index)));
     if (clamped === get().frameIndex) return;
     // An outline belongs to the frame it was drawn for.
-    const { highlight } = get().layers;
-    const layers = highlight.boxes.length ? { ...get().layers, highlight: { ...highlight, boxes: [] } } : get().layers;
-    set({ frameIndex: clamped, focusBox: null, layers });
+    set({ frameIndex: clamped, focusBox: null });
   },
   layersSet: (patch) => set({ layers: { ...get().layers, ...patch } }),
+  runsSet: (patch) => set(patch),
+  bandWidthSet: (bandWidth) => set({ bandWidth }),
   placeSet: (place) => set({ place }),
   frameScoreSet: (frameScore) => set({ frameScore }),
   sortWorstFirstSet: (sortWorstFirst) => set({ sortWorstFirst }),
@@ -96,8 +108,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   focusOn: (index, bbox) => {
     get().frameIndexSet(index);
     const { highlight } = get().layers;
-    const box = { x: bbox[0], y: bbox[1], width: bbox[2] - bbox[0], height: bbox[3] - bbox[1] };
-    set({ focusBox: bbox, focusSeq: get().focusSeq + 1, layers: { ...get().layers, highlight: { ...highlight, on: true, boxes: [box] } } });
+    set({ focusBox: bbox, focusSeq: get().focusSeq + 1, layers: highlight.on ? get().layers : { ...get().layers, highlight: { ...highlight, on: true } } });
   },
   queueSelect: (key, frameIndex, bbox) => {
     get().focusOn(frameIndex, bbox);
@@ -106,8 +117,5 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   leftTabSet: (leftTab) => set({ leftTab }),
   flagDraftSet: (flagDraft) => set({ flagDraft }),
   boxDrawingSet: (boxDrawing) => set({ boxDrawing }),
-  focusClear: () => {
-    const { highlight } = get().layers;
-    set({ focusBox: null, layers: { ...get().layers, highlight: { ...highlight, boxes: [] } } });
-  },
+  focusClear: () => set({ focusBox: null }),
 });

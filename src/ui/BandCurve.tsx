@@ -45,8 +45,7 @@ export function BandCurve({ runA, runB, a, aFrame, b, w }: { runA: string | null
           const r = e.currentTarget.getBoundingClientRect();
           const x = ((e.clientX - r.left) / r.width) * W;
           const width = Math.round(((x - PAD.l) / (W - PAD.l - PAD.r)) * 64);
-          const band = store.getState().layers.band;
-          store.getState().layersSet({ band: { ...band, width: Math.max(0, Math.min(64, width)) } });
+          store.getState().bandWidthSet(Math.max(0, Math.min(64, width)));
         }}
       >
         {[0, 0.25, 0.5, 0.75, 1].map((t) => {

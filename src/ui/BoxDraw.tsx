@@ -49,7 +49,7 @@ export function BoxDraw({ host, viewer }: { host: HTMLElement; viewer: Viewer })
       setRect(null);
       s.boxDrawingSet(false);
       if (x1 - x0 >= 2 && y1 - y0 >= 2) {
-        s.flagDraftSet({ frame: f.name, kind: 'rect', bbox: [x0, y0, x1, y1], reason: 'label-mistake', run: s.layers.runA });
+        s.flagDraftSet({ frame: f.name, kind: 'rect', bbox: [x0, y0, x1, y1], reason: 'label-mistake', run: s.runA });
       }
     };
     host.addEventListener('pointerdown', down, { capture: true });

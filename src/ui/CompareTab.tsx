@@ -71,7 +71,8 @@ export function CompareTab({ runA, runB }: { runA: string | null; runB: string |
           <button
             onClick={() => {
               const s = store.getState();
-              s.layersSet({ runB: other, compare: { ...s.layers.compare, on: true } });
+              s.runsSet({ runB: other });
+              s.layersSet({ compare: { ...s.layers.compare, on: true } });
             }}
           >
             compare {runA} with {other}

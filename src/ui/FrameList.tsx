@@ -25,8 +25,8 @@ export function FrameList() {
   const store = useAppStore();
   const results = useApp((s) => s.results);
   const dataset = useApp((s) => s.dataset);
-  const runA = useApp((s) => s.layers.runA);
-  const bandWidth = useApp((s) => s.layers.band.width);
+  const runA = useApp((s) => s.runA);
+  const bandWidth = useApp((s) => s.bandWidth);
   const sortKey = useApp((s) => s.frameScore);
   const worstFirst = useApp((s) => s.sortWorstFirst);
   const current = useApp((s) => s.frameIndex);

@@ -19,7 +19,7 @@ const NAMES: Record<LayerKey, string> = {
 function LayerChip({ k }: { k: LayerKey }) {
   const store = useAppStore();
   const layer = useApp((s) => s.layers[k]);
-  const disabled = useApp((s) => k === 'compare' && s.layers.runB === null);
+  const disabled = useApp((s) => k === 'compare' && s.runB === null);
   const key = APP_COMMANDS.find((c) => c.id === `layer.${k}`)?.keys[0];
   const set = (patch: object) => store.getState().layersSet({ [k]: { ...store.getState().layers[k], ...patch } });
   return (

@@ -97,9 +97,8 @@ export function Scoreboard() {
   const store = useAppStore();
   const [tab, setTab] = useState<Tab>('scores');
   const run = useApp(shownRun);
-  const runB = useApp((s) => s.layers.runB);
-  const w = useApp((s) => s.layers.band.width);
-  const band = useApp((s) => s.layers.band);
+  const runB = useApp((s) => s.runB);
+  const w = useApp((s) => s.bandWidth);
   const { dataset, frame, classes } = useScopes(run);
   const scopesB = useScopes(runB);
   return (
@@ -120,7 +119,7 @@ export function Scoreboard() {
             max={64}
             value={w}
             aria-label="band width"
-            onChange={(e) => store.getState().layersSet({ band: { ...band, width: Number(e.currentTarget.value) } })}
+            onChange={(e) => store.getState().bandWidthSet(Number(e.currentTarget.value))}
           />
         </label>
         <button

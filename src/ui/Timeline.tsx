@@ -28,8 +28,8 @@ export function Timeline() {
   const current = useApp((s) => s.frameIndex);
   const playing = useApp((s) => s.playing);
   const rate = useApp((s) => s.playRate);
-  const runA = useApp((s) => s.layers.runA);
-  const bandWidth = useApp((s) => s.layers.band.width);
+  const runA = useApp((s) => s.runA);
+  const bandWidth = useApp((s) => s.bandWidth);
   const count = useApp((s) => s.dataset?.pairing.frames.length ?? 0);
   const canvas = useRef<HTMLCanvasElement>(null);
 

@@ -30,7 +30,7 @@ function ScoringProgress() {
 function RunPicker({ which }: { which: 'runA' | 'runB' }) {
   const store = useAppStore();
   const runs = useApp((s) => s.dataset?.pairing.runs ?? NO_RUNS);
-  const value = useApp((s) => s.layers[which]);
+  const value = useApp((s) => s[which]);
   if (runs.length === 0) return null;
   return (
     <label className="run-picker">
@@ -40,7 +40,8 @@ function RunPicker({ which }: { which: 'runA' | 'runB' }) {
         onChange={(e) => {
           const v = e.currentTarget.value || null;
           const s = store.getState();
-          s.layersSet(which === 'runB' ? { runB: v, compare: { ...s.layers.compare, on: v !== null } } : { runA: v });
+          s.runsSet({ [which]: v });
+          if (which === 'runB') s.layersSet({ compare: { ...s.layers.compare, on: v !== null } });
         }}
       >
         {which === 'runB' && <option value="">(none)</option>}

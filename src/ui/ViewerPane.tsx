@@ -4,6 +4,7 @@ import type { CompositeFrame } from '../core/composite/compositeFrame.ts';
 import type { LayerSettings } from '../core/composite/layerSettings.ts';
 import type { AppStore } from '../state/store.ts';
 import { scoringTableOf } from '../state/scoringRun.ts';
+import { layerSettingsSel } from '../state/selectors.ts';
 import type { Viewer } from '../view/viewer.ts';
 import { viewerCreate } from '../view/viewer.ts';
 import type { ViewPool } from '../workers/scorePool.ts';
@@ -21,9 +22,10 @@ const NO_NOTES: string[] = [];
  */
 function layersLookAlike(a: LayerSettings, b: LayerSettings): boolean {
   if (a.band.on || b.band.on) return false;
-  const { band: ba, ...ra } = a;
-  const { band: bb, ...rb } = b;
+  const { band: ba, highlight: ha, ...ra } = a;
+  const { band: bb, highlight: hb, ...rb } = b;
   if (ba.opacity !== bb.opacity || ba.side !== bb.side) return false;
+  if (ha.on !== hb.on || ha.opacity !== hb.opacity || ha.side !== hb.side || ha.thickness !== hb.thickness || ha.boxes !== hb.boxes) return false;
   const keys = Object.keys(ra) as (keyof typeof ra)[];
   return keys.every((k) => ra[k] === rb[k]);
 }
@@ -40,6 +42,7 @@ function compositeFrameOf(f: DecodedFrame): CompositeFrame {
 function viewerBind(store: AppStore, viewer: Viewer, pool: ViewPool, onRefused: (message: string | null) => void, viewerHost: () => HTMLElement): () => void {
   let composing = 0;
   let focusedSeq = -1;
+  let drawn: LayerSettings | null = null;
   const recompose = () => {
     if (viewer.mode !== 'none') return;
     const s = store.getState();
@@ -47,7 +50,7 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: ViewPool, onRefused: 
     const ticket = ++composing;
     const palette = compositePaletteFromTable(scoringTableOf(s.dataset, s.settings));
     // Copies (not transfers): the decoded frame stays with the cache for the next redraw.
-    void pool.run(VIEW_COMMANDS.frameComposite, { frame: compositeFrameOf(s.shown), layers: s.layers, palette }).then(
+    void pool.run(VIEW_COMMANDS.frameComposite, { frame: compositeFrameOf(s.shown), layers: layerSettingsSel(s), palette }).then(
       (rgba) => ticket === composing && viewer.compositeSet(rgba),
       () => {},
     );
@@ -61,7 +64,10 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: ViewPool, onRefused: 
       const r = viewer.frameSet(s.shown ? compositeFrameOf(s.shown) : null);
       onRefused(r.ok ? null : r.error);
     }
-    if (!prev || (s.layers !== prev.layers && !layersLookAlike(s.layers, prev.layers))) viewer.layersSet(s.layers);
+    const layers = layerSettingsSel(s);
+    const layersChanged = layers !== drawn;
+    if (!drawn || (layersChanged && !layersLookAlike(layers, drawn))) viewer.layersSet(layers);
+    drawn = layers;
     if (!prev || s.pixelGrid !== prev.pixelGrid) viewer.gridSet(s.pixelGrid);
     if (!prev || s.place !== prev.place) {
       if (s.place === null) viewer.viewFit();
@@ -80,7 +86,7 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: ViewPool, onRefused: 
       const scale = Math.max(0.05, Math.min(16, (host.clientWidth * dpr) / (bw * 3), (host.clientHeight * dpr) / (bh * 3)));
       viewer.viewSet({ cx: (x0 + x1) / 2, cy: (y0 + y1) / 2, scale });
     }
-    if (viewer.mode === 'none' && (!prev || s.shown !== prev.shown || s.layers !== prev.layers || s.dataset !== prev.dataset)) recompose();
+    if (viewer.mode === 'none' && (!prev || s.shown !== prev.shown || layersChanged || s.dataset !== prev.dataset)) recompose();
   };
   apply(store.getState(), null);
   const unsub = store.subscribe((s, prev) => apply(s, prev));

@@ -1,6 +1,8 @@
 import { demoOptionsCheck, type DemoOptions } from '../demo/options.ts';
 import { demoSourceOpen } from '../data/sources/demoSource.ts';
 import type { Result } from '../core/result.ts';
+import type { LayerSettings } from '../core/composite/layerSettings.ts';
+import { layerSettingsSel } from '../state/selectors.ts';
 import type { ScoreReport } from '../core/metrics/report.ts';
 import { stateReport } from '../state/stateReport.ts';
 import { servedSourceOpen } from '../data/sources/servedSource.ts';
@@ -21,6 +23,8 @@ export interface AppRuntime {
   viewPool: ViewPool;
   /** The JSON report of `run` over the frames scored so far, as the headless scorer writes it. */
   report(run: string): ScoreReport | null;
+  /** What the viewer composes now (the layer looks with the runs, band width and outline put in). */
+  layers(): LayerSettings;
   stop(): void;
 }
 
@@ -39,6 +43,7 @@ export function appStart(): AppRuntime {
     scorePool,
     viewPool,
     report: (run) => stateReport(store.getState(), run),
+    layers: () => layerSettingsSel(store.getState()),
     stop() {
       for (const s of stops) s();
       scorePool.destroy();

@@ -12,7 +12,7 @@ export function useScopes(run: string | null): { dataset: ScopeScores | null; fr
   const dataset = useApp((s) => s.dataset);
   const settings = useApp((s) => s.settings);
   const version = useApp((s) => s.resultsVersion);
-  const w = useApp((s) => s.layers.band.width);
+  const w = useApp((s) => s.bandWidth);
   const frameResult = useApp((s) => s.results[s.frameIndex]);
   const classes = useMemo(() => {
     const m = new Map<number, ClassInfo>();

@@ -135,7 +135,7 @@ describe('workspace on the demo (real Chromium)', () => {
     };
     const wrong = inside((i) => truth.ids[i] !== 255 && a.ids[i] !== truth.ids[i] && a.ids[i] < 12);
     const voidPx = inside((i) => truth.ids[i] === 255);
-    let layers = await state<LayerSettings>(page, 's => s.layers');
+    let layers = (await page.evaluate('window.hairline.layers()')) as LayerSettings;
     expect(layers.disagree.on && layers.void.on && layers.photo.on).toBe(true);
     const wrongColour = expectedAt(f, layers, wrong.x, wrong.y);
     expect(await pixelAt(page, wrong.x, wrong.y)).toEqual(wrongColour);
@@ -144,7 +144,7 @@ describe('workspace on the demo (real Chromium)', () => {
     await page.keyboard.press('4');
     await page.keyboard.press('5');
     await page.waitForTimeout(300);
-    layers = await state<LayerSettings>(page, 's => s.layers');
+    layers = (await page.evaluate('window.hairline.layers()')) as LayerSettings;
     expect(layers.disagree.on || layers.void.on).toBe(false);
     const photoAt = (p: { x: number; y: number }) => Array.from(f.frame.photo.subarray((p.y * W + p.x) * 4, (p.y * W + p.x) * 4 + 3));
     expect(await pixelAt(page, wrong.x, wrong.y)).toEqual(photoAt(wrong));
@@ -165,14 +165,14 @@ describe('workspace on the demo (real Chromium)', () => {
     await page.keyboard.press('2');
     await page.keyboard.press('6');
     await page.waitForTimeout(500);
-    const before = await state<{ frame: number; w: number; truth: boolean; band: boolean }>(page, 's => ({ frame: s.frameIndex, w: s.layers.band.width, truth: s.layers.truth.on, band: s.layers.band.on })');
+    const before = await state<{ frame: number; w: number; truth: boolean; band: boolean }>(page, 's => ({ frame: s.frameIndex, w: s.bandWidth, truth: s.layers.truth.on, band: s.layers.band.on })');
     expect(before).toEqual({ frame: FRAMES - 1, w: 12, truth: true, band: true });
     const href = page.url();
     expect(href).toContain(`f=kq-000${FRAMES}`);
     await page.goto('about:blank');
     await page.goto(href);
     await page.waitForFunction(() => (window as any).hairline.store.getState().shownIndex >= 0);
-    const after = await state<typeof before>(page, 's => ({ frame: s.frameIndex, w: s.layers.band.width, truth: s.layers.truth.on, band: s.layers.band.on })');
+    const after = await state<typeof before>(page, 's => ({ frame: s.frameIndex, w: s.bandWidth, truth: s.layers.truth.on, band: s.layers.band.on })');
     expect(after).toEqual(before);
     await page.close();
   });

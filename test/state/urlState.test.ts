@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { layerSettingsDefault } from '../../src/core/composite/layerSettings.ts';
+import { layerLooksDefault } from '../../src/core/composite/layerSettings.ts';
 import { urlViewDecode, urlViewEncode } from '../../src/state/urlState.ts';
 import { appStoreCreate } from '../../src/state/store.ts';
 
@@ -12,9 +12,11 @@ describe('view state in the URL hash', () => {
       frameIndex: 2,
       place: { cx: 10.5, cy: 20.25, scale: 4 },
     });
-    const d = layerSettingsDefault();
+    const d = layerLooksDefault();
+    store.getState().runsSet({ runA: 'r2', runB: 'r1' });
+    store.getState().bandWidthSet(17);
     store.getState().layersSet({
-      runA: 'r2', runB: 'r1', truth: { ...d.truth, on: true, opacity: 77 }, band: { ...d.band, on: true, width: 17 },
+      truth: { ...d.truth, on: true, opacity: 77 }, band: { ...d.band, on: true },
       solo: { ...d.solo, on: true, classId: 3 }, curtain: { on: true, x: 44 },
     });
     const hash = urlViewEncode(store.getState());

@@ -1,7 +1,7 @@
 import { MARK_KEYS, type CompositePalette } from './compositePalette.ts';
 import type { CompositeFrame } from './compositeFrame.ts';
+import { BAND_WIDTH_MAX } from '../metrics/bandHistogram.ts';
 import {
-  BAND_WIDTH_MAX,
   DISAGREE_MODES,
   HIGHLIGHT_BOXES_MAX,
   LAYER_KEYS,

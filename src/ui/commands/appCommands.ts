@@ -81,7 +81,7 @@ function flagSelected(ctx: CommandContext): void {
     });
     return;
   }
-  if (s.focusBox) s.flagDraftSet({ frame, kind: 'region', bbox: s.focusBox, reason: 'label-mistake', run: s.layers.runA });
+  if (s.focusBox) s.flagDraftSet({ frame, kind: 'region', bbox: s.focusBox, reason: 'label-mistake', run: s.runA });
 }
 
 /** Every command of the workspace, in the order the help overlay lists them. */
@@ -139,15 +139,13 @@ export const APP_COMMANDS: Command[] = [
   {
     id: 'band.wider', label: 'Band width +1 px', group: 'Layers', keys: [']'], enabled: hasFrames,
     run: ({ store }) => {
-      const { band } = store.getState().layers;
-      store.getState().layersSet({ band: { ...band, width: Math.min(64, band.width + 1) } });
+      store.getState().bandWidthSet(Math.min(64, store.getState().bandWidth + 1));
     },
   },
   {
     id: 'band.narrower', label: 'Band width −1 px', group: 'Layers', keys: ['['], enabled: hasFrames,
     run: ({ store }) => {
-      const { band } = store.getState().layers;
-      store.getState().layersSet({ band: { ...band, width: Math.max(0, band.width - 1) } });
+      store.getState().bandWidthSet(Math.max(0, store.getState().bandWidth - 1));
     },
   },
   {
@@ -164,15 +162,15 @@ export const APP_COMMANDS: Command[] = [
     run: ({ store }) => {
       const s = store.getState();
       const runs = s.dataset!.pairing.runs;
-      const at = runs.indexOf(s.layers.runA ?? '');
-      s.layersSet({ runA: runs[(at + 1) % runs.length] });
+      const at = runs.indexOf(s.runA ?? '');
+      s.runsSet({ runA: runs[(at + 1) % runs.length] });
     },
   },
   {
-    id: 'run.swap', label: 'Swap runs A and B', group: 'Runs', keys: ['X'], enabled: ({ store }) => store.getState().layers.runB !== null,
+    id: 'run.swap', label: 'Swap runs A and B', group: 'Runs', keys: ['X'], enabled: ({ store }) => store.getState().runB !== null,
     run: ({ store }) => {
-      const { layers } = store.getState();
-      store.getState().layersSet({ runA: layers.runB, runB: layers.runA });
+      const { runA, runB } = store.getState();
+      store.getState().runsSet({ runA: runB, runB: runA });
     },
   },
   {
@@ -191,7 +189,7 @@ export const APP_COMMANDS: Command[] = [
     run: ({ store }) => {
       const s = store.getState();
       const frame = s.dataset!.pairing.frames[s.frameIndex].name;
-      s.flagDraftSet({ frame, kind: 'frame', bbox: null, reason: 'label-mistake', run: s.layers.runA });
+      s.flagDraftSet({ frame, kind: 'frame', bbox: null, reason: 'label-mistake', run: s.runA });
     },
   },
   {
