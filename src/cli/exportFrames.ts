@@ -1,14 +1,12 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { classTableFromText, classTableGenerated, type ClassTable } from '../core/classTable.ts';
-import type { ExportFrame } from '../core/export/tileRender.ts';
+import { frameDecode } from '../core/decodedFrame.ts';
 import type { TileExportSource } from '../core/export/tilesExport.ts';
-import { frameSizesCheck } from '../core/frameCheck.ts';
-import { labelMapFromPng } from '../core/png/decodeLabel.ts';
-import { photoFromPng } from '../core/png/decodePhoto.ts';
-import { fail, ok, type Result } from '../core/result.ts';
+import { fail } from '../core/result.ts';
 import { datasetPair, type Pairing } from '../data/pairing.ts';
 import { UsageError } from './args.ts';
+import { diskFileReader } from './diskFiles.ts';
 import type { ExportOptions } from './exportArgs.ts';
 import { filesUnder } from './listFiles.ts';
 
@@ -50,54 +48,26 @@ export async function exportDatasetOpen(o: ExportOptions): Promise<ExportDataset
   return { pairing, table };
 }
 
-async function bytesRead(path: string, file: string): Promise<Result<Uint8Array>> {
-  try {
-    return ok(new Uint8Array(await readFile(path)));
-  } catch (e) {
-    return fail(file, `cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
-}
-
 /** Returns a frame source reading the folders from disk: label maps decoded exactly, PNG photos decoded (other photo types noted and left out). */
 export function exportSourceFromFolders(ds: ExportDataset, o: ExportOptions): TileExportSource {
   const frames = new Map(ds.pairing.frames.map((f) => [f.name, f]));
   const runDir = new Map(o.runs.map((r) => [r.name, r.dir]));
+  const reader = diskFileReader();
   return {
     async frameLoad(name) {
       const f = frames.get(name);
       if (!f) return fail('', `frame "${name}" has no ground-truth file in --truth ${o.truth}`);
-      const file = `truth/${f.truth}`;
-      const bytes = await bytesRead(join(o.truth, f.truth), file);
-      if (!bytes.ok) return bytes;
-      const truth = labelMapFromPng(bytes.value, { file, table: ds.table });
-      if (!truth.ok) return truth;
-      const { width, height } = truth.value;
-      const frame: ExportFrame = { width, height, truth: truth.value, preds: {}, photo: null, notes: [] };
-      for (const run of ds.pairing.runs) {
-        const path = f.predictions[run];
-        if (path === null) {
-          frame.notes.push(`run "${run}" has no prediction for this frame`);
-          continue;
-        }
-        const pfile = `${run}/${path}`;
-        const pb = await bytesRead(join(runDir.get(run)!, path), pfile);
-        const p = pb.ok ? labelMapFromPng(pb.value, { file: pfile, table: ds.table }) : pb;
-        const sized = p.ok ? frameSizesCheck([{ file, width, height }, { file: pfile, width: p.value.width, height: p.value.height }]) : p;
-        if (!p.ok || !sized.ok) frame.notes.push(!p.ok ? p.error : (sized as { error: string }).error);
-        else frame.preds[run] = p.value;
-      }
-      if (o.images && f.image) {
-        const ifile = `images/${f.image}`;
-        if (!f.image.toLowerCase().endsWith('.png')) frame.notes.push(`${ifile}: the command line decodes PNG photos only; the tile has no photo`);
-        else {
-          const ib = await bytesRead(join(o.images, f.image), ifile);
-          const photo = ib.ok ? photoFromPng(ib.value, { file: ifile }) : ib;
-          const sized = photo.ok ? frameSizesCheck([{ file, width, height }, { file: ifile, width: photo.value.width, height: photo.value.height }]) : photo;
-          if (!photo.ok || !sized.ok) frame.notes.push(!photo.ok ? photo.error : (sized as { error: string }).error);
-          else frame.photo = photo.value.rgba;
-        }
-      }
-      return ok(frame);
+      const image = o.images && f.image ? { file: `images/${f.image}`, path: join(o.images, f.image) } : null;
+      return frameDecode({
+        name,
+        truth: { file: `truth/${f.truth}`, path: join(o.truth, f.truth) },
+        preds: ds.pairing.runs.map((run) => {
+          const path = f.predictions[run];
+          return { run, file: path === null ? null : { file: `${run}/${path}`, path: join(runDir.get(run)!, path) } };
+        }),
+        photo: image,
+        table: ds.table,
+      }, reader);
     },
   };
 }

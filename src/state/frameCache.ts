@@ -1,13 +1,15 @@
 import type { ClassTable } from '../core/classTable.ts';
+import type { DecodedFrame } from '../core/decodedFrame.ts';
+import type { Result } from '../core/result.ts';
+import type { FileBlob } from '../workers/blobFiles.ts';
 import type { ViewPool } from '../workers/scorePool.ts';
-import type { FileBlob } from '../workers/scoreJobs.ts';
-import { VIEW_COMMANDS, type DecodedFrame, type FrameDecodeRequest } from '../workers/viewJobs.ts';
+import { VIEW_COMMANDS, type FrameDecodeRequest } from '../workers/viewJobs.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
 
 /** Decoded frames kept around the cursor: a small LRU, so memory stays flat however long the dataset. */
 export interface FrameCache {
-  /** Returns the decoded frame (from the cache, or decoded in a view worker). */
-  get(index: number): Promise<DecodedFrame>;
+  /** Returns the decoded frame or why its ground truth cannot be used (from the cache, or decoded in a view worker). */
+  get(index: number): Promise<Result<DecodedFrame>>;
   /** Starts decoding `index` in the background if it is not cached. */
   prefetch(index: number): void;
   /** Indices currently held. */
@@ -16,14 +18,14 @@ export interface FrameCache {
 
 /** Returns an LRU cache of at most `capacity` decoded frames of `dataset`. */
 export function frameCacheCreate(dataset: LoadedDataset, table: ClassTable, pool: ViewPool, capacity = 5): FrameCache {
-  const entries = new Map<number, Promise<DecodedFrame>>();
+  const entries = new Map<number, Promise<Result<DecodedFrame>>>();
 
   async function blob(folder: string, path: string | null): Promise<FileBlob | null> {
     if (path === null) return null;
     return { file: `${folder}/${path}`, blob: await dataset.source.read(folder, path) };
   }
 
-  async function decode(index: number): Promise<DecodedFrame> {
+  async function decode(index: number): Promise<Result<DecodedFrame>> {
     const frame = dataset.pairing.frames[index];
     const req: FrameDecodeRequest = {
       name: frame.name,
@@ -37,7 +39,7 @@ export function frameCacheCreate(dataset: LoadedDataset, table: ClassTable, pool
     return pool.run(VIEW_COMMANDS.frameDecode, req);
   }
 
-  function touch(index: number): Promise<DecodedFrame> {
+  function touch(index: number): Promise<Result<DecodedFrame>> {
     let p = entries.get(index);
     if (p) {
       entries.delete(index);

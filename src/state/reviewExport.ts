@@ -2,7 +2,7 @@ import type { ClassTable } from '../core/classTable.ts';
 import type { TileMode } from '../core/export/tileBoxes.ts';
 import { tilesExport, type TileExportSource, type TilesExportProgress, type TilesExportSummary } from '../core/export/tilesExport.ts';
 import type { ZipSink } from '../core/export/zipStream.ts';
-import { fail, ok, type Result } from '../core/result.ts';
+import { fail, type Result } from '../core/result.ts';
 import type { Flag } from '../core/review/flag.ts';
 import type { ViewPool } from '../workers/scorePool.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
@@ -23,9 +23,7 @@ export function exportSourceFromDataset(dataset: LoadedDataset, table: ClassTabl
       const i = index.get(name);
       if (i === undefined) return fail('', `frame "${name}" is not in this dataset`);
       try {
-        const f = await cache.get(i);
-        if (f.error !== null || f.truth === null) return fail('', f.error ?? `${name}: the ground truth could not be decoded`);
-        return ok({ width: f.width, height: f.height, truth: f.truth, preds: f.preds, photo: f.photo, notes: f.notes });
+        return await cache.get(i);
       } catch (e) {
         return fail('', `${name}: ${(e as Error)?.message ?? String(e)}`);
       }

@@ -5,7 +5,8 @@ import type { FrameFiles } from '../data/pairing.ts';
 import type { DatasetSource } from '../data/sources/source.ts';
 import { JobCancelled } from '../workers/pool.ts';
 import type { ScorePool } from '../workers/scorePool.ts';
-import { SCORE_COMMANDS, type FileBlob, type FrameScoreRequest } from '../workers/scoreJobs.ts';
+import type { FileBlob } from '../workers/blobFiles.ts';
+import { SCORE_COMMANDS, type FrameScoreRequest } from '../workers/scoreJobs.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
 import type { AppStore } from './store.ts';
 

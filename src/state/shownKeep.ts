@@ -39,7 +39,7 @@ export function shownKeep(store: AppStore, pool: ViewPool): () => void {
     c.get(index).then(
       (frame) => {
         if (cache !== c || wanted !== index) return;
-        store.getState().shownSet(index, frame.error ? null : frame, frame.error);
+        store.getState().shownSet(index, frame.ok ? frame.value : null, frame.ok ? null : frame.error);
         for (const d of PREFETCH) c.prefetch(index + d);
       },
       (e: Error) => {

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import type { DecodedFrame } from '../workers/viewJobs.ts';
+import type { DecodedFrame } from '../core/decodedFrame.ts';
 import type { AppState } from './store.ts';
 
 export interface ShownSlice {

@@ -1,6 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
 import { compositePaletteFromTable } from '../core/composite/compositePalette.ts';
-import type { CompositeFrame } from '../core/composite/compositeFrame.ts';
 import type { LayerSettings } from '../core/composite/layerSettings.ts';
 import type { AppStore } from '../state/store.ts';
 import { scoringTableOf } from '../state/scoringRun.ts';
@@ -9,7 +8,6 @@ import type { Viewer } from '../view/viewer.ts';
 import { viewerCreate } from '../view/viewer.ts';
 import type { ViewPool } from '../workers/scorePool.ts';
 import { VIEW_COMMANDS } from '../workers/viewJobs.ts';
-import type { DecodedFrame } from '../workers/viewJobs.ts';
 import { BoxDraw } from './BoxDraw.tsx';
 import { Readout } from './Readout.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
@@ -30,10 +28,6 @@ function layersLookAlike(a: LayerSettings, b: LayerSettings): boolean {
   return keys.every((k) => ra[k] === rb[k]);
 }
 
-function compositeFrameOf(f: DecodedFrame): CompositeFrame {
-  return { photo: f.photo, truth: f.truth!, preds: f.preds, bandBins: f.bandBins };
-}
-
 /**
  * Wires a viewer to the store without React re-renders: each store change the viewer cares about is
  * passed straight to it (it redraws at most once per animation frame). Without WebGL the same layers
@@ -50,7 +44,7 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: ViewPool, onRefused: 
     const ticket = ++composing;
     const palette = compositePaletteFromTable(scoringTableOf(s.dataset, s.settings));
     // Copies (not transfers): the decoded frame stays with the cache for the next redraw.
-    void pool.run(VIEW_COMMANDS.frameComposite, { frame: compositeFrameOf(s.shown), layers: layerSettingsSel(s), palette }).then(
+    void pool.run(VIEW_COMMANDS.frameComposite, { frame: s.shown, layers: layerSettingsSel(s), palette }).then(
       (rgba) => ticket === composing && viewer.compositeSet(rgba),
       () => {},
     );
@@ -61,7 +55,7 @@ function viewerBind(store: AppStore, viewer: Viewer, pool: ViewPool, onRefused: 
     }
     if (!prev || s.shown !== prev.shown) {
       // The viewer refuses frames it cannot show (over 8192 px on a side); say so instead of a blank.
-      const r = viewer.frameSet(s.shown ? compositeFrameOf(s.shown) : null);
+      const r = viewer.frameSet(s.shown);
       onRefused(r.ok ? null : r.error);
     }
     const layers = layerSettingsSel(s);

@@ -4,17 +4,12 @@ import type { FrameStats } from '../core/metrics/frameScore.ts';
 import { scoreScratchCreate } from '../core/metrics/scratch.ts';
 import { regionScratchCreate } from '../core/regions/regionScratch.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
+import type { FileBlob } from './blobFiles.ts';
 import { photoDecode } from './photoDecode.ts';
 import { buffersOf, type JobOutput } from './protocol.ts';
 
 /** Commands the scoring worker answers. */
 export const SCORE_COMMANDS = { frameScore: 'frameScore' } as const;
-
-/** A file as the page holds it: a Blob (a File, a fetched body, or demo bytes) and its display name. */
-export interface FileBlob {
-  file: string;
-  blob: Blob;
-}
 
 /** Input of `frameScore` in the browser: the frame's files as Blobs (shared with the worker, not copied). */
 export interface FrameScoreRequest {

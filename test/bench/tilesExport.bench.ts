@@ -38,7 +38,7 @@ const source: TileExportSource = {
     const b = labelMapFromPng(files.b, { file: 'b', table });
     const p = photoFromPng(files.photo, { file: 'p' });
     if (!t.ok || !a.ok || !b.ok || !p.ok) throw new Error('fixture did not decode');
-    return ok({ width: W, height: H, truth: t.value, preds: { 'run-a': a.value, 'run-b': b.value }, photo: p.value.rgba, notes: [] });
+    return ok({ width: W, height: H, truth: t.value, preds: { 'run-a': a.value, 'run-b': b.value }, photo: p.value.rgba, bandBins: null, notes: [] });
   },
 };
 

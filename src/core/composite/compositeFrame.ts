@@ -1,3 +1,4 @@
+import type { DecodedFrame } from '../decodedFrame.ts';
 import type { LabelMap } from '../labelMap.ts';
 import { fail, ok, type Result } from '../result.ts';
 
@@ -5,15 +6,7 @@ import { fail, ok, type Result } from '../result.ts';
 export const FRAME_SIDE_MAX = 8192;
 
 /** One frame as the viewer draws it: every array row-major, all of the ground truth's size. */
-export interface CompositeFrame {
-  /** RGBA bytes, width·height·4 (alpha is not used: photos are drawn opaque), or null for none. */
-  photo: Uint8Array | null;
-  truth: LabelMap;
-  /** Prediction runs by name. */
-  preds: Record<string, LabelMap>;
-  /** Per pixel min(ceil(d), 65), d = distance to the nearest truth boundary pixel (src/docs/metrics.md), or null. */
-  bandBins: Uint8Array | null;
-}
+export type CompositeFrame = Pick<DecodedFrame<LabelMap>, 'photo' | 'truth' | 'preds' | 'bandBins'>;
 
 /** Returns the frame's size in pixels, or an error naming the part whose size is wrong or a side over FRAME_SIDE_MAX. */
 export function compositeFrameCheck(frame: CompositeFrame, name = 'frame'): Result<{ width: number; height: number }> {

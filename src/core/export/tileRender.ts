@@ -1,10 +1,9 @@
 import { classTableFind, type ClassTable } from '../classTable.ts';
-import type { CompositeFrame } from '../composite/compositeFrame.ts';
 import type { CompositePalette } from '../composite/compositePalette.ts';
 import { frameComposite } from '../composite/frameComposite.ts';
 import { layerSettingsDefault } from '../composite/layerSettings.ts';
+import type { DecodedFrame } from '../decodedFrame.ts';
 import { labelMapIdCounts, type LabelMap } from '../labelMap.ts';
-import type { DecodedLabelMap } from '../png/decodeLabel.ts';
 import type { ZlibCompress } from '../png/encode.ts';
 import { fail, ok, type Result } from '../result.ts';
 import type { Flag, FlagBox } from '../review/flag.ts';
@@ -14,18 +13,8 @@ import { rgbaToPngFast } from './rgbPng.ts';
 import type { TileRow } from './tileRows.ts';
 import { zipNamePart, zipNamesUnique } from './zipNames.ts';
 
-/** One decoded frame as the export needs it: label maps with their source encodings, the photo as RGBA. */
-export interface ExportFrame {
-  width: number;
-  height: number;
-  truth: DecodedLabelMap;
-  /** Runs that have a usable prediction on this frame. */
-  preds: Record<string, DecodedLabelMap>;
-  /** RGBA bytes (width·height·4), or null. */
-  photo: Uint8Array | null;
-  /** Why a run's prediction or the photo is missing from the frame. */
-  notes: string[];
-}
+/** One decoded frame as the export needs it (band bins are not drawn: null is enough). */
+export type ExportFrame = Pick<DecodedFrame, 'width' | 'height' | 'truth' | 'preds' | 'photo' | 'bandBins' | 'notes'>;
 
 /** A file of a tile: its path inside the ZIP and its bytes. */
 export interface TileFile {
@@ -100,9 +89,8 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
   layers.runA = run;
   if (!frame.photo) layers.truth = { ...layers.truth, on: true, side: 'both' };
   if (flag.bbox) layers.highlight = { ...layers.highlight, boxes: [{ x: flag.bbox[0], y: flag.bbox[1], width: flag.bbox[2] - flag.bbox[0], height: flag.bbox[3] - flag.bbox[1] }] };
-  const cf: CompositeFrame = { photo: frame.photo, truth: frame.truth, preds: frame.preds, bandBins: null };
   const rect = { x: box[0], y: box[1], width: box[2] - box[0], height: box[3] - box[1] };
-  const rgba = frameComposite(cf, layers, ctx.palette, { rect });
+  const rgba = frameComposite(frame, layers, ctx.palette, { rect });
   let overlay: TileRow['overlay'] = null;
   if (rgba.ok) {
     overlay = { file: `${dir}overlay.png`, run };

@@ -2,9 +2,9 @@
 // gray 8, gray 16, 4-bit palette, 2-bit gray and colour-coded RGB, written by the test PNG writer
 // (test/core/png/pngTestWriter.ts, from ISO/IEC 15948, sharing no code with src/core/png).
 import type { ClassTable } from '../../../src/core/classTable.ts';
-import type { ExportFrame } from '../../../src/core/export/tileRender.ts';
+import { frameDecode } from '../../../src/core/decodedFrame.ts';
 import type { TileExportSource } from '../../../src/core/export/tilesExport.ts';
-import { labelMapFromPng } from '../../../src/core/png/decodeLabel.ts';
+import type { FrameFileReader } from '../../../src/core/frameFiles.ts';
 import { fail, ok } from '../../../src/core/result.ts';
 import { seededPalette, testTable } from '../png/fixtures.ts';
 import { seededIds, seededRandom } from '../png/seeded.ts';
@@ -85,27 +85,37 @@ export function fixtureFrames(): FixtureFrame[] {
   ];
 }
 
-/** Returns a source decoding the fixture's PNGs on each load (as the app and the CLI do), counting loads. */
+/** A fixture file: its name in messages and its bytes (null: the file cannot be read). */
+interface MemoryFile {
+  file: string;
+  bytes: Uint8Array | null;
+}
+
+/**
+ * Returns a source decoding the fixture's PNGs on each load through the app's and the CLI's frame
+ * decoder (frameDecode), counting loads; photos are the fixture's RGBA as they are.
+ */
 export function fixtureSource(frames: FixtureFrame[], onLoad: (name: string) => void = () => {}): TileExportSource {
+  const photos = new Map(frames.map((f) => [`images/${f.name}.png`, f.photo]));
+  const reader: FrameFileReader<MemoryFile> = {
+    bytes: async (m) => {
+      if (!m.bytes) throw new Error('no such file');
+      return m.bytes;
+    },
+    photo: async (m) => ok({ width: W, height: H, rgba: photos.get(m.file)! }),
+  };
   return {
     async frameLoad(name) {
       onLoad(name);
       const f = frames.find((x) => x.name === name);
       if (!f) return fail(`truth/${name}.png`, 'no such file');
-      const truth = labelMapFromPng(f.truthPng, { file: `truth/${name}.png`, table: TABLE });
-      if (!truth.ok) return truth;
-      const frame: ExportFrame = { width: W, height: H, truth: truth.value, preds: {}, photo: f.photo, notes: [] };
-      for (const run of RUNS) {
-        const png = f.predPngs[run];
-        if (!png) {
-          frame.notes.push(`run "${run}" has no prediction for this frame`);
-          continue;
-        }
-        const p = labelMapFromPng(png, { file: `${run}/${name}.png`, table: TABLE });
-        if (!p.ok) return p;
-        frame.preds[run] = p.value;
-      }
-      return ok(frame);
+      return frameDecode({
+        name,
+        truth: { file: `truth/${name}.png`, bytes: f.truthPng },
+        preds: RUNS.map((run) => ({ run, file: f.predPngs[run] ? { file: `${run}/${name}.png`, bytes: f.predPngs[run] } : null })),
+        photo: f.photo ? { file: `images/${name}.png`, bytes: null } : null,
+        table: TABLE,
+      }, reader);
     },
   };
 }

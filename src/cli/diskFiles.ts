@@ -1,0 +1,28 @@
+import { readFile } from 'node:fs/promises';
+import type { FrameFileReader } from '../core/frameFiles.ts';
+import { photoFromPng } from '../core/png/decodePhoto.ts';
+import { fail } from '../core/result.ts';
+
+/** A file to read: its path on disk and the name used in messages. */
+export interface FilePath {
+  file: string;
+  path: string;
+}
+
+/** Returns the reader of a frame's files on disk; photos are decoded only when PNG (at most `maxPixels`). */
+export function diskFileReader(o: { maxPixels?: number } = {}): FrameFileReader<FilePath> {
+  const bytes = async (f: FilePath) => new Uint8Array(await readFile(f.path));
+  return {
+    bytes,
+    async photo(f, given) {
+      if (!/\.png$/i.test(f.file)) return fail(f.file, 'only PNG photos are decoded headless');
+      let data = given;
+      try {
+        data ??= await bytes(f);
+      } catch (e) {
+        return fail(f.file, `could not be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+      }
+      return photoFromPng(data, { file: f.file, maxPixels: o.maxPixels });
+    },
+  };
+}
