@@ -1,8 +1,7 @@
 // `npm run export -- --flags flags.json --truth DIR --pred [NAME=]DIR ... --out tiles.zip`: cuts the
 // tiles of the flags in a flags file from a dataset folder with the same core code as the app and
 // writes one ZIP (tiles, manifest.json, tiles.csv).
-import { createWriteStream } from 'node:fs';
-import { readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { deflateSync } from 'node:zlib';
 import { tilesExport, type TilesExportProgress } from '../core/export/tilesExport.ts';
@@ -12,30 +11,27 @@ import { flagsFileParse } from '../core/review/flagsFile.ts';
 import { UsageError } from './args.ts';
 import { EXPORT_USAGE, exportOptionsParse, type ExportOptions } from './exportArgs.ts';
 import { exportDatasetOpen, exportSourceFromFolders } from './exportFrames.ts';
+import { outputOpen, type OutputFile } from './outputFile.ts';
+import { termText } from './termText.ts';
 
 /** Exit codes, as the scorer's: every tile written / bad arguments or input / some tiles failed. */
 export const EXIT = { ok: 0, usage: 1, someFailed: 3 } as const;
 
-/** Returns a sink writing to a file stream, waiting for 'drain' when the OS is behind, and resolving the final chunk once the file is closed. */
-function fileSink(path: string): { sink: ZipSink; close: () => void } {
-  const stream = createWriteStream(path);
-  let failure: Error | null = null;
-  stream.on('error', (e) => (failure ??= e));
-  const sink: ZipSink = (chunk, final) => {
-    if (failure) throw failure;
-    const more = stream.write(chunk);
-    if (final) {
-      return new Promise<void>((resolve, reject) => {
-        stream.once('error', reject);
-        stream.end(() => (failure ? reject(failure) : resolve()));
-      });
+/**
+ * Returns a ZIP sink appending to `out`, the final chunk resolving once the file is on disk under its
+ * final name, and the write error it met, if any (reported as it is, in one line).
+ */
+function fileSink(out: OutputFile): { sink: ZipSink; error: () => Error | null } {
+  let error: Error | null = null;
+  const sink: ZipSink = async (chunk, final) => {
+    try {
+      await out.write(chunk);
+      if (final) await out.commit();
+    } catch (e) {
+      throw (error = e as Error);
     }
-    if (!more) return new Promise<void>((resolve, reject) => {
-      stream.once('drain', resolve);
-      stream.once('error', reject);
-    });
   };
-  return { sink, close: () => stream.destroy() };
+  return { sink, error: () => error };
 }
 
 function progressWriter(): (p: TilesExportProgress) => void {
@@ -64,46 +60,33 @@ async function run(o: ExportOptions): Promise<number> {
   if (ds.pairing.frames.length === 0) throw new UsageError(`--truth ${o.truth}: no label PNGs found`);
   const file = parsed.value;
   if (file.dataset && file.dataset.frames !== ds.pairing.frames.length) {
-    process.stderr.write(`note: ${o.flags} was saved from "${file.dataset.title}" with ${file.dataset.frames} frames; --truth has ${ds.pairing.frames.length}. Flags are matched by frame name.\n`);
+    process.stderr.write(`note: ${o.flags} was saved from "${termText(file.dataset.title)}" with ${file.dataset.frames} frames; --truth has ${ds.pairing.frames.length}. Flags are matched by frame name.\n`);
   }
   const flags = flagsSelect(file.flags, { reasons: o.reasons, frames: o.frames });
   if (flags.length === 0) {
     const why = o.reasons.length || o.frames.length ? 'no flag matches --reason/--frame' : 'the flags file holds no flags';
     throw new UsageError(`${o.flags}: nothing to export (${why})`);
   }
-  const partial = `${o.out}.partial`;
-  // Written next to the ZIP and renamed at the end, so a failed or cancelled export leaves no broken ZIP.
-  await writeFile(partial, '').catch((e: NodeJS.ErrnoException) => {
-    throw new UsageError(`--out ${o.out}: cannot write here (${e.code ?? e.message})`);
-  });
-  const { sink, close } = fileSink(partial);
-  const ac = new AbortController();
-  const onSigint = () => ac.abort();
-  process.once('SIGINT', onSigint);
+  // Written next to the ZIP and renamed at the end, so a failed or cancelled (Ctrl+C) export leaves no broken ZIP.
+  const zip = await outputOpen(o.out, '--out');
+  const { sink, error } = fileSink(zip);
   const dataset = { key: file.dataset?.key ?? '', title: file.dataset?.title ?? basename(o.truth), frames: ds.pairing.frames.length };
   const result = await tilesExport({
     dataset, flags, runs: ds.pairing.runs, table: ds.table, mode: o.mode, source: exportSourceFromFolders(ds, o), sink,
-    frameOrder: ds.pairing.frames.map((f) => f.name), onProgress: progressWriter(), signal: ac.signal,
+    frameOrder: ds.pairing.frames.map((f) => f.name), onProgress: progressWriter(),
     pause: () => new Promise((r) => setTimeout(r, 0)),
     compress: (data) => new Uint8Array(deflateSync(data, { level: 6 })),
   });
-  process.off('SIGINT', onSigint);
   if (process.stderr.isTTY) process.stderr.write('\n');
   if (!result.ok) {
-    close();
-    await rm(partial, { force: true });
-    if (ac.signal.aborted) {
-      process.stderr.write('hairline export: cancelled; nothing was written\n');
-      return 130;
-    }
-    throw new Error(`${o.out}: ${result.error}`);
+    await zip.abort();
+    throw error() ?? new Error(`${o.out}: ${result.error}`);
   }
-  await rename(partial, o.out);
   const { manifest, bytes } = result.value;
   process.stdout.write(`wrote ${manifest.tiles.length} tile${manifest.tiles.length === 1 ? '' : 's'} of ${flags.length} flag${flags.length === 1 ? '' : 's'} to ${o.out} (${(bytes / 1e6).toFixed(2)} MB)\n`);
   if (manifest.failed.length) {
     process.stderr.write(`${manifest.failed.length} failed (also listed in manifest.json "failed"):\n`);
-    for (const f of manifest.failed) process.stderr.write(`  ${f.frame} · flag ${f.flagId}: ${f.reason}\n`);
+    for (const f of manifest.failed) process.stderr.write(`  ${termText(`${f.frame} · flag ${f.flagId}: ${f.reason}`)}\n`);
     return EXIT.someFailed;
   }
   return EXIT.ok;
@@ -123,7 +106,7 @@ async function main(): Promise<void> {
   try {
     process.exitCode = await run(options);
   } catch (e) {
-    process.stderr.write(`hairline export: ${(e as Error).message}\n`);
+    process.stderr.write(`hairline export: ${termText((e as Error).message)}\n`);
     process.exit(EXIT.usage);
   }
 }

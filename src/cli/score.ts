@@ -11,7 +11,9 @@ import { progressCreate } from './progress.ts';
 import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
 import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
 import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect, type ReportVoidSpill } from './scoreRegions.ts';
-import { framesCsv, summaryText, textWrite, type FrameCsvRow } from './scoreReportWrite.ts';
+import { OutputError, outputCheck, outputWrite } from './outputFile.ts';
+import { framesCsv, summaryText, type FrameCsvRow } from './scoreReportWrite.ts';
+import { termText } from './termText.ts';
 import type { ScoreThreadJobs } from './scoreThread.ts';
 import { threadPortCreate } from './threadPort.ts';
 
@@ -20,13 +22,20 @@ const THREAD = new URL('./scoreThread.ts', import.meta.url);
 /** Warnings printed before the rest are only counted. */
 const WARNINGS_SHOWN = 20;
 
-/** Exit codes: every frame scored / bad arguments or unreadable folder / some frames failed. */
-export const EXIT = { ok: 0, usage: 1, someFailed: 3 } as const;
+/** Exit codes: every frame scored / bad arguments, unreadable folder or unwritable output / some frames failed / an output could not be written after scoring. */
+export const EXIT = { ok: 0, usage: 1, someFailed: 3, output: 4 } as const;
 
 async function run(options: ScoreOptions): Promise<number> {
+  // Where the results go is checked before any scoring, so a typo costs nothing.
+  try {
+    if (options.out) await outputCheck(options.out, '--out');
+    if (options.csv) await outputCheck(options.csv, '--csv');
+  } catch (e) {
+    throw e instanceof OutputError ? new UsageError(e.message) : e;
+  }
   const ds = await scoreDatasetOpen(options);
   const { pairing } = ds;
-  for (const u of pairing.unpaired) process.stderr.write(`not paired: ${u.folder}/${u.file}: ${u.reason}\n`);
+  for (const u of pairing.unpaired) process.stderr.write(`not paired: ${termText(`${u.folder}/${u.file}: ${u.reason}`)}\n`);
   if (pairing.frames.length === 0) throw new UsageError(`--truth ${options.truth}: no label PNGs found`);
   const generated = ds.table === null;
   const table: ClassTable = ds.table ?? { ignore: ds.settings.ignore, ignoreColor: null, classes: [], generated: true };
@@ -44,7 +53,7 @@ async function run(options: ScoreOptions): Promise<number> {
   // A folder of unusable photos would warn once per frame: the first few are shown, the rest counted.
   let warned = 0;
   const take = (index: number, result: FrameJobResult) => {
-    for (const w of result.warnings ?? []) if (warned++ < WARNINGS_SHOWN) process.stderr.write(`warning: ${w}\n`);
+    for (const w of result.warnings ?? []) if (warned++ < WARNINGS_SHOWN) process.stderr.write(`warning: ${termText(w)}\n`);
     regionGatherAdd(regions, index, result, runs[0]);
     let anyFailed = false;
     const rows: FrameCsvRow[] = [];
@@ -65,7 +74,7 @@ async function run(options: ScoreOptions): Promise<number> {
     csvRows[index] = rows;
     done++;
     if (anyFailed) failed++;
-    progress.tick(done, failed, result.name);
+    progress.tick(done, failed, termText(result.name));
   };
 
   const pool = workerPoolCreate<ScoreThreadJobs>(() => threadPortCreate(THREAD), Math.min(options.workers, n));
@@ -110,9 +119,9 @@ async function run(options: ScoreOptions): Promise<number> {
   const names = new Map(table.classes.map((c) => [c.id, c.name]));
   report.suspects = regionGatherSuspects(regions, (id) => names.get(id) ?? String(id));
   const json = JSON.stringify(report, null, 2) + '\n';
-  if (options.out) await textWrite(options.out, json);
+  if (options.out) await outputWrite(options.out, '--out', json);
   else process.stdout.write(json);
-  if (options.csv) await textWrite(options.csv, framesCsv(csvRows.flatMap((r) => r ?? [])));
+  if (options.csv) await outputWrite(options.csv, '--csv', framesCsv(csvRows.flatMap((r) => r ?? [])));
 
   const worst = report.frames
     .filter((f) => f.meanIoU !== null)
@@ -137,12 +146,8 @@ async function main(): Promise<void> {
   try {
     process.exitCode = await run(options);
   } catch (e) {
-    if (e instanceof UsageError) {
-      process.stderr.write(`hairline score: ${e.message}\n`);
-      process.exit(EXIT.usage);
-    }
-    process.stderr.write(`hairline score: ${(e as Error).message}\n`);
-    process.exit(EXIT.usage);
+    process.stderr.write(`hairline score: ${termText((e as Error).message)}\n`);
+    process.exit(e instanceof OutputError ? EXIT.output : EXIT.usage);
   }
 }
 

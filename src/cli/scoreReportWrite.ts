@@ -1,5 +1,5 @@
 import { csvField } from '../core/export/tileRows.ts';
-import { createWriteStream } from 'node:fs';
+import { termText } from './termText.ts';
 import type { ScoreReport } from '../core/metrics/report.ts';
 
 /** One CSV row per frame and run. */
@@ -24,15 +24,6 @@ export function framesCsv(rows: FrameCsvRow[]): string {
   return lines.join('\r\n') + '\r\n';
 }
 
-/** Writes `text` to `path`, resolving when it is on disk; rejects with the OS reason. */
-export function textWrite(path: string, text: string): Promise<void> {
-  return new Promise((resolve, reject) => {
-    const s = createWriteStream(path);
-    s.on('error', reject);
-    s.end(text, () => resolve());
-  });
-}
-
 function p(v: number | null): string {
   return v === null ? '   —  ' : (v * 100).toFixed(2).padStart(6);
 }
@@ -46,20 +37,22 @@ export function summaryText(
   lines.push('run              mean IoU  band IoU@3px  Boundary IoU  Boundary F   (%)');
   for (const [run, d] of Object.entries(runs)) {
     const band3 = d.band.find((b) => b.width === 3)?.meanIoU ?? null;
-    lines.push(`${run.slice(0, 16).padEnd(16)} ${p(d.meanIoU)}     ${p(band3)}        ${p(d.boundaryIoU.mean)}      ${p(d.boundaryF.mean)}`);
+    lines.push(`${termText(run).slice(0, 16).padEnd(16)} ${p(d.meanIoU)}     ${p(band3)}        ${p(d.boundaryIoU.mean)}      ${p(d.boundaryF.mean)}`);
   }
   if (worst.length) {
-    lines.push('', `worst frames by mean IoU (${worst[0].run}):`);
-    for (const w of worst) lines.push(`  ${w.name.padEnd(24)} ${p(w.meanIoU)}`);
+    lines.push('', `worst frames by mean IoU (${termText(worst[0].run)}):`);
+    for (const w of worst) lines.push(`  ${termText(w.name).padEnd(24)} ${p(w.meanIoU)}`);
   }
   if (suspects.length) {
     lines.push('', 'likely label mistakes (best first):');
-    for (const x of suspects) lines.push(`  ${x.frame.padEnd(16)} ${x.run.slice(0, 12).padEnd(12)} [${x.bbox.join(',')}] ${x.score.toFixed(2)}  ${x.reasons[0] ?? ''}`);
+    for (const x of suspects) {
+      lines.push(`  ${termText(x.frame).padEnd(16)} ${termText(x.run).slice(0, 12).padEnd(12)} [${x.bbox.join(',')}] ${x.score.toFixed(2)}  ${termText(x.reasons[0] ?? '')}`);
+    }
   }
   const failed = report.frames.filter((f) => f.error);
   if (failed.length) {
     lines.push('', `${failed.length} frame${failed.length === 1 ? '' : 's'} failed:`);
-    for (const f of failed.slice(0, 10)) lines.push(`  ${f.error}`);
+    for (const f of failed.slice(0, 10)) lines.push(`  ${termText(f.error ?? '')}`);
     if (failed.length > 10) lines.push(`  … and ${failed.length - 10} more (see the report)`);
   }
   return lines.join('\n') + '\n';

@@ -132,7 +132,7 @@ describe('npm run export', () => {
       [[...base(), '--out', out, '--tile', '3'], /--tile: tile size must be a whole number of pixels 8\.\.8192, got 3/],
       [['--truth', join(demo, 'truth'), '--out', out], /--flags FILE is required/],
       [[...base(), '--out', out, '--reason', 'nothing-like-this'], /nothing to export \(no flag matches --reason\/--frame\)/],
-      [[...base(), '--out', join(dir, 'no-such-folder', 'x.zip')], /--out .*x\.zip: cannot write here \(ENOENT\)/],
+      [[...base(), '--out', join(dir, 'no-such-folder', 'x.zip')], /--out .*x\.zip: cannot write \(the folder .*no-such-folder does not exist \(ENOENT\)\); nothing was written/],
     ];
     for (const [args, msg] of cases) {
       const r = exportCli(args);

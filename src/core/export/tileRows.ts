@@ -67,9 +67,15 @@ export const TILE_CSV_COLUMNS = [
   'truth_source_encoding', 'truth_encoding', 'pred_files', 'pred_wrong_pixels', 'overlay_file', 'overlay_run', 'notes',
 ] as const;
 
-/** Returns `v` as a CSV field (RFC 4180 §2: quoted when it holds a comma, quote or line break; quotes doubled). */
+/**
+ * Returns `v` as a CSV field (RFC 4180 §2: quoted when it holds a comma, quote or line break; quotes
+ * doubled). Text starting with `=`, `+`, `-`, `@`, a tab or a carriage return would run as a formula
+ * in a spreadsheet, so it gets a leading `'` and quotes (the OWASP "CSV Injection" advice); numbers
+ * stay as they are.
+ */
 export function csvField(v: string | number | null): string {
   if (v === null) return '';
+  if (typeof v === 'string' && /^[=+\-@\t\r]/.test(v)) return `"'${v.replace(/"/g, '""')}"`;
   const s = String(v);
   return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
