@@ -25,9 +25,9 @@ export const MISSED_OBJECTS_MAX = 50;
 
 /** Returns one run's object scores against the truth's objects (labelled once per frame and shared by the runs). */
 export function runObjectsOf(
-  labels: TruthObjectLabels, truth: LabelIds, pred: LabelIds, codes: Uint16Array, classIds: readonly number[],
+  labels: TruthObjectLabels, pred: LabelIds, codes: Uint16Array, classIds: readonly number[],
 ): RunObjects {
-  const objects = truthObjectsHit(labels, truth, pred, codes);
+  const objects = truthObjectsHit(labels, pred, codes);
   const counts = objectSizeCountsAdd(objectSizeCountsCreate(classIds.length), objects);
   const missed: MissedObject[] = [];
   for (let o = 0; o < objects.count; o++) {

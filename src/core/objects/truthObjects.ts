@@ -14,8 +14,6 @@ export interface TruthObjects extends TruthObjectLabels {
 /** The objects of a ground truth alone, shared by every run scored against it. */
 export interface TruthObjectLabels {
   count: number;
-  /** Per pixel: its object's number, or -1 for void and ids that are no class. */
-  objectOf: Int32Array;
   /** Class index (position in the ascending class ids). */
   classIndex: Uint16Array;
   /** Pixels of the object. */
@@ -25,6 +23,11 @@ export interface TruthObjectLabels {
   y0: Uint16Array;
   x1: Uint16Array;
   y1: Uint16Array;
+  /** Row runs of one class: pixel index of the first pixel, one past the last, and the run's object. */
+  runs: number;
+  runStart: Int32Array;
+  runEnd: Int32Array;
+  runObject: Int32Array;
 }
 
 function find(parent: Int32Array, i: number): number {
@@ -35,64 +38,77 @@ function find(parent: Int32Array, i: number): number {
   return i;
 }
 
-function union(parent: Int32Array, a: number, b: number): void {
-  const ra = find(parent, a), rb = find(parent, b);
-  if (ra < rb) parent[rb] = ra;
-  else if (rb < ra) parent[ra] = rb;
-}
-
 /**
- * Returns the objects of `truth`: 8-connected runs of pixels of one class. `codes` maps an id to its
+ * Returns the objects of `truth`: 8-connected sets of pixels of one class. `codes` maps an id to its
  * class index (0..k-1), or to k and above for void and ids that are no class.
- * Hot loop: flat typed arrays, one union-find pass and one labelling pass, no allocation per pixel.
+ * Hot loop, run-based: each row is cut into runs of one class, a run joins the runs of the row above
+ * of its class that touch it or its corners (union-find over runs, not pixels), no allocation per pixel.
  */
 export function truthObjectLabels(truth: LabelIds, width: number, height: number, codes: Uint16Array, k: number): TruthObjectLabels {
-  const n = width * height;
-  const parent = new Int32Array(n).fill(-1);
+  let cap = Math.max(16, width);
+  let runStart = new Int32Array(cap), runEnd = new Int32Array(cap), runCode = new Uint16Array(cap), parent = new Int32Array(cap);
+  let runs = 0;
+  let prevBegin = 0, prevEnd = 0;
   for (let y = 0; y < height; y++) {
     const row = y * width;
-    for (let x = 0; x < width; x++) {
-      const i = row + x;
-      const c = codes[truth[i]];
-      if (c >= k) continue;
-      parent[i] = i;
-      if (x > 0 && parent[i - 1] >= 0 && codes[truth[i - 1]] === c) union(parent, i, i - 1);
-      if (y > 0) {
-        const up = i - width;
-        if (x > 0 && parent[up - 1] >= 0 && codes[truth[up - 1]] === c) union(parent, i, up - 1);
-        if (parent[up] >= 0 && codes[truth[up]] === c) union(parent, i, up);
-        if (x + 1 < width && parent[up + 1] >= 0 && codes[truth[up + 1]] === c) union(parent, i, up + 1);
+    const begin = runs;
+    let x = 0;
+    while (x < width) {
+      const c = codes[truth[row + x]];
+      let e = x + 1;
+      while (e < width && codes[truth[row + e]] === c) e++;
+      if (c < k) {
+        if (runs === cap) {
+          cap *= 2;
+          const grow = <T extends Int32Array | Uint16Array>(a: T): T => { const b = new (a.constructor as new (n: number) => T)(cap); b.set(a); return b; };
+          runStart = grow(runStart); runEnd = grow(runEnd); runCode = grow(runCode); parent = grow(parent);
+        }
+        runStart[runs] = row + x;
+        runEnd[runs] = row + e;
+        runCode[runs] = c;
+        parent[runs] = runs;
+        runs++;
+      }
+      x = e;
+    }
+    // Join with the row above: runs of the same class overlapping [x - 1, e + 1) in x.
+    let p = prevBegin;
+    for (let r = begin; r < runs; r++) {
+      const s = runStart[r] - row, e = runEnd[r] - row;
+      while (p < prevEnd && runEnd[p] - row + width < s) p++; // ends left of s - 1 + 1 (diagonal reach)
+      for (let q = p; q < prevEnd && runStart[q] - row + width <= e; q++) {
+        if (runCode[q] !== runCode[r]) continue;
+        const a = find(parent, r), b = find(parent, q);
+        if (a < b) parent[b] = a;
+        else if (b < a) parent[a] = b;
       }
     }
+    prevBegin = begin;
+    prevEnd = runs;
   }
-  // Every parent index is at most its child's (a root is the smallest index of its component), so in
-  // row-major order a pixel's parent is already numbered: objects are numbered in the order of their
-  // first pixel, and the parent array is overwritten with the numbers in one pass.
-  const objectOf = parent;
+  // A root is the smallest run index of its object and every parent index is at most its child's,
+  // so in run order a run's parent is already numbered: objects are numbered by their first pixel.
+  const runObject = parent;
   let count = 0;
-  for (let i = 0; i < n; i++) {
-    const p = parent[i];
-    if (p < 0) continue;
-    objectOf[i] = p === i ? count++ : objectOf[p];
+  for (let r = 0; r < runs; r++) {
+    const q = parent[r];
+    runObject[r] = q === r ? count++ : runObject[q];
   }
   const out: TruthObjectLabels = {
-    count, objectOf,
-    classIndex: new Uint16Array(count), area: new Uint32Array(count),
+    count, classIndex: new Uint16Array(count), area: new Uint32Array(count),
     x0: new Uint16Array(count).fill(65535), y0: new Uint16Array(count).fill(65535), x1: new Uint16Array(count), y1: new Uint16Array(count),
+    runs, runStart, runEnd, runObject,
   };
-  for (let y = 0; y < height; y++) {
-    const row = y * width;
-    for (let x = 0; x < width; x++) {
-      const i = row + x;
-      const o = objectOf[i];
-      if (o < 0) continue;
-      out.classIndex[o] = codes[truth[i]];
-      out.area[o]++;
-      if (x < out.x0[o]) out.x0[o] = x;
-      if (x > out.x1[o]) out.x1[o] = x;
-      if (y < out.y0[o]) out.y0[o] = y;
-      out.y1[o] = y;
-    }
+  for (let r = 0; r < runs; r++) {
+    const o = runObject[r];
+    const y = Math.floor(runStart[r] / width);
+    const xs = runStart[r] - y * width, xe = runEnd[r] - 1 - y * width;
+    out.classIndex[o] = runCode[r];
+    out.area[o] += runEnd[r] - runStart[r];
+    if (xs < out.x0[o]) out.x0[o] = xs;
+    if (xe > out.x1[o]) out.x1[o] = xe;
+    if (y < out.y0[o]) out.y0[o] = y;
+    out.y1[o] = y;
   }
   return out;
 }
@@ -102,12 +118,14 @@ export function truthObjectLabels(truth: LabelIds, width: number, height: number
  * `codes[pred] === codes[truth]`, so a prediction id outside the table is never a hit.
  * Hot loop: one pass, no allocation per pixel.
  */
-export function truthObjectsHit(labels: TruthObjectLabels, truth: LabelIds, pred: LabelIds, codes: Uint16Array): TruthObjects {
+export function truthObjectsHit(labels: TruthObjectLabels, pred: LabelIds, codes: Uint16Array): TruthObjects {
   const hits = new Uint32Array(labels.count);
-  const objectOf = labels.objectOf;
-  for (let i = 0; i < objectOf.length; i++) {
-    const o = objectOf[i];
-    if (o >= 0 && codes[pred[i]] === codes[truth[i]]) hits[o]++;
+  const { runStart, runEnd, runObject, classIndex } = labels;
+  for (let r = 0; r < labels.runs; r++) {
+    const c = classIndex[runObject[r]];
+    let h = 0;
+    for (let i = runStart[r], e = runEnd[r]; i < e; i++) if (codes[pred[i]] === c) h++;
+    hits[runObject[r]] += h;
   }
   return { ...labels, hits };
 }
@@ -116,5 +134,5 @@ export function truthObjectsHit(labels: TruthObjectLabels, truth: LabelIds, pred
 export function truthObjectsOf(
   truth: LabelIds, pred: LabelIds, width: number, height: number, codes: Uint16Array, k: number,
 ): TruthObjects {
-  return truthObjectsHit(truthObjectLabels(truth, width, height, codes, k), truth, pred, codes);
+  return truthObjectsHit(truthObjectLabels(truth, width, height, codes, k), pred, codes);
 }

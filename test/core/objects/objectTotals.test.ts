@@ -18,7 +18,7 @@ describe('runObjectsOf', () => {
     const ids = [0, 1, 2];
     const codes = codeTableBuild(ids, 255);
     const labels = truthObjectLabels(truth, 6, 4, codes, 3);
-    const r = runObjectsOf(labels, truth, pred, codes, ids);
+    const r = runObjectsOf(labels, pred, codes, ids);
     // Objects: class 0 one region of 16 pixels (all 8-connected) recall 1, class 1 {(0,0),(1,1)}
     // recall 1/2, class 2 {(4,0),(5,0),(5,1)} recall 1/3 and {(3,2)} recall 1.
     expect(labels.count).toBe(4);
@@ -44,7 +44,7 @@ describe('totals are additive', () => {
     frames.forEach((fr, i) => {
       const codes = codeTableBuild(fr.ids, 255);
       const labels = truthObjectLabels(fr.truth, 4, 3, codes, fr.ids.length);
-      const r = runObjectsOf(labels, fr.truth, fr.cur, codes, fr.ids);
+      const r = runObjectsOf(labels, fr.cur, codes, fr.ids);
       const fb = flipBackCountsAdd(fr.truth, fr.prev, fr.cur, fr.next, codes, fr.ids.length, flipBackCountsCreate(fr.ids.length));
       for (const t of [one, parts[i === 0 ? 0 : 1]]) {
         objectTotalsAdd(t.o, r.counts, fr.ids);
