@@ -10,6 +10,8 @@ import { UsageError } from './args.ts';
 import { progressCreate } from './progress.ts';
 import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
 import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
+import { censusKeep, pairingReport } from './scoreOpened.ts';
+import { openedOf } from '../data/opened.ts';
 import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect, type ReportVoidSpill } from './scoreRegions.ts';
 import { OutputError, outputCheck, outputWrite } from './outputFile.ts';
 import { framesCsv, summaryText, type FrameCsvRow } from './scoreReportWrite.ts';
@@ -35,7 +37,7 @@ async function run(options: ScoreOptions): Promise<number> {
   }
   const ds = await scoreDatasetOpen(options);
   const { pairing } = ds;
-  for (const u of pairing.unpaired) process.stderr.write(`not paired: ${termText(`${u.folder}/${u.file}: ${u.reason}`)}\n`);
+  pairingReport(pairing, (line) => process.stderr.write(`${termText(line)}\n`));
   if (pairing.frames.length === 0) throw new UsageError(`--truth ${options.truth}: no label PNGs found`);
   const generated = ds.table === null;
   const table: ClassTable = ds.table ?? { ignore: ds.settings.ignore, ignoreColor: null, classes: [], generated: true };
@@ -46,6 +48,7 @@ async function run(options: ScoreOptions): Promise<number> {
   const lines = new Map<string, (ReportFrameLine | undefined)[]>(runs.map((r) => [r, new Array(n)]));
   const csvRows: (FrameCsvRow[] | undefined)[] = new Array(n);
   const regions = regionGatherCreate(n, options.suspects);
+  const census = censusKeep(runs);
   let done = 0;
   let failed = 0;
   const progress = progressCreate(n);
@@ -55,6 +58,7 @@ async function run(options: ScoreOptions): Promise<number> {
   const take = (index: number, result: FrameJobResult) => {
     for (const w of result.warnings ?? []) if (warned++ < WARNINGS_SHOWN) process.stderr.write(`warning: ${termText(w)}\n`);
     regionGatherAdd(regions, index, result, runs[0]);
+    census.add(result);
     let anyFailed = false;
     const rows: FrameCsvRow[] = [];
     for (const r of result.runs) {
@@ -100,6 +104,8 @@ async function run(options: ScoreOptions): Promise<number> {
   }
   progress.end(done, failed);
   if (warned > WARNINGS_SHOWN) process.stderr.write(`… and ${warned - WARNINGS_SHOWN} more warnings like these\n`);
+  const idWarnings = census.warnings();
+  for (const w of idWarnings) process.stderr.write(`warning: ${termText(w)}\n`);
 
   const classesOf = (t: DatasetTotals) => (generated ? t.classIds.map((id) => ({ id, name: String(id) })) : table.classes);
   const reports = runs.map((r) => scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]));
@@ -107,11 +113,13 @@ async function run(options: ScoreOptions): Promise<number> {
     frames: (ReportFrameLine & { regions?: ReportRegion[] | null; voidSpill?: ReportVoidSpill | null })[];
     runs?: Record<string, ScoreReport['dataset']>;
     unpaired?: unknown;
+    opened?: unknown;
     suspects?: ReportSuspect[];
   } = reports[0];
   const runBlocks = Object.fromEntries(runs.map((r, i) => [r, reports[i].dataset]));
   if (runs.length > 1) report.runs = runBlocks;
   report.unpaired = pairing.unpaired;
+  report.opened = openedOf(pairing, ds.table, idWarnings);
   report.frames.forEach((f, i) => {
     f.regions = regions.lines[i];
     f.voidSpill = regions.voidSpill[i];

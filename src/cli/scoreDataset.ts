@@ -1,7 +1,8 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { classTableFromText, type ClassTable } from '../core/classTable.ts';
-import { datasetPair, type Pairing } from '../data/pairing.ts';
+import { datasetPairProbed } from '../data/labelGroups.ts';
+import type { Pairing } from '../data/pairing.ts';
 import { UsageError } from './args.ts';
 import { filesUnder } from './listFiles.ts';
 import type { ScoreOptions } from './scoreArgs.ts';
@@ -44,11 +45,16 @@ export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreData
   const confidence: Record<string, string[]> = {};
   for (const c of options.confidence) confidence[c.name] = await filesUnder(c.dir, 'confidence');
   const images = options.images ? await filesUnder(options.images, 'images') : [];
-  const pairing = datasetPair({ truth, predictions, images, confidence });
+  const ignore = table?.ignore ?? options.ignore ?? 255;
+  const dirs = new Map<string, string>([['truth', options.truth], ['images', options.images ?? '']]);
+  for (const r of options.runs) dirs.set(`predictions/${r.name}`, r.dir);
+  for (const c of options.confidence) dirs.set(`confidence/${c.name}`, c.dir);
+  const read = async (folder: string, path: string) => new Uint8Array(await readFile(join(dirs.get(folder)!, path)));
+  const pairing = await datasetPairProbed({ truth, predictions, images, confidence }, read, table, ignore);
   // datasetPair sorts runs by name; the scorer keeps the order given (the first --pred is the report's run).
   pairing.runs = options.runs.map((r) => r.name);
   const settings: ScoreSettings = {
-    ignore: table?.ignore ?? options.ignore ?? 255,
+    ignore,
     biouDilationRatio: options.biouRatio,
     bfTolerance: options.bfTolerance,
   };

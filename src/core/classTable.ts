@@ -1,3 +1,4 @@
+import { idPairsFromJson, type IdPairs } from './idMap.ts';
 import { fail, ok, type Result } from './result.ts';
 
 /** One class of a label map: its id, display name and `#rrggbb` colour. */
@@ -17,6 +18,10 @@ export interface ClassTable {
   classes: ClassInfo[];
   /** True when no table was given: ids are named by number, colours generated. */
   generated: boolean;
+  /** Stored id → class id of ground-truth files (`"truthIds"`), or absent when truth stores class ids. */
+  truthIds?: IdPairs | null;
+  /** Stored id → class id of prediction files (`"predictionIds"`), or absent when predictions store class ids. */
+  predictionIds?: IdPairs | null;
 }
 
 /** Largest id a class may have; 65535 is kept free so a 16-bit map always has an id outside the table. */
@@ -47,10 +52,15 @@ function isIdInRange(v: unknown): v is number {
 /** Returns a validated class table from the parsed JSON of `classes.json`, or the first problem found. */
 export function classTableFromJson(json: unknown, file = 'classes.json'): Result<ClassTable> {
   if (!isPlainObject(json)) return fail(file, 'expected a JSON object with "ignore" and "classes"');
-  const ignore = json.ignore ?? DEFAULT_IGNORE;
-  if (typeof ignore !== 'number' || !Number.isInteger(ignore) || ignore < 0 || ignore > 65535) {
-    return fail(file, `"ignore" must be an integer 0..65535, got ${JSON.stringify(json.ignore)}`);
+  // "ignore" may list several stored void ids: the first is the void id, the others map to it.
+  const ignoreList = Array.isArray(json.ignore) ? json.ignore : [json.ignore ?? DEFAULT_IGNORE];
+  if (ignoreList.length === 0) return fail(file, '"ignore" is an empty list; give the void id, or a list of them');
+  for (const v of ignoreList) {
+    if (typeof v !== 'number' || !Number.isInteger(v) || v < 0 || v > 65535) {
+      return fail(file, `"ignore" must be an integer 0..65535 or a list of them, got ${JSON.stringify(json.ignore)}`);
+    }
   }
+  const ignore = ignoreList[0] as number;
   let ignoreColor: string | null = null;
   if (json.ignoreColor !== undefined && json.ignoreColor !== null) {
     if (typeof json.ignoreColor !== 'string' || !COLOR_RE.test(json.ignoreColor)) {
@@ -90,7 +100,26 @@ export function classTableFromJson(json: unknown, file = 'classes.json'): Result
     classes.push({ id, name: name.trim(), color });
   }
   classes.sort((a, b) => a.id - b.id);
-  return ok({ ignore, ignoreColor, classes, generated: false });
+  for (const v of ignoreList) {
+    const clash = classes.find((c) => c.id === v);
+    if (clash) return fail(file, `"ignore" lists ${v}, which is the id of class "${clash.name}"`);
+  }
+  const ids = new Set(classes.map((c) => c.id));
+  const maps: { truthIds: IdPairs | null; predictionIds: IdPairs | null } = { truthIds: null, predictionIds: null };
+  for (const key of ['truthIds', 'predictionIds'] as const) {
+    if (json[key] === undefined || json[key] === null) continue;
+    const r = idPairsFromJson(json[key], key, ids, file);
+    if (!r.ok) return r;
+    maps[key] = r.value;
+  }
+  const extraVoid = (ignoreList as number[]).slice(1);
+  if (extraVoid.length) {
+    // Without truthIds the truth stores class ids: the extra void ids join an identity map.
+    const truth: IdPairs = maps.truthIds ?? [...classes.map((c): [number, number] => [c.id, c.id]), [ignore, null]];
+    for (const v of extraVoid) if (!truth.some(([s]) => s === v)) truth.push([v, null]);
+    maps.truthIds = truth.sort((a, b) => a[0] - b[0]);
+  }
+  return ok({ ignore, ignoreColor, classes, generated: false, ...maps });
 }
 
 /** Returns a validated class table parsed from the text of `classes.json`. */

@@ -4,7 +4,8 @@ import type { LabelMap } from './labelMap.ts';
 import { frameScore, type FrameStats } from './metrics/frameScore.ts';
 import { scoreScratchCreate, type ScoreScratch } from './metrics/scratch.ts';
 import type { ScoreSettings } from './metrics/settings.ts';
-import { labelMapFromPng } from './png/decodeLabel.ts';
+import { idCensusOf, type IdCensus } from './idCensus.ts';
+import { labelMapRead } from './labelRead.ts';
 import { pngHeaderRead } from './png/header.ts';
 import type { RgbaImage } from './png/decodePhoto.ts';
 import { confidenceFromPng, type ConfidenceMap } from './regions/confidenceMap.ts';
@@ -53,6 +54,8 @@ export interface FrameRunResult {
   error: string | null;
   /** Error regions of this run (README "Error regions"); null when the run failed or regions were skipped. */
   regions?: RunRegions | null;
+  /** How this run's ids line up with the truth's (for the id-space warnings of src/core/idCensus.ts). */
+  census?: IdCensus;
 }
 
 /** Scores of one frame: `error` set when the frame itself (its ground truth) failed, else per-run results. */
@@ -94,7 +97,7 @@ export function frameJobScore(
   const base = { name: input.name, width: 0, height: 0 };
   const failAll = (error: string): FrameJobResult => ({ ...base, error, runs: input.preds.map((p) => ({ run: p.run, stats: null, error })) });
 
-  const truth = labelMapFromPng(input.truth.bytes, { file: input.truth.file, table, maxPixels: input.maxPixels });
+  const truth = labelMapRead(input.truth.bytes, { file: input.truth.file, table, maxPixels: input.maxPixels, role: 'truth' });
   if (!truth.ok) return failAll(truth.error);
   const ids = labelMapIdsCheck(truth.value, table, input.truth.file, 'truth');
   if (!ids.ok) return failAll(ids.error);
@@ -111,10 +114,12 @@ export function frameJobScore(
     }
   }
 
+  const warnings: string[] = [];
   const decoded: { run: string; map: LabelMap | null; error: string | null }[] = input.preds.map(({ run, file }) => {
     if (!file) return { run, map: null, error: `predictions/${run}: no prediction file for frame ${input.name}` };
-    const r = labelMapFromPng(file.bytes, { file: file.file, table, maxPixels: input.maxPixels });
+    const r = labelMapRead(file.bytes, { file: file.file, table, maxPixels: input.maxPixels, role: 'prediction' });
     if (!r.ok) return { run, map: null, error: r.error };
+    if (r.value.warning) warnings.push(r.value.warning);
     const sizes = frameSizesCheck([
       { file: input.truth.file, width, height },
       { file: file.file, width: r.value.width, height: r.value.height },
@@ -129,9 +134,10 @@ export function frameJobScore(
   const runs = decoded.map(({ run, map, error }): FrameRunResult => {
     if (!map) return { run, stats: null, error };
     const s = frameScore(truth.value, map, classIds, settings, scratch);
-    return s.ok ? { run, stats: s.value, error: null } : { run, stats: null, error: `${input.truth.file}: ${s.error}` };
+    if (!s.ok) return { run, stats: null, error: `${input.truth.file}: ${s.error}` };
+    return { run, stats: s.value, error: null, census: idCensusOf(truth.value, map, settings.ignore) };
   });
-  if (input.regions === false) return { ...base, width, height, error: null, runs };
+  if (input.regions === false) return { ...base, width, height, error: null, runs, ...(warnings.length ? { warnings } : {}) };
   const regionSettings = regionSettingsCheck(input.regions);
   if (!regionSettings.ok) return failAll(regionSettings.error);
   const photo = input.photoRgba ?? null;
@@ -139,7 +145,6 @@ export function frameJobScore(
     const sizes = frameSizesCheck([{ file: input.truth.file, width, height }, { file: photo.file, width: photo.width, height: photo.height }]);
     if (!sizes.ok) return failAll(sizes.error);
   }
-  const warnings: string[] = [];
   const preds = decoded.map((d, i) => {
     if (!d.map || runs[i].error) return null;
     const confidence = confidenceOf(input, d.run, width, height, warnings);

@@ -67,7 +67,7 @@ describe('npm run score (real CLI) against the numpy/scipy reference', () => {
       if (extra.length) refArgs.push('--biou-ratio', '0.05', '--bf-tolerance', '0.03');
       const ref = pythonRefRun(refArgs);
       // The reference knows no error regions: frames[].regions and suspects are checked in suspects.test.ts.
-      expect(reportDifferences(ours, ref, 1e-9, ['timing', 'unpaired', 'runs', 'regions', 'voidSpill', 'suspects'])).toEqual([]);
+      expect(reportDifferences(ours, ref, 1e-9, ['timing', 'unpaired', 'opened', 'runs', 'regions', 'voidSpill', 'suspects'])).toEqual([]);
       expect(ours.dataset.band).toHaveLength(65);
       expect(r.stdout).toMatch(/mean IoU/);
     }

@@ -31,9 +31,9 @@ describe('datasetPair (layout of src/docs/design.md "Inputs": images/, truth/, p
     expect(reasons).toEqual(
       [
         'images/notes.txt: not a supported file type here (expected .png, .jpg, .jpeg, .webp)',
-        'images/orphan.png: no ground-truth file with this name',
+        'images/orphan.png: no ground-truth file with this frame key',
         'predictions/run-a/f2: run "run-a" has no prediction for frame f2',
-        'predictions/run-b/extra.png: no ground-truth file with this name',
+        'predictions/run-b/extra.png: no ground-truth file with this frame key',
       ].sort(),
     );
   });

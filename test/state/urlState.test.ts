@@ -8,7 +8,7 @@ describe('view state in the URL hash', () => {
     const store = appStoreCreate();
     const frames = ['a', 'b', 'c'].map((name) => ({ name, image: null, truth: `${name}.png`, predictions: {}, confidence: {} }));
     store.setState({
-      dataset: { key: 'k', title: 't', source: { kind: 'demo' } as never, pairing: { frames, runs: ['r1', 'r2'], unpaired: [] }, table: null, tableError: null },
+      dataset: { key: 'k', title: 't', source: { kind: 'demo' } as never, pairing: { frames, runs: ['r1', 'r2'], unpaired: [], ambiguous: [], groups: [], warnings: [] }, table: null, tableError: null },
       frameIndex: 2,
       place: { cx: 10.5, cy: 20.25, scale: 4 },
     });
