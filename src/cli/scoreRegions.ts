@@ -6,6 +6,7 @@ import type { RegionKind } from '../core/regions/regionTypes.ts';
 import {
   confidenceSumsAdd, frameGridsOf, suspectCandidates, type ConfidenceSums, type SuspectCandidate,
 } from '../core/suspects/suspectCandidates.ts';
+import { appearanceSumsAdd, type AppearanceSums } from '../core/suspects/appearanceModel.ts';
 import { pairRecurrenceAdd, type PairRecurrence } from '../core/suspects/pairRecurrence.ts';
 import { suspectQueue } from '../core/suspects/suspectQueue.ts';
 import type { SuspectContributions } from '../core/suspects/suspectScore.ts';
@@ -50,6 +51,8 @@ export interface RegionGather {
   confidence: ConfidenceSums;
   /** How often each class pair shows per run (frames; additive over frames and shards). */
   recurrence: PairRecurrence;
+  /** Each class's appearance in the photos (summed over frames and shards). */
+  appearance: AppearanceSums;
   /** Per frame: the first run's listed regions, or null when it has none (failed, or no prediction). */
   lines: (ReportRegion[] | null)[];
   voidSpill: (ReportVoidSpill | null)[];
@@ -58,7 +61,7 @@ export interface RegionGather {
 /** Returns an empty gatherer for `frames` frames with a queue of `queueMax` entries. */
 export function regionGatherCreate(frames: number, queueMax: number): RegionGather {
   return {
-    settings: { ...SUSPECT_DEFAULTS, queueMax }, candidates: [], grids: new Array(frames).fill(null), confidence: new Map(), recurrence: new Map(),
+    settings: { ...SUSPECT_DEFAULTS, queueMax }, candidates: [], grids: new Array(frames).fill(null), confidence: new Map(), recurrence: new Map(), appearance: new Map(),
     lines: new Array(frames).fill(null), voidSpill: new Array(frames).fill(null),
   };
 }
@@ -68,6 +71,7 @@ export function regionGatherAdd(g: RegionGather, index: number, result: FrameJob
   g.candidates.push(...suspectCandidates(result, index, g.settings));
   confidenceSumsAdd(g.confidence, result);
   pairRecurrenceAdd(g.recurrence, result, g.settings);
+  appearanceSumsAdd(g.appearance, result);
   g.grids[index] = frameGridsOf(result);
   const first = result.error ? null : result.runs.find((r) => r.run === firstRun);
   g.lines[index] = first?.regions
@@ -78,7 +82,7 @@ export function regionGatherAdd(g: RegionGather, index: number, result: FrameJob
 
 /** Returns the likely-label-mistake queue over every run, best first, in the report's shape. */
 export function regionGatherSuspects(g: RegionGather, className: (id: number) => string): ReportSuspect[] {
-  return suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, recurrence: g.recurrence, className }, g.settings).map((s) => ({
+  return suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, recurrence: g.recurrence, appearance: g.appearance, className }, g.settings).map((s) => ({
     frame: s.frame, run: s.run, bbox: s.bbox, truthClass: s.truthClass, predictedClass: s.predictedClass, kind: s.kind,
     score: s.score, reasons: s.reasons, contributions: s.contributions, contributionsText: s.contributionsText,
   }));

@@ -12,6 +12,7 @@ import { confidenceFromPng, type ConfidenceMap } from './regions/confidenceMap.t
 import { frameRegionsCompute } from './regions/frameRegions.ts';
 import { regionScratchCreate, type RegionScratch } from './regions/regionScratch.ts';
 import { regionSettingsCheck, type RegionSettings } from './regions/regionSettings.ts';
+import type { ClassAppearance } from './regions/appearance.ts';
 import type { FrameGrid, RunRegions } from './regions/regionTypes.ts';
 
 /** One file of a frame, as bytes, with the name used in messages (e.g. `truth/kq-0001.png`). */
@@ -67,6 +68,8 @@ export interface FrameJobResult {
   runs: FrameRunResult[];
   /** Coarse truth grid for temporal evidence (each run's grid is in its regions); null without regions. */
   grid?: FrameGrid | null;
+  /** What each class looks like in the photo where label and runs agree (appearance.ts); null without a photo or regions. */
+  appearance?: ClassAppearance | null;
   /** Optional inputs that could not be used (a confidence map or photo), each naming the file and the problem. */
   warnings?: string[];
 }
@@ -156,7 +159,7 @@ export function frameJobScore(
     return { ...base, width, height, error: null, runs, grid: null, warnings };
   }
   runs.forEach((r, i) => (r.regions = regions.value.runs[i]));
-  return { ...base, width, height, error: null, runs, grid: regions.value.grid, warnings };
+  return { ...base, width, height, error: null, runs, grid: regions.value.grid, appearance: regions.value.appearance, warnings };
 }
 
 /** Returns the run's decoded confidence map, or null (absent, or unusable: then the reason is added to `warnings`). */

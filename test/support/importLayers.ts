@@ -29,6 +29,7 @@ export const LAYER_MAY_IMPORT: Record<Layer, readonly Layer[]> = {
 export const PACKAGE_LOWEST_LAYER: Record<string, Layer> = {
   'fflate': 'src/core',
   'upng-js': 'src/core',
+  'culori': 'src/core',
   'zustand': 'src/state',
   'idb-keyval': 'src/state',
   'pixi.js': 'src/view',

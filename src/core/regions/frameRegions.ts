@@ -2,6 +2,7 @@ import type { LabelMap } from '../labelMap.ts';
 import { classIdsCheck, labelCodesFill } from '../metrics/codes.ts';
 import type { RgbaImage } from '../png/decodePhoto.ts';
 import { fail, ok, type Result } from '../result.ts';
+import { classAppearanceOfFrame, photoLabBins, type AppearancePhoto, type ClassAppearance } from './appearance.ts';
 import { componentStatsFill } from './componentStats.ts';
 import type { ConfidenceMap } from './confidenceMap.ts';
 import { gridDominant, gridShape } from './frameGrid.ts';
@@ -23,10 +24,11 @@ export interface RegionFrameInput {
   photo: RgbaImage | null;
 }
 
-/** The frame's grid and, per run in input order, its regions (null where the run had no map). */
+/** The frame's grid, per run in input order its regions (null where the run had no map), and its classes' appearance (null without a photo). */
 export interface FrameRegions {
   grid: FrameGrid;
   runs: (RunRegions | null)[];
+  appearance: ClassAppearance | null;
 }
 
 function sizeCheck(what: string, w: number, h: number, width: number, height: number): Result<true> {
@@ -72,10 +74,11 @@ export function frameRegionsCompute(
   runsLabel(tc, null, null, width, height, k, RUN_KEEP.all, s.truthRuns);
   componentStatsFill(s.truthRuns, s.truthSegments);
   const grid: FrameGrid = { ...shape, truth: gridDominant(s.truthRuns, k, classIds, ignore, shape) };
-  let photoMaps: { luma: Uint8Array; gradient: Uint8Array } | null = null;
+  let photoMaps: AppearancePhoto | null = null;
   if (photo) {
     photoMaps = regionScratchPhoto(s);
     photoLuma(photo.rgba, n, photoMaps.luma);
+    photoLabBins(photo.rgba, n, photoMaps.bins);
     photoMaps.gradient.fill(GRADIENT_UNKNOWN, 0, n);
   }
   const present: { run: string; index: number }[] = [];
@@ -89,5 +92,8 @@ export function frameRegionsCompute(
     const others = present.filter((o) => o.index !== index);
     return runRegions({ width, height, classIds, index, others, confidence: p.confidence, photo: photoMaps, grid: shape }, s, settings);
   });
-  return ok({ grid, runs });
+  const appearance = photoMaps && present.length
+    ? classAppearanceOfFrame(width, height, tc, present.map((p) => s.predCodes[p.index]), s.edgeReach, photoMaps, classIds)
+    : null;
+  return ok({ grid, runs, appearance });
 }

@@ -1,3 +1,4 @@
+import { regionAppearance, type AppearancePhoto } from './appearance.ts';
 import type { ComponentStats } from './componentStats.ts';
 import type { GridShape } from './frameGrid.ts';
 import { gradientNear } from './photoEdges.ts';
@@ -13,8 +14,8 @@ export interface EvidenceContext {
   pc: Uint16Array;
   /** The other runs with a map of this frame. */
   others: { run: string; pc: Uint16Array }[];
-  /** The photo's luma and its gradient magnitudes computed so far (gradientAt), or null without a photo. */
-  photo: { luma: Uint8Array; gradient: Uint8Array } | null;
+  /** The photo's colour bins, luma and its gradient magnitudes computed so far (gradientAt), or null without a photo. */
+  photo: AppearancePhoto | null;
   /** Chessboard radius (pixels) searched for the strongest edge around each outline pixel. */
   edgeTolerance: number;
   confidence: { values: Uint8Array | Uint16Array; bins: Uint8Array } | null;
@@ -111,6 +112,7 @@ export function regionEvidence(t: RunTable, s: ComponentStats, c: number, ctx: E
       ? { predicted: nP ? sumP / nP : null, truth: nT ? sumT / nT : null, inside: nI ? sumI / nI : null, outline: { predicted: nP, truth: nT, shared: nS } }
       : null,
     confidence: hist,
+    appearance: photo ? regionAppearance(t, s, c, photo, width, height) : null,
     cells: regionCells(t, s, c, ctx),
   };
 }

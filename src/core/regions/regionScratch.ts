@@ -16,6 +16,8 @@ export interface RegionScratch {
   edgeReach: Uint8Array;
   luma: Uint8Array;
   gradient: Uint8Array;
+  /** The photo's colour bin per pixel (photoLabBins). */
+  labBins: Uint8Array;
   truthRuns: RunTable;
   truthSegments: ComponentStats;
   predRuns: RunTable;
@@ -34,7 +36,7 @@ export interface RegionScratch {
 /** Returns an empty region scratch (buffers are sized by the first frame). */
 export function regionScratchCreate(): RegionScratch {
   return {
-    pixels: 0, truthCodes: new Uint16Array(0), predCodes: [], edgeReach: new Uint8Array(0), luma: new Uint8Array(0), gradient: new Uint8Array(0),
+    pixels: 0, truthCodes: new Uint16Array(0), predCodes: [], edgeReach: new Uint8Array(0), luma: new Uint8Array(0), gradient: new Uint8Array(0), labBins: new Uint8Array(0),
     truthRuns: runTableCreate(), truthSegments: componentStatsCreate(), predRuns: runTableCreate(), predSegments: componentStatsCreate(),
     pairRuns: runTableCreate(), pairs: componentStatsCreate(), thickness: thicknessWorkCreate(),
     cellCount: new Int32Array(0), cellTouched: new Int32Array(0),
@@ -49,6 +51,7 @@ export function regionScratchFit(s: RegionScratch, width: number, height: number
     s.truthCodes = new Uint16Array(n);
     s.luma = new Uint8Array(0);
     s.gradient = new Uint8Array(0);
+    s.labBins = new Uint8Array(0);
     s.predCodes = [];
     s.pixels = n;
   }
@@ -60,13 +63,14 @@ export function regionScratchFit(s: RegionScratch, width: number, height: number
   }
 }
 
-/** Returns the luma and gradient buffers of `s`, sized for the frame (allocated only when a photo is given). */
-export function regionScratchPhoto(s: RegionScratch): { luma: Uint8Array; gradient: Uint8Array } {
+/** Returns the luma, gradient and colour-bin buffers of `s`, sized for the frame (allocated only when a photo is given). */
+export function regionScratchPhoto(s: RegionScratch): { luma: Uint8Array; gradient: Uint8Array; bins: Uint8Array } {
   if (s.luma.length < s.pixels) {
     s.luma = new Uint8Array(s.pixels);
     s.gradient = new Uint8Array(s.pixels);
+    s.labBins = new Uint8Array(s.pixels);
   }
-  return { luma: s.luma, gradient: s.gradient };
+  return { luma: s.luma, gradient: s.gradient, bins: s.labBins };
 }
 
 /** Builds the truth and prediction code tables for this class list and void id, only when they change. */

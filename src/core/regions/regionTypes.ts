@@ -39,6 +39,8 @@ export interface RegionEvidence {
   } | null;
   /** Histogram (CONFIDENCE_BINS bins, pixels) of this run's confidence over the region; null without a confidence map. */
   confidence: number[] | null;
+  /** Appearance histogram of the region in the photo (colour then texture bins, appearance.ts); null without a photo. */
+  appearance: number[] | null;
   /** Cells of the frame grid the region fills to at least gridCellShare (row-major index; none for thin slivers); see FrameGrid. */
   cells: number[];
 }

@@ -1,3 +1,4 @@
+import type { AppearancePhoto } from './appearance.ts';
 import { componentStatsFill } from './componentStats.ts';
 import type { ConfidenceMap } from './confidenceMap.ts';
 import { confidenceBinTable } from './confidenceMap.ts';
@@ -23,7 +24,7 @@ export interface RunRegionsInput {
   others: { run: string; index: number }[];
   confidence: ConfidenceMap | null;
   /** The photo's luma and its gradient computed so far (gradientAt), or null. */
-  photo: { luma: Uint8Array; gradient: Uint8Array } | null;
+  photo: AppearancePhoto | null;
   grid: GridShape;
 }
 
@@ -110,7 +111,7 @@ export function runRegions(input: RunRegionsInput, s: RegionScratch, settings: R
       id: c, kind, truthClass: classIds[g], predictedClass: idOf(p), area, bbox,
       centroid: [cs.sumX[c] / area + 0.5, cs.sumY[c] / area + 0.5], bandShare, thickness: 0, truthSegment, predSegment,
       severity: area - inBand[c] + settings.bandPixelWeight * inBand[c],
-      evidence: { agreement: [], edges: null, confidence: null, cells: [] },
+      evidence: { agreement: [], edges: null, confidence: null, appearance: null, cells: [] },
     });
   }
   listed.sort((a, b) => b.severity - a.severity || a.id - b.id);

@@ -1,7 +1,7 @@
 import type { FrameJobResult, FrameRunResult } from '../frameJob.ts';
 
 /** What the queue reads of a scored frame: its name, error, grid and each run's regions (never the scores). */
-export type SuspectFrame = Pick<FrameJobResult, 'name' | 'error' | 'grid'> & { runs: readonly Pick<FrameRunResult, 'run' | 'regions'>[] };
+export type SuspectFrame = Pick<FrameJobResult, 'name' | 'error' | 'grid' | 'appearance'> & { runs: readonly Pick<FrameRunResult, 'run' | 'regions'>[] };
 import type { RegionEvidence, RegionKind } from '../regions/regionTypes.ts';
 import type { SuspectSettings } from './suspectSettings.ts';
 import { signalAgreement, signalGeometry, signalImage } from './suspectSignals.ts';
@@ -28,6 +28,8 @@ export interface SuspectCandidate {
   image: number | null;
   edges: RegionEvidence['edges'];
   confidenceHist: number[] | null;
+  /** The region's appearance histogram in the photo (appearance.ts); null without a photo. */
+  appearanceHist: number[] | null;
   cells: number[];
   /** The gated weighted mean with confidence taken as 1 where a histogram exists: no score exceeds it before temporal evidence. */
   bound: number;
@@ -65,7 +67,7 @@ export function suspectCandidates(result: SuspectFrame, frameIndex: number, s: S
       list.push({
         frameIndex, frame: result.name, run: r.run, regionId: g.id, truthSegment: g.truthSegment.id, kind: g.kind, truthClass: g.truthClass, predictedClass: g.predictedClass,
         bbox: g.bbox, area: g.area, thickness: g.thickness, bandShare: g.bandShare, geometry, agreement, agreementRuns: g.evidence.agreement,
-        image, edges: g.evidence.edges, confidenceHist: hist, cells: g.evidence.cells, bound,
+        image, edges: g.evidence.edges, confidenceHist: hist, appearanceHist: g.evidence.appearance ?? null, cells: g.evidence.cells, bound,
       });
     }
     list.sort((a, b) => b.bound - a.bound || b.area - a.area);

@@ -1,6 +1,7 @@
 import { REGION_DEFAULTS } from '../regions/regionSettings.ts';
 import type { RegionKind } from '../regions/regionTypes.ts';
 import { confidenceSumsAdd, frameGridsOf, suspectCandidates, type ConfidenceSums, type SuspectCandidate, type SuspectFrame } from './suspectCandidates.ts';
+import { appearanceEvidenceOf, appearanceSumsAdd, signalAppearance, type AppearanceSums } from './appearanceModel.ts';
 import { pairHabitOf, pairRecurrenceAdd, type PairHabit, type PairRecurrence } from './pairRecurrence.ts';
 import { contributionsText, suspectScoreOf, type SuspectContributions } from './suspectScore.ts';
 import { suspectReasons, type SuspectSignals } from './suspectReasons.ts';
@@ -41,6 +42,8 @@ export interface SuspectQueueInput {
   confidence: ConfidenceSums;
   /** How often each class pair shows in each run's frames (absent: no pair is taken as a habit). */
   recurrence?: PairRecurrence;
+  /** Each class's appearance in the dataset's photos (absent: no appearance signal). */
+  appearance?: AppearanceSums;
   className: (id: number) => string;
   /** Band width the regions' band shares were measured at (REGION_DEFAULTS.bandWidth unless changed). */
   bandWidth?: number;
@@ -113,6 +116,7 @@ export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Susp
     const pair = habitOf(c.truthClass, c.predictedClass);
     const signals: SuspectSignals = {
       geometry: c.geometry, agreement: c.agreement, confidence: signalConfidence(c.confidenceHist, threshold), image: c.image,
+      appearance: input.appearance ? signalAppearance(appearanceEvidenceOf(c.appearanceHist, c.truthClass, c.predictedClass, input.appearance, s), s) : null,
       temporal: flip.share, steady: steadyDisagreement(c, index, s.temporalWindow, scoredFrame), habit: pair.habit,
     };
     return { c, signals, score: suspectScore(signals, s), threshold, flip, pair };
@@ -129,7 +133,7 @@ export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Susp
 export function suspectRank(scored: ScoredCandidate[], input: Pick<SuspectQueueInput, 'className' | 'bandWidth'>, s: SuspectSettings): Suspect[] {
   const weights = {
     geometry: s.weightGeometry, agreement: s.weightAgreement, confidence: s.weightConfidence, image: s.weightImage, temporal: s.weightTemporal, steady: s.weightSteady,
-    habit: s.weightHabit,
+    habit: s.weightAgreement, appearance: s.weightAppearance,
   };
   scored.sort(suspectOrder);
   const out: Suspect[] = [];
@@ -171,12 +175,14 @@ export function suspectQueueOfResults(
   const candidates: SuspectCandidate[] = [];
   const confidence: ConfidenceSums = new Map();
   const recurrence: PairRecurrence = new Map();
+  const appearance: AppearanceSums = new Map();
   const grids = results.map((r, i) => {
     if (!r) return null;
     candidates.push(...suspectCandidates(r, i, s));
     confidenceSumsAdd(confidence, r);
     pairRecurrenceAdd(recurrence, r, s);
+    appearanceSumsAdd(appearance, r);
     return frameGridsOf(r);
   });
-  return suspectQueue({ candidates, grids, confidence, recurrence, className, bandWidth }, s);
+  return suspectQueue({ candidates, grids, confidence, recurrence, appearance, className, bandWidth }, s);
 }

@@ -8,6 +8,8 @@ export interface SuspectSignals {
   agreement: number | null;
   confidence: number | null;
   image: number | null;
+  /** Whether the region looks like its predicted class (1) or its labelled class (0) in the photo (appearanceModel.ts). */
+  appearance: number | null;
   /** Share of the region's cells where the label flips for a few frames while the run does not. */
   temporal: number;
   /** Share of the frames around where the same disagreement recurs under the same label. */
@@ -95,6 +97,11 @@ export function suspectReasons(c: SuspectCandidate, s: SuspectSignals, weights: 
     s.confidence! >= 0.5
       ? `${c.run} is confident here: ${pct(s.confidence!)} of it at or above its usual confidence for ${pred} (${ctx.threshold!.toFixed(2)}; confident learning, Northcutt et al., JAIR 2021)`
       : `${c.run} is unsure here: only ${pct(s.confidence!)} of it reaches its usual confidence for ${pred} (${ctx.threshold!.toFixed(2)})`,
+  );
+  add('appearance', s.appearance, () =>
+    s.appearance! >= 0.5
+      ? `it looks like ${pred} in the photo, not like ${label} (colour and texture against the dataset's undisputed ${pred} and ${label} pixels)`
+      : `it looks like ${label} in the photo, as labelled (colour and texture against the dataset's undisputed ${label} and ${pred} pixels)`,
   );
   if (c.edges) add('image', s.image, () => imageText(c, s.image!));
   add('geometry', s.geometry, () =>

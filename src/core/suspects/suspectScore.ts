@@ -4,13 +4,13 @@ import type { SuspectSignals } from './suspectReasons.ts';
 import type { SuspectSettings } from './suspectSettings.ts';
 
 /** The parts of a score, in score units: the score is 0.5 plus their sum. */
-export const CONTRIBUTION_KEYS = ['agreement', 'confidence', 'image', 'geometry', 'habit', 'temporal', 'steady', 'gate'] as const;
+export const CONTRIBUTION_KEYS = ['agreement', 'confidence', 'appearance', 'image', 'geometry', 'habit', 'temporal', 'steady', 'gate'] as const;
 export type ContributionKey = (typeof CONTRIBUTION_KEYS)[number];
 export type SuspectContributions = Record<ContributionKey, number>;
 
 /** Words for each part in the contributions text. */
 const CONTRIBUTION_WORDS: Record<ContributionKey, string> = {
-  agreement: 'run agreement', confidence: 'confidence', image: 'image edges', geometry: 'shape',
+  agreement: 'run agreement', confidence: 'confidence', appearance: 'appearance', image: 'image edges', geometry: 'shape',
   habit: 'common confusion', temporal: 'label flip', steady: 'steady', gate: 'thin sliver',
 };
 
@@ -21,9 +21,9 @@ export function contributionsZero(): SuspectContributions {
 
 /**
  * Returns the score 0..1 of a region from its signals and what each part contributed (score = 0.5 + Σ):
- * the weighted mean of geometry, agreement, confidence and image (those it has) and a
- * "common confusion" term of value 0 and weight h·(weightAgreement + weightHabit), agreement's weight
- * being weightAgreement·(1 − h) for habit h of its class pair; each term contributes w·(v − 0.5)/Σw.
+ * the weighted mean of geometry, agreement, confidence, appearance and image (those it has) and a
+ * "common confusion" term of value 0 taking weight h·weightAgreement from agreement (which keeps
+ * weightAgreement·(1 − h)) for habit h of its class pair, in one run or several; each term contributes w·(v − 0.5)/Σw.
  * Then raised by a label flip, 1 − (1 − mean)(1 − weightTemporal·flip), lowered by steadiness,
  * ·(1 − weightSteady·steady), and scaled by the geometry gate; each step contributes the change it makes.
  */
@@ -33,8 +33,9 @@ export function suspectScoreOf(v: SuspectSignals, s: SuspectSettings): { score: 
     ['geometry', v.geometry, s.weightGeometry],
     ['agreement', v.agreement, s.weightAgreement * (1 - h)],
     ['confidence', v.confidence, s.weightConfidence],
+    ['appearance', v.appearance, s.weightAppearance],
     ['image', v.image, s.weightImage],
-    ['habit', 0, h * (s.weightAgreement + s.weightHabit)],
+    ['habit', 0, h * s.weightAgreement],
   ];
   const out = contributionsZero();
   let weight = 0;

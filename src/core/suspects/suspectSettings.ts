@@ -11,17 +11,22 @@ export const SUSPECT_DEFAULTS = {
   weightAgreement: 2,
   weightConfidence: 2,
   weightImage: 1,
+  /** Appearance speaks to the class itself, as agreement does, so it weighs as much. */
+  weightAppearance: 2,
+  /** Appearance signal = 0.5 + tanh(log-likelihood ratio / appearanceScale) / 2 (nats per pixel). */
+  appearanceScale: 2,
+  /** Fewest sampled pixels (even rows and columns) of a region, and of each class in the dataset, for an appearance signal. */
+  appearanceMinPixels: 6,
+  appearanceClassMinPixels: 50,
   /** A label flip raises a score: score = 1 − (1 − mean)(1 − weightTemporal · flip). */
   weightTemporal: 0.6,
   /** The same disagreement under the same label in the frames around lowers it: score · (1 − weightSteady · steady). */
   weightSteady: 0.5,
   /**
    * A class pair every run makes in many frames (habit h, pairRecurrence.ts) moves h of agreement's
-   * weight to a "common confusion" term of value 0, and adds weightHabit · h more of it, so a shared
-   * model habit is not read as proof of a wrong label.
+   * weight to a "common confusion" term of value 0, so a shared model habit is not read as proof of a
+   * wrong label. Habit strength is 0 at or below this share of frames showing the pair (in the run where it is rarest)...
    */
-  weightHabit: 1,
-  /** Habit strength is 0 at or below this share of frames showing the pair (in the run where it is rarest)... */
   recurrenceFrom: 0.1,
   /** ... and 1 at or above this share, linear between. */
   recurrenceFull: 0.3,
@@ -74,7 +79,8 @@ export function suspectSettingsCheck(partial: Partial<SuspectSettings> = {}): Re
   for (const key of ['temporalWindow', 'temporalReach', 'perFrameMax', 'queueMax', 'recurrenceMinFrames'] as const) {
     if (!Number.isInteger(s[key])) return fail('', `suspect settings: "${key}" must be a whole number, got ${s[key]}`);
   }
-  if (s.weightGeometry + s.weightAgreement + s.weightConfidence + s.weightImage <= 0) {
+  if (!(s.appearanceScale > 0)) return fail('', `suspect settings: "appearanceScale" must be above 0, got ${s.appearanceScale}`);
+  if (s.weightGeometry + s.weightAgreement + s.weightConfidence + s.weightImage + s.weightAppearance <= 0) {
     return fail('', 'suspect settings: at least one of the weights of geometry, agreement, confidence and image must be above 0');
   }
   return ok(s);

@@ -71,7 +71,7 @@ describe('pairRecurrence', () => {
 });
 
 describe('suspectScoreOf: contributions', () => {
-  const base = { geometry: 0.9, agreement: 1, confidence: null, image: 0.7, temporal: 0, steady: 0, habit: 0 };
+  const base = { geometry: 0.9, agreement: 1, confidence: null, image: 0.7, appearance: null, temporal: 0, steady: 0, habit: 0 };
 
   it('the parts add up to the score, each term w·(v − 0.5)/Σw', () => {
     for (const v of [base, { ...base, habit: 0.5, temporal: 0.4 }, { ...base, geometry: 0.2, steady: 0.6, habit: 1 }]) {
@@ -85,13 +85,13 @@ describe('suspectScoreOf: contributions', () => {
     expect(contributionsText(contributions)).toBe('run agreement +0.25, shape +0.10, image edges +0.05');
   });
 
-  it("a full habit moves agreement's weight to a term of value 0 and adds weightHabit more of it", () => {
+  it("a full habit moves agreement's weight to a term of value 0", () => {
     const { score, contributions } = suspectScoreOf({ ...base, habit: 1 }, S);
-    // Terms: geometry 0.9 (w 1), agreement (w 0), image 0.7 (w 1), common confusion 0 (w 2 + 1).
-    expect(score).toBeCloseTo((0.9 + 0.7) / 5, 12);
-    expect(contributions.habit).toBeCloseTo((3 * -0.5) / 5, 12);
+    // Terms: geometry 0.9 (w 1), agreement (w 0), image 0.7 (w 1), common confusion 0 (w 2).
+    expect(score).toBeCloseTo((0.9 + 0.7) / 4, 12);
+    expect(contributions.habit).toBeCloseTo((2 * -0.5) / 4, 12);
     expect(contributions.agreement).toBe(0);
-    expect(contributionsText(contributions)).toMatch(/^common confusion −0\.30/);
+    expect(contributionsText(contributions)).toMatch(/^common confusion −0\.25/);
   });
 
   it('in the queue: a shared habit ranks below a lone mistake the runs agree on, and says why', () => {
@@ -100,7 +100,7 @@ describe('suspectScoreOf: contributions', () => {
     const cand = (over: Partial<SuspectCandidate>): SuspectCandidate => ({
       frameIndex: 0, frame: 'f0', run: 'a', regionId: 1, truthSegment: 1, kind: 'classConfusion', truthClass: 10, predictedClass: 4,
       bbox: [10, 10, 40, 40], area: 900, thickness: 8, bandShare: 0.1, geometry: 0.95, agreement: 1, agreementRuns: [{ run: 'b', share: 1 }],
-      image: null, edges: null, confidenceHist: null, cells: [], bound: 1, ...over,
+      image: null, edges: null, confidenceHist: null, appearanceHist: null, cells: [], bound: 1, ...over,
     });
     const q = suspectQueue({
       candidates: [cand({}), cand({ frame: 'f5', frameIndex: 5, truthClass: 6, predictedClass: 4, regionId: 2 })],
@@ -108,7 +108,7 @@ describe('suspectScoreOf: contributions', () => {
     }, S);
     expect(q.map((x) => x.frame)).toEqual(['f5', 'f0']);
     expect(q[0].score).toBeCloseTo((0.95 + 2) / 3, 12);
-    expect(q[1].score).toBeCloseTo(0.95 / 4, 12);
+    expect(q[1].score).toBeCloseTo(0.95 / 3, 12);
     expect(q[1].reasons.join(' | ')).toMatch(/every run predicts container where the label says building in many frames \(12 of 20, 60 % in the run where it is rarest\): a common confusion of the models/);
     expect(q[1].contributionsText).toMatch(/common confusion −/);
   });

@@ -16,7 +16,7 @@ function candidate(over: Partial<SuspectCandidate>): SuspectCandidate {
   return {
     frameIndex: 0, frame: 'f0', run: 'a', regionId: 1, truthSegment: 1, kind: 'missedObject', truthClass: 4, predictedClass: 6,
     bbox: [10, 10, 30, 30], area: 400, thickness: 10, bandShare: 0.2, geometry: 0.9, agreement: null, agreementRuns: [],
-    image: null, edges: null, confidenceHist: null, cells: [], bound: 0.9, ...over,
+    image: null, edges: null, confidenceHist: null, appearanceHist: null, cells: [], bound: 0.9, ...over,
   };
 }
 const queue = (cands: SuspectCandidate[], confidence = new Map(), settings = S) =>

@@ -21,7 +21,7 @@ function candidates(seed: number, frames: number): SuspectCandidate[] {
       out.push({
         frameIndex: f, frame: `f${f}`, run: rnd() < 0.5 ? 'a' : 'b', regionId: i, truthSegment: Math.floor(rnd() * 3), kind: 'missedObject',
         truthClass: Math.floor(rnd() * 3), predictedClass: 3 + Math.floor(rnd() * 2), bbox: [x, y, x + w, y + h], area: Math.ceil((w * h) / 2),
-        thickness: 2, bandShare: 0.3, geometry, agreement: null, agreementRuns: [], image: null, edges: null, confidenceHist: null, cells: [], bound: geometry,
+        thickness: 2, bandShare: 0.3, geometry, agreement: null, agreementRuns: [], image: null, edges: null, confidenceHist: null, appearanceHist: null, cells: [], bound: geometry,
       });
     }
   }
@@ -29,7 +29,7 @@ function candidates(seed: number, frames: number): SuspectCandidate[] {
 }
 
 const scoredOf = (c: SuspectCandidate): ScoredCandidate => {
-  const signals = { geometry: c.geometry, agreement: null, confidence: null, image: null, temporal: 0, steady: 0, habit: 0 };
+  const signals = { geometry: c.geometry, agreement: null, confidence: null, image: null, appearance: null, temporal: 0, steady: 0, habit: 0 };
   return { c, signals, score: suspectScore(signals, SUSPECT_DEFAULTS), threshold: null, flip: { share: 0, before: null, after: null } };
 };
 
