@@ -1,6 +1,6 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import { appStart } from '../src/ui/boot.ts';
+import { appStart } from './boot.ts';
 import { FileCheck } from '../src/ui/FileCheck.tsx';
 import { StoreProvider } from '../src/ui/storeContext.tsx';
 import { Workspace } from '../src/ui/Workspace.tsx';

@@ -1,9 +1,9 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { ClassTable } from '../core/classTable.ts';
+import { classTableFromText, type ClassTable } from '../core/classTable.ts';
 import { datasetPairProbed } from '../data/labelGroups.ts';
 import type { Pairing } from '../data/pairing.ts';
-import { classTableRead } from './classesRead.ts';
+import { UsageError } from './args.ts';
 import { filesUnder } from './listFiles.ts';
 import type { ScoreOptions } from './scoreArgs.ts';
 import type { FrameScorePaths } from './scoreThread.ts';
@@ -12,26 +12,45 @@ import type { ScoreSettings } from '../core/metrics/settings.ts';
 /** The dataset the scorer was pointed at: frames paired by stem, the class table, and what did not pair. */
 export interface ScoreDataset {
   pairing: Pairing;
-  /** The table frames are scored with (generated without --classes: `table.generated`). */
-  table: ClassTable;
+  table: ClassTable | null;
   settings: ScoreSettings;
+}
+
+/** Returns the class table from --classes with --ignore applied, or throws UsageError saying what is wrong. */
+async function tableRead(options: ScoreOptions): Promise<ClassTable | null> {
+  if (!options.classes) return null;
+  let text: string;
+  try {
+    text = await readFile(options.classes, 'utf8');
+  } catch (e) {
+    throw new UsageError(`--classes ${options.classes}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  const r = classTableFromText(text, options.classes);
+  if (!r.ok) throw new UsageError(r.error);
+  const table = r.value;
+  if (options.ignore !== null && options.ignore !== table.ignore) {
+    const clash = table.classes.find((c) => c.id === options.ignore);
+    if (clash) throw new UsageError(`--ignore ${options.ignore} is the id of class "${clash.name}" in ${options.classes}`);
+    return { ...table, ignore: options.ignore };
+  }
+  return table;
 }
 
 /** Lists the folders, pairs frames by stem and reads the class table. */
 export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreDataset> {
-  const table = await classTableRead(options.classes, options.ignore);
+  const table = await tableRead(options);
   const truth = await filesUnder(options.truth, 'truth');
   const predictions: Record<string, string[]> = {};
   for (const r of options.runs) predictions[r.name] = await filesUnder(r.dir, 'pred');
   const confidence: Record<string, string[]> = {};
   for (const c of options.confidence) confidence[c.name] = await filesUnder(c.dir, 'confidence');
   const images = options.images ? await filesUnder(options.images, 'images') : [];
-  const ignore = table.ignore;
+  const ignore = table?.ignore ?? options.ignore ?? 255;
   const dirs = new Map<string, string>([['truth', options.truth], ['images', options.images ?? '']]);
   for (const r of options.runs) dirs.set(`predictions/${r.name}`, r.dir);
   for (const c of options.confidence) dirs.set(`confidence/${c.name}`, c.dir);
   const read = async (folder: string, path: string) => new Uint8Array(await readFile(join(dirs.get(folder)!, path)));
-  const pairing = await datasetPairProbed({ truth, predictions, images, confidence }, read, table.generated ? null : table, ignore);
+  const pairing = await datasetPairProbed({ truth, predictions, images, confidence }, read, table, ignore);
   // datasetPair sorts runs by name; the scorer keeps the order given (the first --pred is the report's run).
   pairing.runs = options.runs.map((r) => r.name);
   const settings: ScoreSettings = {

@@ -1,7 +1,6 @@
 import { digestSummary } from '../core/metrics/frameDigest.ts';
 import type { FrameSummary } from '../core/metrics/frameSummary.ts';
 import type { StoredFrame } from './scoresSlice.ts';
-import type { AppState } from './store.ts';
 import type { FrameScoreKey } from './viewSlice.ts';
 
 /** One line of the frame list: the frame's scores for run A, or why it has none. */
@@ -14,37 +13,13 @@ export interface FrameRow {
   summary: FrameSummary | null;
 }
 
-const cache = new WeakMap<StoredFrame, Map<string, FrameSummary | null>>();
-
-/** Returns the summary of `run` on a scored frame at band width `w`, memoised per result. */
-export function resultSummary(result: StoredFrame, run: string, w: number): FrameSummary | null {
-  let byKey = cache.get(result);
-  if (!byKey) cache.set(result, (byKey = new Map()));
-  const key = `${run}\u0000${w}`;
-  if (byKey.has(key)) return byKey.get(key)!;
-  const stats = result.runs.find((r) => r.run === run)?.stats ?? null;
-  const summary = stats ? digestSummary(stats, w) : null;
-  byKey.set(key, summary);
-  return summary;
-}
-
-/** Returns the run the frame list and timeline describe: run A, else the first run. */
-export function shownRun(s: AppState): string | null {
-  return s.runA ?? s.dataset?.pairing.runs[0] ?? null;
-}
-
-/** Returns a row per frame for run A at the current band width. */
-export function frameRowsOf(s: AppState): FrameRow[] {
-  const frames = s.dataset?.pairing.frames ?? [];
-  const run = shownRun(s);
-  const w = s.bandWidth;
-  return frames.map((f, index) => {
-    const r = s.results[index];
-    if (!r) return { index, name: f.name, pending: true, error: null, summary: null };
-    const runError = run ? r.runs.find((x) => x.run === run)?.error ?? null : 'no prediction run';
-    const error = r.error ?? runError;
-    return { index, name: f.name, pending: false, error, summary: error || !run ? null : resultSummary(r, run, w) };
-  });
+/** Returns the frame-list line of frame `index` for `run` at band width `w` (pending while `result` is missing). */
+export function frameRowOf(index: number, name: string, result: StoredFrame | undefined, run: string | null, w: number): FrameRow {
+  if (!result) return { index, name, pending: true, error: null, summary: null };
+  const runResult = run ? result.runs.find((x) => x.run === run) : undefined;
+  const error = result.error ?? (run ? runResult?.error ?? null : 'no prediction run');
+  const stats = runResult?.stats ?? null;
+  return { index, name, pending: false, error, summary: error || !stats ? null : digestSummary(stats, w) };
 }
 
 /** Returns the value of `key` for a row (null when unscored or undefined). Higher is better except error pixels. */
@@ -53,12 +28,10 @@ export function rowValue(row: FrameRow, key: FrameScoreKey): number | null {
   return row.summary[key];
 }
 
-/** Returns frame indices in the frame list's order: by the chosen score, worst first (or best first), unscored last. */
-export function frameOrder(s: AppState): number[] {
-  const rows = frameRowsOf(s);
-  const key = s.frameScore;
+/** Returns frame indices in list order: by `key`, worst first (or best first), unscored last. */
+export function frameOrderOf(rows: readonly FrameRow[], key: FrameScoreKey, worstFirst: boolean): number[] {
   const lowerIsWorse = key !== 'errorPixels';
-  const sign = (s.sortWorstFirst ? 1 : -1) * (lowerIsWorse ? 1 : -1);
+  const sign = (worstFirst ? 1 : -1) * (lowerIsWorse ? 1 : -1);
   return rows
     .slice()
     .sort((a, b) => {

@@ -1,6 +1,5 @@
-import type { ClassTable } from '../core/classTable.ts';
-import type { Result } from '../core/result.ts';
-import { scoringTableBuild } from '../core/scoringTable.ts';
+import { shallow } from 'zustand/vanilla/shallow';
+import { classTableGenerated, type ClassTable } from '../core/classTable.ts';
 import type { FrameJobResult } from '../core/frameJob.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
 import type { FrameFiles } from '../data/pairing.ts';
@@ -12,21 +11,10 @@ import { SCORE_COMMANDS, type FrameScoreRequest } from '../workers/scoreJobs.ts'
 import type { LoadedDataset } from './datasetSlice.ts';
 import type { AppStore } from './store.ts';
 
-/**
- * Returns the table frames are scored with, or why the settings' void id cannot be used with the
- * dataset's table (the rule of scoringTableBuild, the same as the command line's).
- */
-export function scoringTableResult(dataset: LoadedDataset, settings: ScoreSettings): Result<ClassTable> {
-  return scoringTableBuild(dataset.table, settings.ignore);
-}
-
-/**
- * Returns the table to show frames with: the scoring table, or, while the void id is refused, the
- * dataset's own table (scoring then fails every frame with the refusal).
- */
+/** Returns the table frames are scored with: the dataset's, or a generated one; void id from settings. */
 export function scoringTableOf(dataset: LoadedDataset, settings: ScoreSettings): ClassTable {
-  const r = scoringTableResult(dataset, settings);
-  return r.ok ? r.value : dataset.table!;
+  const base = dataset.table ?? classTableGenerated(-1, settings.ignore);
+  return { ...base, ignore: settings.ignore, classes: base.classes.filter((c) => c.id !== settings.ignore) };
 }
 
 async function blobOf(source: DatasetSource, folder: string, path: string | null): Promise<FileBlob | null> {
@@ -61,8 +49,6 @@ function failedResult(frame: FrameFiles, runs: string[], error: string): FrameJo
  */
 export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
   let generation = store.getState().scoring.generation;
-  let lastDataset: LoadedDataset | null = null;
-  let lastSettings: ScoreSettings | null = null;
 
   // Finished frames reach the store in batches (at most every 60 ms): a long dataset then costs a
   // few hundred store updates, not one per frame.
@@ -90,12 +76,9 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     generation++;
     const gen = generation;
     const frames = dataset?.pairing.frames ?? [];
-    const built = dataset ? scoringTableResult(dataset, settings) : null;
-    const table = built?.ok ? built.value : null;
+    const table = dataset ? scoringTableOf(dataset, settings) : null;
     store.getState().scoringStart(gen, frames.length, table && !table.generated ? table.classes.map((c) => c.id) : null);
-    if (!dataset || !built || frames.length === 0) return;
-    // A refused void id fails every frame with the refusal, as the command line refuses to start.
-    if (!built.ok) return frames.forEach((f, i) => deliver(gen, i, failedResult(f, dataset.pairing.runs, built.error)));
+    if (!dataset || !table || frames.length === 0) return;
     const order = frames.map((_, i) => i);
     const first = Math.min(frameIndex, frames.length - 1);
     order.splice(first, 1);
@@ -107,7 +90,7 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
       const frame = frames[index];
       let result: FrameJobResult;
       try {
-        const req = await frameScoreRequest(dataset, frame, built.value, settings);
+        const req = await frameScoreRequest(dataset, frame, table, settings);
         if (gen !== generation) return;
         result = await pool.run(SCORE_COMMANDS.frameScore, req);
       } catch (e) {
@@ -122,16 +105,8 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     for (let i = 0; i < window; i++) void lane();
   }
 
-  const unsubscribe = store.subscribe((s) => {
-    if (s.dataset === lastDataset && s.settings === lastSettings) return;
-    lastDataset = s.dataset;
-    lastSettings = s.settings;
-    restart();
-  });
-  const s = store.getState();
-  lastDataset = s.dataset;
-  lastSettings = s.settings;
-  if (s.dataset) restart();
+  const unsubscribe = store.subscribe((s) => [s.dataset, s.settings] as const, restart, { equalityFn: shallow });
+  if (store.getState().dataset) restart();
   return () => {
     unsubscribe();
     generation++;

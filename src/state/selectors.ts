@@ -1,12 +1,24 @@
+/**
+ * Every value the app derives from its state, memoised in one place. A selector returns the same
+ * object while the state it is made from stays the same, so React (`useApp(sel)`), store subscribers
+ * (`store.subscribe(sel, …)`) and commands can all call it freely and compare answers by identity.
+ */
+import type { ClassInfo, ClassTable } from '../core/classTable.ts';
 import { layerSettingsOf, type LayerSettings, type PixelBox } from '../core/composite/layerSettings.ts';
+import { runsCompareCounts, type RunsCompareCounts } from '../core/runsCompare.ts';
+import { suspectQueueOfResults, type Suspect } from '../core/suspects/suspectQueue.ts';
+import { SUSPECT_DEFAULTS } from '../core/suspects/suspectSettings.ts';
+import { frameOrderOf, frameRowOf, type FrameRow } from './frameRows.ts';
+import { datasetScope, frameScope, type ScopeScores } from './scopeScores.ts';
+import type { StoredFrame } from './scoresSlice.ts';
+import { scoringTableOf } from './scoringRun.ts';
 import type { AppState } from './store.ts';
 
 type Sel<T> = (s: AppState) => T;
 
 /**
  * Returns a selector that computes `combine` of its inputs and returns the previous answer while
- * every input is the same value (`Object.is`) as last time, so a derived object keeps its identity
- * until something it is made from changes (React and store subscribers compare by identity).
+ * every input is the same value (`Object.is`) as last time.
  */
 export function selectorOf<I extends readonly unknown[], R>(inputs: { [K in keyof I]: Sel<I[K]> }, combine: (...args: I) => R): Sel<R> {
   let last: { args: I; value: R } | null = null;
@@ -18,6 +30,101 @@ export function selectorOf<I extends readonly unknown[], R>(inputs: { [K in keyo
   };
 }
 
+const datasetIn: Sel<AppState['dataset']> = (s) => s.dataset;
+const resultsIn: Sel<AppState['results']> = (s) => s.results;
+const bandWidthIn: Sel<number> = (s) => s.bandWidth;
+
+/** Returns the class table frames are scored and coloured with (the void id from the settings), or null without a dataset. */
+export const scoringTableSel: Sel<ClassTable | null> = selectorOf([datasetIn, (s: AppState) => s.settings], (dataset, settings) =>
+  dataset ? scoringTableOf(dataset, settings) : null,
+);
+
+/** Returns the classes of the scoring table by id. */
+export const classInfoSel: Sel<Map<number, ClassInfo>> = selectorOf([scoringTableSel], (table) => new Map((table?.classes ?? []).map((c) => [c.id, c])));
+
+/** Returns the on-screen name of a class id: its table name, `id N` for an id outside the table, "not a class" for null. */
+export const classNameSel: Sel<(id: number | null) => string> = selectorOf([classInfoSel], (classes) => (id: number | null) =>
+  id === null ? 'not a class' : (classes.get(id)?.name ?? `id ${id}`),
+);
+
+/** Returns the run the frame list, timeline and scoreboard describe: run A, else the dataset's first run. */
+export const shownRunSel: Sel<string | null> = (s) => s.runA ?? s.dataset?.pairing.runs[0] ?? null;
+
+/**
+ * Returns one row per frame for the shown run at the band width. While the run and width stay, a
+ * frame whose result is unchanged keeps its row, so a batch of finished frames costs only its own rows.
+ */
+export const frameRowsSel: Sel<FrameRow[]> = (() => {
+  let last: { dataset: AppState['dataset']; results: AppState['results']; run: string | null; w: number; rows: FrameRow[] } | null = null;
+  return (s: AppState) => {
+    const { dataset, results, bandWidth: w } = s;
+    const run = shownRunSel(s);
+    if (last && last.dataset === dataset && last.results === results && last.run === run && last.w === w) return last.rows;
+    const reuse = last && last.dataset === dataset && last.run === run && last.w === w ? last : null;
+    const frames = dataset?.pairing.frames ?? [];
+    const rows = frames.map((f, i) => {
+      const r: StoredFrame | undefined = results[i];
+      return reuse && reuse.results[i] === r && reuse.rows[i] ? reuse.rows[i] : frameRowOf(i, f.name, r, run, w);
+    });
+    last = { dataset, results, run, w, rows };
+    return rows;
+  };
+})();
+
+/** Returns frame indices in the frame list's order (the chosen score, worst first unless flipped, unscored last). */
+export const frameOrderSel: Sel<number[]> = selectorOf(
+  [frameRowsSel, (s: AppState) => s.frameScore, (s: AppState) => s.sortWorstFirst],
+  (rows, key, worstFirst) => frameOrderOf(rows, key, worstFirst),
+);
+
+/**
+ * Returns the likely-label-mistake queue over the frames scored so far (most likely first), the same
+ * pass the headless scorer runs; rebuilt only when frames land or the class names change.
+ */
+export const suspectsSel: Sel<Suspect[]> = selectorOf([datasetIn, resultsIn, classNameSel], (dataset, results, name) =>
+  dataset ? suspectQueueOfResults(results, name, SUSPECT_DEFAULTS) : [],
+);
+
+/** Dataset and current-frame scores of one run at the band width. */
+export interface RunScopes {
+  dataset: ScopeScores | null;
+  frame: ScopeScores | null;
+}
+
+function runScopesSelOf(runOf: Sel<string | null>): Sel<RunScopes> {
+  // Totals are summed in place as frames land (large arrays kept by reference); resultsVersion says when.
+  const datasetSel = selectorOf(
+    [runOf, (s: AppState) => s.totals, (s: AppState) => s.resultsVersion, classInfoSel, bandWidthIn],
+    (run, totals, _version, classes, w) => {
+      const t = run ? totals[run] : undefined;
+      return t && t.frames > 0 ? datasetScope(t, classes, w) : null;
+    },
+  );
+  const frameSel = selectorOf(
+    [runOf, (s: AppState) => s.results[s.frameIndex], classInfoSel, bandWidthIn],
+    (run, result, classes, w) => {
+      const stats = run ? result?.runs.find((r) => r.run === run)?.stats ?? null : null;
+      return stats ? frameScope(stats, classes, w) : null;
+    },
+  );
+  return selectorOf([datasetSel, frameSel], (dataset, frame) => ({ dataset, frame }));
+}
+
+/** Returns the scores of the shown run (run A): dataset totals so far and the current frame. */
+export const scopesASel: Sel<RunScopes> = runScopesSelOf(shownRunSel);
+/** Returns the scores of run B (both null without one). */
+export const scopesBSel: Sel<RunScopes> = runScopesSelOf((s) => s.runB);
+
+/** Returns the pixels run B fixed and broke against run A on the frame on screen, or null when either is missing. */
+export const compareCountsSel: Sel<RunsCompareCounts | null> = selectorOf(
+  [(s: AppState) => s.shown, shownRunSel, (s: AppState) => s.runB, (s: AppState) => s.settings.ignore],
+  (shown, runA, runB, ignore) => {
+    const a = runA ? shown?.preds[runA] : undefined;
+    const b = runB ? shown?.preds[runB] : undefined;
+    return shown?.truth && a && b ? runsCompareCounts(shown.truth, a, b, ignore) : null;
+  },
+);
+
 const NO_BOXES: PixelBox[] = [];
 
 /** Returns the outline boxes: the focused box, if any (image pixels). */
@@ -27,6 +134,6 @@ export const highlightBoxesSel: Sel<PixelBox[]> = selectorOf([(s: AppState) => s
 
 /** Returns what the compositor draws: the layer looks with run A, run B, the band width and the focus outline put in. */
 export const layerSettingsSel: Sel<LayerSettings> = selectorOf(
-  [(s: AppState) => s.layers, (s: AppState) => s.runA, (s: AppState) => s.runB, (s: AppState) => s.bandWidth, highlightBoxesSel],
+  [(s: AppState) => s.layers, (s: AppState) => s.runA, (s: AppState) => s.runB, bandWidthIn, highlightBoxesSel],
   (looks, runA, runB, bandWidth, boxes) => layerSettingsOf(looks, { runA, runB, bandWidth, boxes }),
 );

@@ -1,7 +1,7 @@
 import type { ViewPool } from '../workers/scorePool.ts';
+import { shallow } from 'zustand/vanilla/shallow';
 import { frameCacheCreate, type FrameCache } from './frameCache.ts';
-import type { LoadedDataset } from './datasetSlice.ts';
-import { scoringTableOf } from './scoringRun.ts';
+import { scoringTableSel } from './selectors.ts';
 import type { AppStore } from './store.ts';
 
 /** Neighbours decoded ahead of the cursor, nearest first (forward is the usual direction of review). */
@@ -14,23 +14,22 @@ const PREFETCH = [1, -1, 2];
  */
 export function shownKeep(store: AppStore, pool: ViewPool): () => void {
   let cache: FrameCache | null = null;
-  let cacheFor: LoadedDataset | null = null;
-  let cacheIgnore = -1;
   let wanted = -1;
 
+  // A new dataset or void id decodes with a new table, so the cache starts over.
+  function cacheRenew(): void {
+    const s = store.getState();
+    const table = scoringTableSel(s);
+    cache = s.dataset && table && s.dataset.pairing.frames.length > 0 ? frameCacheCreate(s.dataset, table, pool) : null;
+    wanted = -1;
+    update();
+  }
+
   function update(): void {
-    const { dataset, frameIndex, settings } = store.getState();
-    if (!dataset || dataset.pairing.frames.length === 0) {
-      cache = null;
-      cacheFor = null;
+    const { frameIndex } = store.getState();
+    if (!cache) {
       if (store.getState().shown) store.getState().shownSet(-1, null, null);
       return;
-    }
-    if (dataset !== cacheFor || settings.ignore !== cacheIgnore) {
-      cache = frameCacheCreate(dataset, scoringTableOf(dataset, settings), pool);
-      cacheFor = dataset;
-      cacheIgnore = settings.ignore;
-      wanted = -1;
     }
     if (frameIndex === wanted) return;
     wanted = frameIndex;
@@ -49,9 +48,10 @@ export function shownKeep(store: AppStore, pool: ViewPool): () => void {
     );
   }
 
-  const unsubscribe = store.subscribe((s, prev) => {
-    if (s.dataset !== prev.dataset || s.frameIndex !== prev.frameIndex || s.settings.ignore !== prev.settings.ignore) update();
-  });
-  update();
-  return unsubscribe;
+  const stops = [
+    store.subscribe((s) => [s.dataset, s.settings.ignore] as const, cacheRenew, { equalityFn: shallow }),
+    store.subscribe((s) => s.frameIndex, update),
+  ];
+  cacheRenew();
+  return () => stops.forEach((stop) => stop());
 }

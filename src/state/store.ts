@@ -1,4 +1,5 @@
-import { createStore, type StoreApi } from 'zustand/vanilla';
+import { subscribeWithSelector } from 'zustand/middleware';
+import { createStore, type Mutate, type StoreApi } from 'zustand/vanilla';
 import { datasetSlice, type DatasetSlice } from './datasetSlice.ts';
 import { reviewSlice, type ReviewSlice } from './reviewSlice.ts';
 import { scoresSlice, type ScoresSlice } from './scoresSlice.ts';
@@ -8,16 +9,22 @@ import { viewSlice, type ViewSlice } from './viewSlice.ts';
 
 /** Everything the app holds: the dataset, score settings, per-frame scores, the view and the review (flags). */
 export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice & ShownSlice & ReviewSlice;
-export type AppStore = StoreApi<AppState>;
+/**
+ * The app store: `subscribe(listener)`, and `subscribe(selector, listener, { equalityFn })` to hear
+ * only when a selected value changes (zustand's subscribeWithSelector).
+ */
+export type AppStore = Mutate<StoreApi<AppState>, [['zustand/subscribeWithSelector', never]]>;
 
 /** Returns a new app store combining every slice (usable without React: getState/subscribe). */
 export function appStoreCreate(): AppStore {
-  return createStore<AppState>()((...a) => ({
-    ...datasetSlice(...a),
-    ...settingsSlice(...a),
-    ...scoresSlice(...a),
-    ...viewSlice(...a),
-    ...shownSlice(...a),
-    ...reviewSlice(...a),
-  }));
+  return createStore<AppState>()(
+    subscribeWithSelector((...a) => ({
+      ...datasetSlice(...a),
+      ...settingsSlice(...a),
+      ...scoresSlice(...a),
+      ...viewSlice(...a),
+      ...shownSlice(...a),
+      ...reviewSlice(...a),
+    })),
+  );
 }

@@ -1,3 +1,4 @@
+import { shallow } from 'zustand/vanilla/shallow';
 import { LAYER_KEYS, type LayerKey, type LayerLooks } from '../core/composite/layerSettings.ts';
 import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
 import type { AppState, AppStore } from './store.ts';
@@ -96,11 +97,14 @@ export function urlViewKeep(store: AppStore): () => void {
     last = hash;
     history.replaceState(null, '', `${location.pathname}${location.search}#${hash}`);
   };
-  const unsub = store.subscribe((s, prev) => {
-    if (s.frameIndex === prev.frameIndex && s.layers === prev.layers && s.runA === prev.runA && s.runB === prev.runB && s.bandWidth === prev.bandWidth && s.place === prev.place && s.dataset === prev.dataset) return;
-    clearTimeout(timer);
-    timer = window.setTimeout(write, 120);
-  });
+  const unsub = store.subscribe(
+    (s) => [s.dataset, s.frameIndex, s.layers, s.runA, s.runB, s.bandWidth, s.place] as const,
+    () => {
+      clearTimeout(timer);
+      timer = window.setTimeout(write, 120);
+    },
+    { equalityFn: shallow },
+  );
   return () => {
     unsub();
     clearTimeout(timer);

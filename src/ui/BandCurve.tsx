@@ -1,5 +1,5 @@
 import { pct } from './format.ts';
-import type { ScopeScores } from './scoreboardData.ts';
+import type { ScopeScores } from '../state/scopeScores.ts';
 import { useAppStore } from './storeContext.tsx';
 
 const W = 320;

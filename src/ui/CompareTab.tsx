@@ -1,9 +1,7 @@
-import { useMemo } from 'react';
-import { runsCompareCounts } from '../core/runsCompare.ts';
+import type { ScopeScores } from '../state/scopeScores.ts';
+import { compareCountsSel, scopesASel, scopesBSel } from '../state/selectors.ts';
 import { count, pct } from './format.ts';
-import type { ScopeScores } from './scoreboardData.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
-import { useScopes } from './useScopes.ts';
 
 function delta(a: number | null | undefined, b: number | null | undefined): string {
   if (a === null || a === undefined || b === null || b === undefined) return '';
@@ -53,15 +51,9 @@ function Side({ a, b, scope }: { a: ScopeScores | null; b: ScopeScores | null; s
 export function CompareTab({ runA, runB }: { runA: string | null; runB: string | null }) {
   const store = useAppStore();
   const runs = useApp((s) => s.dataset?.pairing.runs);
-  const shown = useApp((s) => s.shown);
-  const ignore = useApp((s) => s.settings.ignore);
-  const A = useScopes(runA);
-  const B = useScopes(runB);
-  const counts = useMemo(() => {
-    const a = runA ? shown?.preds[runA] : undefined;
-    const b = runB ? shown?.preds[runB] : undefined;
-    return shown?.truth && a && b ? runsCompareCounts(shown.truth, a, b, ignore) : null;
-  }, [shown, runA, runB, ignore]);
+  const A = useApp(scopesASel);
+  const B = useApp(scopesBSel);
+  const counts = useApp(compareCountsSel);
   if (!runB || !runA) {
     const other = runs?.find((r) => r !== runA);
     return (

@@ -2,7 +2,7 @@ import { useMemo, useState } from 'react';
 import type { ClassInfo } from '../core/classTable.ts';
 import type { StoredFrame } from '../state/scoresSlice.ts';
 import { count } from './format.ts';
-import type { ScopeScores } from './scoreboardData.ts';
+import type { ScopeScores } from '../state/scopeScores.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 
 /** Returns the frames with the most pixels of truth `g` predicted as column `p` (by id; -1 = invalid). */

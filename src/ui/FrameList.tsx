@@ -1,5 +1,6 @@
-import { useEffect, useMemo, useRef, useState } from 'react';
-import { frameOrder, frameRowsOf, rowValue, type FrameRow } from '../state/frameRows.ts';
+import { useEffect, useRef, useState } from 'react';
+import { rowValue, type FrameRow } from '../state/frameRows.ts';
+import { frameOrderSel, frameRowsSel } from '../state/selectors.ts';
 import type { FrameScoreKey } from '../state/viewSlice.ts';
 import { countShort, pct } from './format.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
@@ -23,15 +24,12 @@ function cell(row: FrameRow, key: FrameScoreKey): string {
 /** The frame list: every frame with its scores for run A, sortable, virtualised for long datasets. */
 export function FrameList() {
   const store = useAppStore();
-  const results = useApp((s) => s.results);
-  const dataset = useApp((s) => s.dataset);
-  const runA = useApp((s) => s.runA);
   const bandWidth = useApp((s) => s.bandWidth);
   const sortKey = useApp((s) => s.frameScore);
   const worstFirst = useApp((s) => s.sortWorstFirst);
   const current = useApp((s) => s.frameIndex);
-  const rows = useMemo(() => frameRowsOf(store.getState()), [store, results, dataset, runA, bandWidth]);
-  const order = useMemo(() => frameOrder(store.getState()), [store, rows, sortKey, worstFirst]);
+  const rows = useApp(frameRowsSel);
+  const order = useApp(frameOrderSel);
   const scroller = useRef<HTMLDivElement>(null);
   const [scrollTop, setScrollTop] = useState(0);
   const [height, setHeight] = useState(400);

@@ -1,6 +1,5 @@
-import { useMemo } from 'react';
 import type { DisagreeMode, LayerKey } from '../core/composite/layerSettings.ts';
-import { scoringTableOf } from '../state/scoringRun.ts';
+import { scoringTableSel } from '../state/selectors.ts';
 import { APP_COMMANDS } from './commands/appCommands.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 
@@ -46,9 +45,7 @@ function LayerChip({ k }: { k: LayerKey }) {
 export function LayerBar() {
   const store = useAppStore();
   const layers = useApp((s) => s.layers);
-  const dataset = useApp((s) => s.dataset);
-  const settings = useApp((s) => s.settings);
-  const classes = useMemo(() => (dataset ? scoringTableOf(dataset, settings).classes : []), [dataset, settings]);
+  const classes = useApp(scoringTableSel)?.classes ?? [];
   const width = useApp((s) => s.shown?.width ?? 0);
   const set = store.getState().layersSet;
   return (

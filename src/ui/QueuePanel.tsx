@@ -2,8 +2,7 @@ import { useMemo, useState } from 'react';
 import { REGION_KINDS } from '../core/regions/regionTypes.ts';
 import { suspectKey, type SuspectVerdictKind } from '../core/review/verdict.ts';
 import type { Suspect } from '../core/suspects/suspectQueue.ts';
-import { scoringTableOf } from '../state/scoringRun.ts';
-import { suspectsOf } from '../state/suspectsOf.ts';
+import { classNameSel, suspectsSel } from '../state/selectors.ts';
 import { KIND_NAMES, VERDICT_NAMES } from './regionWords.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 import { Thumb } from './Thumb.tsx';
@@ -16,22 +15,15 @@ function suspectRefOf(s: Suspect) {
 /** The dataset-wide "likely label mistakes" queue: filter, thumbnails, reasons, verdicts; click to inspect. */
 export function QueuePanel() {
   const store = useAppStore();
-  const version = useApp((s) => s.resultsVersion);
   const dataset = useApp((s) => s.dataset);
-  const settings = useApp((s) => s.settings);
   const verdicts = useApp((s) => s.reviewVerdicts);
   const selected = useApp((s) => s.queueSelected);
   const [kind, setKind] = useState('');
   const [pair, setPair] = useState('');
   const [run, setRun] = useState('');
   const [hideJudged, setHideJudged] = useState(false);
-  const queue = useMemo(() => suspectsOf(store.getState()), [store, version, dataset]);
-  const names = useMemo(() => {
-    const m = new Map<number, string>();
-    if (dataset) for (const c of scoringTableOf(dataset, settings).classes) m.set(c.id, c.name);
-    return m;
-  }, [dataset, settings]);
-  const name = (id: number | null) => (id === null ? 'not a class' : (names.get(id) ?? `id ${id}`));
+  const queue = useApp(suspectsSel);
+  const name = useApp(classNameSel);
   const pairs = useMemo(() => [...new Set(queue.map((q) => `${q.truthClass}>${q.predictedClass}`))], [queue]);
   const shown = queue.filter(
     (q) =>

@@ -1,7 +1,7 @@
 import { useEffect, useRef } from 'react';
 import { classTableFind } from '../core/classTable.ts';
 import { truthBoundaryDistanceAt } from '../core/pointDistance.ts';
-import { scoringTableOf } from '../state/scoringRun.ts';
+import { scoringTableSel } from '../state/selectors.ts';
 import type { Viewer } from '../view/viewer.ts';
 import { useAppStore } from './storeContext.tsx';
 
@@ -19,11 +19,11 @@ export function Readout({ viewer }: { viewer: Viewer }) {
         if (!el) return;
         const s = store.getState();
         const f = s.shown;
-        if (!p || !f?.truth || !s.dataset) {
+        const table = scoringTableSel(s);
+        if (!p || !f?.truth || !s.dataset || !table) {
           el.textContent = 'point at the frame to read classes';
           return;
         }
-        const table = scoringTableOf(s.dataset, s.settings);
         const name = (id: number) => (id === table.ignore ? 'void' : (classTableFind(table, id)?.name ?? `not a class (${id})`));
         const i = p.y * f.width + p.x;
         const parts = [`x ${p.x}  y ${p.y}`, `truth: ${name(f.truth.ids[i])}`];

@@ -1,7 +1,5 @@
-import { useMemo } from 'react';
 import { REGION_KINDS } from '../core/regions/regionTypes.ts';
-import { shownRun } from '../state/frameRows.ts';
-import { scoringTableOf } from '../state/scoringRun.ts';
+import { classNameSel, shownRunSel } from '../state/selectors.ts';
 import { count } from './format.ts';
 import { KIND_NAMES } from './regionWords.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
@@ -9,14 +7,11 @@ import { useApp, useAppStore } from './storeContext.tsx';
 /** The current frame's error regions for run A: counts by kind, then the listed regions, worst first. */
 export function RegionsTab() {
   const store = useAppStore();
-  const run = useApp(shownRun);
+  const run = useApp(shownRunSel);
   const frameIndex = useApp((s) => s.frameIndex);
   const result = useApp((s) => s.results[s.frameIndex]);
-  const dataset = useApp((s) => s.dataset);
-  const settings = useApp((s) => s.settings);
   const focus = useApp((s) => s.focusBox);
-  const names = useMemo(() => new Map((dataset ? scoringTableOf(dataset, settings).classes : []).map((c) => [c.id, c.name])), [dataset, settings]);
-  const name = (id: number | null) => (id === null ? 'not a class' : (names.get(id) ?? `id ${id}`));
+  const name = useApp(classNameSel);
   const regions = run ? result?.runs.find((r) => r.run === run)?.regions ?? null : null;
   if (!result) return <p className="dim">This frame has not been scored yet.</p>;
   if (!regions) return <p className="dim">No error regions for this frame{result.error ? `: ${result.error}` : ''}.</p>;

@@ -1,5 +1,4 @@
 import { useState } from 'react';
-import { shownRun } from '../state/frameRows.ts';
 import { stateReport } from '../state/stateReport.ts';
 import { downloadBlob } from './download.ts';
 import { BandCurve } from './BandCurve.tsx';
@@ -8,9 +7,9 @@ import { ConfusionMap } from './ConfusionMap.tsx';
 import { RegionsTab } from './RegionsTab.tsx';
 import { SettingsTab } from './SettingsTab.tsx';
 import { pct } from './format.ts';
-import type { ScopeScores } from './scoreboardData.ts';
+import type { ScopeScores } from '../state/scopeScores.ts';
+import { classInfoSel, scopesASel, scopesBSel, shownRunSel } from '../state/selectors.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
-import { useScopes } from './useScopes.ts';
 
 const TABS = ['scores', 'regions', 'confusion', 'band', 'compare', 'settings'] as const;
 type Tab = (typeof TABS)[number];
@@ -96,11 +95,12 @@ function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: 
 export function Scoreboard() {
   const store = useAppStore();
   const [tab, setTab] = useState<Tab>('scores');
-  const run = useApp(shownRun);
+  const run = useApp(shownRunSel);
   const runB = useApp((s) => s.runB);
   const w = useApp((s) => s.bandWidth);
-  const { dataset, frame, classes } = useScopes(run);
-  const scopesB = useScopes(runB);
+  const { dataset, frame } = useApp(scopesASel);
+  const classes = useApp(classInfoSel);
+  const scopesB = useApp(scopesBSel);
   return (
     <div className="scoreboard">
       <div className="tabs" role="tablist">

@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef } from 'react';
-import { frameRowsOf, rowValue } from '../state/frameRows.ts';
+import { rowValue } from '../state/frameRows.ts';
+import { frameRowsSel } from '../state/selectors.ts';
 import { scoreColor } from './format.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 
@@ -23,20 +24,18 @@ function stripColors(values: (number | null)[], failed: boolean[], higherIsBette
 /** A strip of every frame coloured by the chosen score; click or drag to jump, with play controls. */
 export function Timeline() {
   const store = useAppStore();
-  const results = useApp((s) => s.results);
   const key = useApp((s) => s.frameScore);
   const current = useApp((s) => s.frameIndex);
   const playing = useApp((s) => s.playing);
   const rate = useApp((s) => s.playRate);
-  const runA = useApp((s) => s.runA);
-  const bandWidth = useApp((s) => s.bandWidth);
+  const rows = useApp(frameRowsSel);
   const count = useApp((s) => s.dataset?.pairing.frames.length ?? 0);
   const canvas = useRef<HTMLCanvasElement>(null);
 
-  const colors = useMemo(() => {
-    const rows = frameRowsOf(store.getState());
-    return stripColors(rows.map((r) => rowValue(r, key)), rows.map((r) => r.error !== null), key !== 'errorPixels');
-  }, [store, results, key, runA, bandWidth]);
+  const colors = useMemo(
+    () => stripColors(rows.map((r) => rowValue(r, key)), rows.map((r) => r.error !== null), key !== 'errorPixels'),
+    [rows, key],
+  );
 
   useEffect(() => {
     const c = canvas.current;

@@ -1,7 +1,6 @@
 import type { LayerKey } from '../../core/composite/layerSettings.ts';
-import { frameOrder } from '../../state/frameRows.ts';
+import { frameOrderSel, suspectsSel } from '../../state/selectors.ts';
 import { suspectKey, type SuspectVerdictKind } from '../../core/review/verdict.ts';
-import { suspectsOf } from '../../state/suspectsOf.ts';
 import type { Suspect } from '../../core/suspects/suspectQueue.ts';
 
 /** The verdict identity of a queue item. */
@@ -32,7 +31,7 @@ function layerToggle(key: LayerKey, label: string, keys: string[]): Command {
 /** Moves along the frame list's current order (the order the user sorted by) by `step`. */
 function frameStepInOrder(ctx: CommandContext, step: number): void {
   const s = ctx.store.getState();
-  const order = frameOrder(s);
+  const order = frameOrderSel(s);
   const at = order.indexOf(s.frameIndex);
   const next = order[Math.max(0, Math.min(order.length - 1, (at < 0 ? -1 : at) + step))];
   if (next !== undefined) s.frameIndexSet(next);
@@ -41,7 +40,7 @@ function frameStepInOrder(ctx: CommandContext, step: number): void {
 /** Moves the queue selection by `step` (selecting the first item when none is selected). */
 function queueStep(ctx: CommandContext, step: number): void {
   const s = ctx.store.getState();
-  const queue = suspectsOf(s);
+  const queue = suspectsSel(s);
   if (queue.length === 0) return;
   const keys = queue.map((q) => suspectKey(q));
   const at = s.queueSelected ? keys.indexOf(s.queueSelected) : -1;
@@ -60,7 +59,7 @@ function verdictCommand(v: SuspectVerdictKind, label: string, key: string): Comm
     enabled: ({ store }) => store.getState().queueSelected !== null,
     run: ({ store }) => {
       const s = store.getState();
-      const q = suspectsOf(s).find((x) => suspectKey(x) === s.queueSelected);
+      const q = suspectsSel(s).find((x) => suspectKey(x) === s.queueSelected);
       if (!q) return;
       const ref = suspectRefOf(q);
       s.verdictSet(ref, s.reviewVerdicts[suspectKey(ref)]?.verdict === v ? null : v);
@@ -73,7 +72,7 @@ function flagSelected(ctx: CommandContext): void {
   const s = ctx.store.getState();
   const frame = s.dataset?.pairing.frames[s.frameIndex]?.name;
   if (!frame) return;
-  const q = s.queueSelected ? suspectsOf(s).find((x) => suspectKey(x) === s.queueSelected) : undefined;
+  const q = s.queueSelected ? suspectsSel(s).find((x) => suspectKey(x) === s.queueSelected) : undefined;
   if (q && q.frameIndex === s.frameIndex) {
     s.flagDraftSet({
       frame, kind: 'region', bbox: q.bbox, reason: 'label-mistake', run: q.run,
@@ -175,11 +174,11 @@ export const APP_COMMANDS: Command[] = [
   },
   {
     id: 'queue.next', label: 'Next likely label mistake', group: 'Likely label mistakes', keys: ['Q'],
-    enabled: ({ store }) => suspectsOf(store.getState()).length > 0, run: (ctx) => queueStep(ctx, 1),
+    enabled: ({ store }) => suspectsSel(store.getState()).length > 0, run: (ctx) => queueStep(ctx, 1),
   },
   {
     id: 'queue.prev', label: 'Previous likely label mistake', group: 'Likely label mistakes', keys: ['Shift+Q'],
-    enabled: ({ store }) => suspectsOf(store.getState()).length > 0, run: (ctx) => queueStep(ctx, -1),
+    enabled: ({ store }) => suspectsSel(store.getState()).length > 0, run: (ctx) => queueStep(ctx, -1),
   },
   verdictCommand('label-mistake', 'label mistake', 'L'),
   verdictCommand('model-error', 'model error', 'E'),

@@ -2,6 +2,7 @@ import type { ClassInfo } from '../core/classTable.ts';
 import type { DatasetTotals } from '../core/metrics/datasetTotals.ts';
 import { digestBandScores, digestCurve, type FrameDigest } from '../core/metrics/frameDigest.ts';
 import { boundaryFOfClass } from '../core/metrics/frameSummary.ts';
+import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
 import { bandConfusions, iouFamily } from '../core/metrics/iouFamily.ts';
 
 /** One row of the per-class table, for the dataset or a frame (ratios 0..1, null where undefined). */
@@ -33,7 +34,7 @@ export interface ScopeScores {
   /** K × (K+1) confusion (dataset sums or frame counts). */
   confusion: ArrayLike<number>;
   classIds: number[];
-  /** Band curve, widths 0..64. */
+  /** Band curve, widths 0..BAND_WIDTH_MAX. */
   curve: { width: number; meanIoU: number | null; pixelAccuracy: number | null }[];
 }
 
@@ -101,7 +102,7 @@ export function datasetScope(t: DatasetTotals, classes: Map<number, ClassInfo>, 
       ...t,
       bfOf: (c) => (t.bfClassCount[c] > 0 ? t.bfClassSum[c] / t.bfClassCount[c] : null),
       bandAt: (width) => {
-        const f = fams[Math.max(0, Math.min(64, Math.round(width)))];
+        const f = fams[Math.max(0, Math.min(BAND_WIDTH_MAX, Math.round(width)))];
         return { iou: f.perClass.map((p) => p.iou), meanIoU: f.meanIoU, pixelAccuracy: f.pixelAccuracy };
       },
       curve: () => fams.map((f, width) => ({ width, meanIoU: f.meanIoU, pixelAccuracy: f.pixelAccuracy })),

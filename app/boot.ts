@@ -1,20 +1,20 @@
-import { demoOptionsCheck, type DemoOptions } from '../demo/options.ts';
-import { demoSourceOpen } from '../data/sources/demoSource.ts';
-import type { Result } from '../core/result.ts';
-import type { LayerSettings } from '../core/composite/layerSettings.ts';
-import { layerSettingsSel } from '../state/selectors.ts';
-import type { ScoreReport } from '../core/metrics/report.ts';
-import { stateReport } from '../state/stateReport.ts';
-import { servedSourceOpen } from '../data/sources/servedSource.ts';
-import { datasetFromSource, datasetInstall } from '../state/datasetLoad.ts';
-import { scoringKeep } from '../state/scoringRun.ts';
-import { shownKeep } from '../state/shownKeep.ts';
-import { appStoreCreate, type AppStore } from '../state/store.ts';
-import { reviewBackendIdb } from '../state/reviewBackendIdb.ts';
-import { reviewChannelOpen } from '../state/reviewChannel.ts';
-import { reviewKeep } from '../state/reviewKeep.ts';
-import { urlViewApply, urlViewDecode, urlViewKeep, type UrlView } from '../state/urlState.ts';
-import { scorePoolCreate, viewPoolCreate, type ScorePool, type ViewPool } from '../workers/scorePool.ts';
+import { demoOptionsCheck, type DemoOptions } from '../src/demo/options.ts';
+import { demoSourceOpen } from '../src/data/sources/demoSource.ts';
+import type { Result } from '../src/core/result.ts';
+import type { LayerSettings } from '../src/core/composite/layerSettings.ts';
+import { layerSettingsSel } from '../src/state/selectors.ts';
+import type { ScoreReport } from '../src/core/metrics/report.ts';
+import { stateReport } from '../src/state/stateReport.ts';
+import { servedSourceOpen } from '../src/data/sources/servedSource.ts';
+import { datasetFromSource, datasetInstall } from '../src/state/datasetLoad.ts';
+import { scoringKeep } from '../src/state/scoringRun.ts';
+import { shownKeep } from '../src/state/shownKeep.ts';
+import { appStoreCreate, type AppStore } from '../src/state/store.ts';
+import { reviewBackendIdb } from '../src/state/reviewBackendIdb.ts';
+import { reviewChannelOpen } from '../src/state/reviewChannel.ts';
+import { reviewKeep } from '../src/state/reviewKeep.ts';
+import { urlViewApply, urlViewDecode, urlViewKeep, type UrlView } from '../src/state/urlState.ts';
+import { scorePoolCreate, viewPoolCreate, type ScorePool, type ViewPool } from '../src/workers/scorePool.ts';
 
 /** The running app: its store, worker pools, and the function that stops everything. */
 export interface AppRuntime {

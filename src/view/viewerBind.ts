@@ -1,0 +1,120 @@
+import { shallow } from 'zustand/vanilla/shallow';
+import { compositePaletteFromTable } from '../core/composite/compositePalette.ts';
+import type { LayerSettings } from '../core/composite/layerSettings.ts';
+import { layerSettingsSel, scoringTableSel } from '../state/selectors.ts';
+import type { AppStore } from '../state/store.ts';
+import type { FrameCompositeRequest } from '../workers/viewJobs.ts';
+import type { Viewer } from './viewer.ts';
+
+/** The part of a viewer the binding drives (a test can hand in a stand-in). */
+export type BindableViewer = Pick<
+  Viewer,
+  'mode' | 'frameSet' | 'paletteSet' | 'layersSet' | 'compositeSet' | 'gridSet' | 'viewFit' | 'viewGet' | 'viewSet' | 'onViewChange'
+>;
+
+export interface ViewerBindOptions {
+  /** Colours a frame off the main thread, for a viewer without WebGL (the view worker's frameComposite). */
+  compose(request: FrameCompositeRequest): Promise<Uint8Array>;
+  /** Told why the viewer refused the frame on screen (over its size limit), or null when it took it. */
+  onRefused(message: string | null): void;
+  /** The canvas size in device pixels, for zooming onto a focused box. */
+  canvasSize(): { width: number; height: number };
+  /** How long the view must rest after panning or zooming before the store hears of it, ms. */
+  settleMs?: number;
+}
+
+/**
+ * Returns true when two layer settings draw the same picture because the only difference is the band
+ * width while the band layer is off (the band slider then updates numbers without a redraw).
+ */
+export function layersLookAlike(a: LayerSettings, b: LayerSettings): boolean {
+  if (a === b) return true;
+  if (a.band.on || b.band.on) return false;
+  const { band: ba, highlight: ha, ...ra } = a;
+  const { band: bb, highlight: hb, ...rb } = b;
+  if (ba.opacity !== bb.opacity || ba.side !== bb.side) return false;
+  if (ha.on !== hb.on || ha.opacity !== hb.opacity || ha.side !== hb.side || ha.thickness !== hb.thickness || ha.boxes !== hb.boxes) return false;
+  const keys = Object.keys(ra) as (keyof typeof ra)[];
+  return keys.every((k) => ra[k] === rb[k]);
+}
+
+/** Returns the view that shows `box` (image pixels, end-exclusive) three times over, centred, in a canvas of `size` device pixels. */
+export function viewOfBox(box: readonly [number, number, number, number], size: { width: number; height: number }): { cx: number; cy: number; scale: number } {
+  const [x0, y0, x1, y1] = box;
+  const bw = Math.max(8, x1 - x0), bh = Math.max(8, y1 - y0);
+  const scale = Math.max(0.05, Math.min(16, size.width / (bw * 3), size.height / (bh * 3)));
+  return { cx: (x0 + x1) / 2, cy: (y0 + y1) / 2, scale };
+}
+
+/**
+ * Wires a viewer to the store without React: each store value the viewer shows is passed to it when
+ * that value changes (the viewer redraws at most once per animation frame), and the view the user
+ * pans to goes back to the store once it rests. Without WebGL the same layers are coloured by
+ * `compose` and shown as an image. Returns a stop function.
+ */
+export function viewerBind(store: AppStore, viewer: BindableViewer, options: ViewerBindOptions): () => void {
+  let composing = 0;
+  const recompose = () => {
+    if (viewer.mode !== 'none') return;
+    const s = store.getState();
+    const table = scoringTableSel(s);
+    if (!s.shown || !table) return void viewer.compositeSet(null);
+    const ticket = ++composing;
+    // Copies (not transfers): the decoded frame stays with the cache for the next redraw.
+    void options.compose({ frame: s.shown, layers: layerSettingsSel(s), palette: compositePaletteFromTable(table) }).then(
+      (rgba) => ticket === composing && viewer.compositeSet(rgba),
+      () => {},
+    );
+  };
+  const paletteApply = () => {
+    const table = scoringTableSel(store.getState());
+    if (table) viewer.paletteSet(compositePaletteFromTable(table));
+  };
+  const frameApply = () => {
+    // The viewer refuses frames it cannot show (over 8192 px on a side); say so instead of a blank.
+    const r = viewer.frameSet(store.getState().shown);
+    options.onRefused(r.ok ? null : r.error);
+  };
+  const placeApply = () => {
+    const { place } = store.getState();
+    if (place === null) return viewer.viewFit();
+    const v = viewer.viewGet();
+    if (v.cx !== place.cx || v.cy !== place.cy || v.scale !== place.scale) viewer.viewSet(place);
+  };
+  // Centre and zoom on a focused box once its frame is the one drawn, once per focus.
+  let focusedSeq = -1;
+  const focusApply = () => {
+    const s = store.getState();
+    if (!s.focusBox || !s.shown || s.shownIndex !== s.frameIndex || focusedSeq === s.focusSeq) return;
+    focusedSeq = s.focusSeq;
+    viewer.viewSet(viewOfBox(s.focusBox, options.canvasSize()));
+  };
+
+  paletteApply();
+  frameApply();
+  viewer.layersSet(layerSettingsSel(store.getState()));
+  viewer.gridSet(store.getState().pixelGrid);
+  placeApply();
+  focusApply();
+  recompose();
+
+  const stops = [
+    store.subscribe((s) => [s.dataset, s.settings.ignore] as const, paletteApply, { equalityFn: shallow }),
+    store.subscribe((s) => s.shown, frameApply),
+    store.subscribe(layerSettingsSel, (l) => viewer.layersSet(l), { equalityFn: layersLookAlike }),
+    store.subscribe((s) => s.pixelGrid, (on) => viewer.gridSet(on)),
+    store.subscribe((s) => s.place, placeApply),
+    store.subscribe((s) => [s.focusSeq, s.shown] as const, focusApply, { equalityFn: shallow }),
+    store.subscribe((s) => [s.shown, layerSettingsSel(s), scoringTableSel(s)] as const, recompose, { equalityFn: shallow }),
+  ];
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  stops.push(
+    viewer.onViewChange((v) => {
+      clearTimeout(timer);
+      // The URL and the store follow the view a moment after panning or zooming stops.
+      timer = setTimeout(() => store.getState().placeSet({ cx: v.cx, cy: v.cy, scale: v.scale }), options.settleMs ?? 150);
+    }),
+    () => clearTimeout(timer),
+  );
+  return () => stops.forEach((stop) => stop());
+}
