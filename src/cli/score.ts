@@ -1,9 +1,12 @@
 // `npm run score -- --truth DIR --pred [NAME=]DIR ...`: scores a dataset headless with the same core
 // code as the browser, in a pool of worker threads; writes the src/docs/metrics.md JSON report.
+import { readFile } from 'node:fs/promises';
 import type { ClassTable } from '../core/classTable.ts';
 import type { FrameJobResult } from '../core/frameJob.ts';
 import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';
 import { frameSummary } from '../core/metrics/frameSummary.ts';
+import { flagsFileParse } from '../core/review/flagsFile.ts';
+import type { SuspectVerdictKind } from '../core/review/verdict.ts';
 import { reportFrameLine, scoreReport, type ReportFrameLine, type ScoreReport } from '../core/metrics/report.ts';
 import { workerPoolCreate } from '../workers/pool.ts';
 import { UsageError } from './args.ts';
@@ -27,6 +30,19 @@ const WARNINGS_SHOWN = 20;
 /** Exit codes: every frame scored / bad arguments, unreadable folder or unwritable output / some frames failed / an output could not be written after scoring. */
 export const EXIT = { ok: 0, usage: 1, someFailed: 3, output: 4 } as const;
 
+/** Returns the verdicts of a flags file by item key, or throws UsageError naming the file and its problem. */
+async function verdictsRead(file: string): Promise<Map<string, SuspectVerdictKind>> {
+  let text: string;
+  try {
+    text = await readFile(file, 'utf8');
+  } catch (e) {
+    throw new UsageError(`--verdicts ${file}: cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  const parsed = flagsFileParse(text, file);
+  if (!parsed.ok) throw new UsageError(`--verdicts ${parsed.error}`);
+  return new Map(parsed.value.verdicts.map((v) => [v.key, v.verdict]));
+}
+
 async function run(options: ScoreOptions): Promise<number> {
   // Where the results go is checked before any scoring, so a typo costs nothing.
   try {
@@ -35,6 +51,7 @@ async function run(options: ScoreOptions): Promise<number> {
   } catch (e) {
     throw e instanceof OutputError ? new UsageError(e.message) : e;
   }
+  const verdicts = options.verdicts ? await verdictsRead(options.verdicts) : new Map<string, SuspectVerdictKind>();
   const ds = await scoreDatasetOpen(options);
   const { pairing } = ds;
   pairingReport(pairing, (line) => process.stderr.write(`${termText(line)}\n`));
@@ -125,7 +142,7 @@ async function run(options: ScoreOptions): Promise<number> {
     f.voidSpill = regions.voidSpill[i];
   });
   const names = new Map(table.classes.map((c) => [c.id, c.name]));
-  report.suspects = regionGatherSuspects(regions, (id) => names.get(id) ?? String(id));
+  report.suspects = regionGatherSuspects(regions, (id) => names.get(id) ?? String(id), verdicts);
   const json = JSON.stringify(report, null, 2) + '\n';
   if (options.out) await outputWrite(options.out, '--out', json);
   else process.stdout.write(json);

@@ -16,11 +16,13 @@ export interface ScoreOptions {
   bfTolerance: number;
   /** Length of the likely-label-mistake queue in the report. */
   suspects: number;
+  /** A flags file (saved from the app) whose verdicts re-rank the queue, or null. */
+  verdicts: string | null;
 }
 
 export const SCORE_USAGE = `usage: npm run score -- --truth DIR --pred [NAME=]DIR [--pred ...] [--classes FILE] [--ignore N]
        [--images DIR] [--confidence NAME=DIR] [--out report.json] [--csv frames.csv] [--workers N]
-       [--biou-ratio R] [--bf-tolerance T] [--suspects N]`;
+       [--biou-ratio R] [--bf-tolerance T] [--suspects N] [--verdicts FLAGS.json]`;
 
 /** Returns the scorer's options from argv, or throws UsageError naming the mistake. */
 export function scoreOptionsParse(argv: string[]): ScoreOptions {
@@ -37,6 +39,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     'biou-ratio': { kind: 'number' },
     'bf-tolerance': { kind: 'number' },
     suspects: { kind: 'number' },
+    verdicts: { kind: 'string' },
     help: { kind: 'flag' },
   });
   if (a.help) throw new UsageError(SCORE_USAGE);
@@ -75,5 +78,6 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     biouRatio,
     bfTolerance,
     suspects,
+    verdicts: (a.verdicts as string | undefined) ?? null,
   };
 }

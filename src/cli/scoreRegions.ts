@@ -9,7 +9,9 @@ import {
 import { appearanceSumsAdd, type AppearanceSums } from '../core/suspects/appearanceModel.ts';
 import { pairRecurrenceAdd, type PairRecurrence } from '../core/suspects/pairRecurrence.ts';
 import { suspectQueue } from '../core/suspects/suspectQueue.ts';
+import type { SuspectVerdictKind } from '../core/review/verdict.ts';
 import type { SuspectContributions } from '../core/suspects/suspectScore.ts';
+import { suspectsRerank } from '../core/suspects/verdictRerank.ts';
 import { SUSPECT_DEFAULTS, type SuspectSettings } from '../core/suspects/suspectSettings.ts';
 import type { FrameGrids } from '../core/suspects/temporalFlip.ts';
 
@@ -80,10 +82,14 @@ export function regionGatherAdd(g: RegionGather, index: number, result: FrameJob
   g.voidSpill[index] = first?.regions ? { pixels: first.regions.voidSpill.pixels, regions: first.regions.voidSpill.regions } : null;
 }
 
-/** Returns the likely-label-mistake queue over every run, best first, in the report's shape. */
-export function regionGatherSuspects(g: RegionGather, className: (id: number) => string): ReportSuspect[] {
-  return suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, recurrence: g.recurrence, appearance: g.appearance, className }, g.settings).map((s) => ({
+/**
+ * Returns the likely-label-mistake queue over every run, best first, in the report's shape; re-ranked
+ * by `verdicts` (by item key) as the app ranks it, each moved item's reason first among its reasons.
+ */
+export function regionGatherSuspects(g: RegionGather, className: (id: number) => string, verdicts: ReadonlyMap<string, SuspectVerdictKind> = new Map()): ReportSuspect[] {
+  const queue = suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, recurrence: g.recurrence, appearance: g.appearance, className }, g.settings);
+  return suspectsRerank(queue, verdicts).map((s) => ({
     frame: s.frame, run: s.run, bbox: s.bbox, truthClass: s.truthClass, predictedClass: s.predictedClass, kind: s.kind,
-    score: s.score, reasons: s.reasons, contributions: s.contributions, contributionsText: s.contributionsText,
+    score: s.score, reasons: s.learnedReason ? [s.learnedReason, ...s.reasons] : s.reasons, contributions: s.contributions, contributionsText: s.contributionsText,
   }));
 }

@@ -6,6 +6,8 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { LabelMap } from '../../src/core/labelMap.ts';
 import { labelMapToPng, rgbaToPng } from '../../src/core/png/encode.ts';
+import { flagsFileText } from '../../src/core/review/flagsFile.ts';
+import { suspectKey } from '../../src/core/review/verdict.ts';
 import { paintRect } from '../support/paint.ts';
 import { scoreCli } from './scoreRun.ts';
 
@@ -164,5 +166,29 @@ describe('npm run score with --images and --confidence on a small constructed da
     expect(text).not.toMatch(/image edge/);
     // Frames a and c agree with the truth everywhere: no regions there.
     expect(rep.frames.map((f: { regions: unknown[] }) => f.regions.length)).toEqual([0, 1, 0]);
+
+    // --verdicts: the flags file the app saves, with this item judged a model error, ranks it as the app would.
+    const ref = { frame: top.frame, run: top.run, bbox: top.bbox, truthClass: top.truthClass, predictedClass: top.predictedClass };
+    const flags = join(small, 'flags.json');
+    writeFileSync(flags, flagsFileText({ key: 'k', title: 'small', frames: 3 }, [], [{ ...ref, key: suspectKey(ref), verdict: 'model-error', updatedAt: 0 }], 0));
+    const again = scoreCli(['--truth', join(small, 'truth'), '--pred', join(small, 'run-a'), '--pred', join(small, 'run-b'), '--classes', join(small, 'classes.json'),
+      '--images', join(small, 'images'), '--confidence', `run-a=${join(small, 'conf-a')}`, '--workers', '1', '--verdicts', flags]);
+    expect(again.status).toBe(0);
+    const judged = JSON.parse(again.stdout).suspects[0] as Suspect;
+    expect(judged.score).toBeLessThan(top.score - 0.02);
+    expect(judged.contributions.learned).toBeCloseTo(judged.score - top.score, 9);
+    expect(judged.reasons[0]).toMatch(/^your verdicts weigh its evidence down \(0\.\d\d\)$/);
+    expect(judged.contributionsText).toMatch(/your verdicts −/);
+  });
+
+  it('--verdicts with a file that is not a flags file fails at once, naming the file', () => {
+    const bad = join(small, 'bad.json');
+    writeFileSync(bad, '{"format": "something else"}');
+    const r = scoreCli(['--truth', join(small, 'truth'), '--pred', join(small, 'run-a'), '--verdicts', bad]);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toMatch(new RegExp(`--verdicts ${bad.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`));
+    const missing = scoreCli(['--truth', join(small, 'truth'), '--pred', join(small, 'run-a'), '--verdicts', join(small, 'nope.json')]);
+    expect(missing.status).toBe(1);
+    expect(missing.stderr).toMatch(/--verdicts .*nope\.json: cannot be read \(ENOENT\)/);
   });
 });

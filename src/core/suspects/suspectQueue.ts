@@ -29,6 +29,8 @@ export interface Suspect {
   /** What each signal added to the score (score = 0.5 + their sum), and the same in words. */
   contributions: SuspectContributions;
   contributionsText: string;
+  /** Why the reviewer's verdicts moved it (verdictRerank.ts), or null / absent when they did not. */
+  learnedReason?: string | null;
   /** Other runs whose regions were merged into this entry. */
   alsoRuns: string[];
   /** Regions merged into this entry besides its own (any run), with their region ids per run. */

@@ -4,14 +4,14 @@ import type { SuspectSignals } from './suspectReasons.ts';
 import type { SuspectSettings } from './suspectSettings.ts';
 
 /** The parts of a score, in score units: the score is 0.5 plus their sum. */
-export const CONTRIBUTION_KEYS = ['agreement', 'confidence', 'appearance', 'image', 'geometry', 'habit', 'temporal', 'steady', 'gate'] as const;
+export const CONTRIBUTION_KEYS = ['agreement', 'confidence', 'appearance', 'image', 'geometry', 'habit', 'temporal', 'steady', 'gate', 'learned'] as const;
 export type ContributionKey = (typeof CONTRIBUTION_KEYS)[number];
 export type SuspectContributions = Record<ContributionKey, number>;
 
 /** Words for each part in the contributions text. */
 const CONTRIBUTION_WORDS: Record<ContributionKey, string> = {
   agreement: 'run agreement', confidence: 'confidence', appearance: 'appearance', image: 'image edges', geometry: 'shape',
-  habit: 'common confusion', temporal: 'label flip', steady: 'steady', gate: 'thin sliver',
+  habit: 'common confusion', temporal: 'label flip', steady: 'steady', gate: 'thin sliver', learned: 'your verdicts',
 };
 
 /** Returns contributions that are all 0. */
