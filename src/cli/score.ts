@@ -14,6 +14,7 @@ import { progressCreate } from './progress.ts';
 import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
 import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
 import { censusKeep, pairingReport } from './scoreOpened.ts';
+import { scoreOptionsResolve } from './datasetArgs.ts';
 import { openedOf } from '../data/opened.ts';
 import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect, type ReportVoidSpill } from './scoreRegions.ts';
 import { OutputError, outputCheck, outputWrite } from './outputFile.ts';
@@ -43,7 +44,8 @@ async function verdictsRead(file: string): Promise<Map<string, SuspectVerdictKin
   return new Map(parsed.value.verdicts.map((v) => [v.key, v.verdict]));
 }
 
-async function run(options: ScoreOptions): Promise<number> {
+async function run(given: ScoreOptions): Promise<number> {
+  const options = await scoreOptionsResolve(given);
   // Where the results go is checked before any scoring, so a typo costs nothing.
   try {
     if (options.out) await outputCheck(options.out, '--out');

@@ -1,4 +1,5 @@
 import { availableParallelism } from 'node:os';
+import type { PairOptions } from '../data/pairing.ts';
 import { argsParse, namedDirParse, UsageError } from './args.ts';
 
 /** Options of `npm run score`, validated. */
@@ -18,11 +19,18 @@ export interface ScoreOptions {
   suspects: number;
   /** A flags file (saved from the app) whose verdicts re-rank the queue, or null. */
   verdicts: string | null;
+  /** A dataset root or its hairline.json (README "Your data"); the folders then come from it, not --truth/--pred. */
+  dataset: string | null;
+  /** A list file of the frames to score. */
+  list: string | null;
+  /** Per-folder suffix group or key pattern, from hairline.json. */
+  pair?: PairOptions;
 }
 
 export const SCORE_USAGE = `usage: npm run score -- --truth DIR --pred [NAME=]DIR [--pred ...] [--classes FILE] [--ignore N]
-       [--images DIR] [--confidence NAME=DIR] [--out report.json] [--csv frames.csv] [--workers N]
-       [--biou-ratio R] [--bf-tolerance T] [--suspects N] [--verdicts FLAGS.json]`;
+       [--images DIR] [--confidence NAME=DIR] [--list FILE] [--out report.json] [--csv frames.csv] [--workers N]
+       [--biou-ratio R] [--bf-tolerance T] [--suspects N] [--verdicts FLAGS.json]
+   or: npm run score -- --dataset DIR|hairline.json [--list FILE] [--classes FILE] [--out …] …`;
 
 /** Returns the scorer's options from argv, or throws UsageError naming the mistake. */
 export function scoreOptionsParse(argv: string[]): ScoreOptions {
@@ -40,13 +48,19 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     'bf-tolerance': { kind: 'number' },
     suspects: { kind: 'number' },
     verdicts: { kind: 'string' },
+    dataset: { kind: 'string' },
+    list: { kind: 'string' },
     help: { kind: 'flag' },
   });
   if (a.help) throw new UsageError(SCORE_USAGE);
   if (a._.length) throw new UsageError(`unexpected argument "${a._[0]}"`);
-  if (typeof a.truth !== 'string') throw new UsageError('--truth DIR is required');
+  const dataset = (a.dataset as string | undefined) ?? null;
+  if (dataset !== null) {
+    const mixed = ['truth', 'pred', 'images', 'confidence'].find((k) => a[k] !== undefined);
+    if (mixed) throw new UsageError(`--dataset names the folders itself; leave out --${mixed} (or describe it in hairline.json)`);
+  } else if (typeof a.truth !== 'string') throw new UsageError('--truth DIR (or --dataset DIR) is required');
   const preds = (a.pred as string[] | undefined) ?? [];
-  if (preds.length === 0) throw new UsageError('--pred DIR is required (give it once per prediction run)');
+  if (preds.length === 0 && dataset === null) throw new UsageError('--pred DIR is required (give it once per prediction run)');
   const runs = preds.map((p) => namedDirParse(p, 'pred'));
   const names = new Set<string>();
   for (const r of runs) {
@@ -66,7 +80,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
   const suspects = (a.suspects as number | undefined) ?? 200;
   if (!Number.isInteger(suspects) || suspects < 0 || suspects > 100000) throw new UsageError(`--suspects must be an integer 0..100000, got ${suspects}`);
   return {
-    truth: a.truth,
+    truth: (a.truth as string | undefined) ?? '',
     runs,
     images: (a.images as string | undefined) ?? null,
     confidence,
@@ -79,5 +93,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     bfTolerance,
     suspects,
     verdicts: (a.verdicts as string | undefined) ?? null,
+    dataset,
+    list: (a.list as string | undefined) ?? null,
   };
 }

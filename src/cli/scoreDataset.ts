@@ -2,6 +2,7 @@ import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { classTableFromText, type ClassTable } from '../core/classTable.ts';
 import { datasetPairProbed } from '../data/labelGroups.ts';
+import { frameListParse, pairingListed } from '../data/frameList.ts';
 import type { Pairing } from '../data/pairing.ts';
 import { UsageError } from './args.ts';
 import { filesUnder } from './listFiles.ts';
@@ -50,7 +51,15 @@ export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreData
   for (const r of options.runs) dirs.set(`predictions/${r.name}`, r.dir);
   for (const c of options.confidence) dirs.set(`confidence/${c.name}`, c.dir);
   const read = async (folder: string, path: string) => new Uint8Array(await readFile(join(dirs.get(folder)!, path)));
-  const pairing = await datasetPairProbed({ truth, predictions, images, confidence }, read, table, ignore);
+  let pairing = await datasetPairProbed({ truth, predictions, images, confidence }, read, table, ignore, options.pair);
+  if (options.list) {
+    const text = await readFile(options.list, 'utf8').catch((e: NodeJS.ErrnoException) => {
+      throw new UsageError(`--list ${options.list}: cannot read (${e.code ?? e.message})`);
+    });
+    const listed = pairingListed(pairing, frameListParse(text), options.list);
+    if (!listed.ok) throw new UsageError(listed.error);
+    pairing = listed.value;
+  }
   // datasetPair sorts runs by name; the scorer keeps the order given (the first --pred is the report's run).
   pairing.runs = options.runs.map((r) => r.name);
   const settings: ScoreSettings = {

@@ -4,7 +4,7 @@ import { labelMapMaxId } from '../core/labelMap.ts';
 import { labelMapRead } from '../core/labelRead.ts';
 import type { ClassTable } from '../core/classTable.ts';
 import { fileExt } from './frameKeys.ts';
-import { datasetPair, type DatasetListing, type GroupChoice, type Pairing } from './pairing.ts';
+import { datasetPair, type DatasetListing, type GroupChoice, type PairOptions, type Pairing } from './pairing.ts';
 
 /** Reads the bytes of `path` inside `folder` (`truth`, `predictions/<run>`, …). */
 export type FolderRead = (folder: string, path: string) => Promise<Uint8Array>;
@@ -56,9 +56,10 @@ async function groupProbe(folder: string, tail: string, sample: string, read: Fo
  * (from the description file) are used as given.
  */
 export async function datasetPairProbed(
-  listing: DatasetListing, read: FolderRead, table: ClassTable | null, ignore: number, chosen: Record<string, string> = {},
+  listing: DatasetListing, read: FolderRead, table: ClassTable | null, ignore: number, options: PairOptions = {},
 ): Promise<Pairing> {
-  const first = datasetPair(listing, { chosen });
+  const chosen = options.chosen ?? {};
+  const first = datasetPair(listing, options);
   const picks: Record<string, string> = { ...chosen };
   const whys = new Map<string, string>();
   for (const g of first.groups ?? []) {
@@ -75,7 +76,7 @@ export async function datasetPairProbed(
         : `no group decodes as label ids (${lines.join('; ')}); using the largest`,
     );
   }
-  const paired = whys.size ? datasetPair(listing, { chosen: picks }) : first;
+  const paired = whys.size ? datasetPair(listing, { ...options, chosen: picks }) : first;
   paired.groups = (paired.groups ?? []).map((g): GroupChoice => ({ ...g, why: whys.get(g.folder) ?? g.why }));
   return paired;
 }

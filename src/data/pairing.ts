@@ -1,4 +1,4 @@
-import { fileExt, folderGroups, folderKeys, stemAliases, type KeyedFile } from './frameKeys.ts';
+import { fileExt, fileStem, folderGroups, folderKeys, stemAliases, type KeyedFile } from './frameKeys.ts';
 import { naturalCompare } from './naturalSort.ts';
 
 export { fileStem } from './frameKeys.ts';
@@ -60,9 +60,11 @@ export interface Pairing {
   warnings?: string[];
 }
 
-/** Options of datasetPair: the suffix group to use per folder (`truth`, `predictions/<run>`, …). */
+/** Options of datasetPair per folder (`truth`, `images`, `predictions/<run>`, …): the suffix group to use, or a key pattern. */
 export interface PairOptions {
   chosen?: Record<string, string>;
+  /** A regular expression over the path without extension whose first group is the frame key. */
+  patterns?: Record<string, string>;
 }
 
 const LABEL_EXT = ['.png'];
@@ -74,7 +76,7 @@ function isHidden(path: string): boolean {
 
 /** Returns key → file for one folder after choosing its suffix group, reporting wrong types and keys that occur twice. */
 function indexFolder(
-  folder: string, files: string[], exts: string[], out: { unpaired: UnpairedFile[]; groups: GroupChoice[] }, chosen?: string,
+  folder: string, files: string[], exts: string[], out: { unpaired: UnpairedFile[]; groups: GroupChoice[] }, chosen?: string, pattern?: string,
 ): Map<string, string> {
   const kept: string[] = [];
   for (const file of [...files].sort(naturalCompare)) {
@@ -86,8 +88,8 @@ function indexFolder(
     }
     kept.push(file);
   }
-  let keyed: KeyedFile[] = folderKeys(kept);
-  const groups = folderGroups(keyed);
+  let keyed: KeyedFile[] = pattern === undefined ? folderKeys(kept) : patternKeys(folder, kept, pattern, out.unpaired);
+  const groups = pattern === undefined ? folderGroups(keyed) : [];
   if (groups.length) {
     const usable = groups.filter((g) => g.files.some((f) => exts.includes(fileExt(f.file))));
     const pick = groups.find((g) => g.tail === chosen) ?? usable[0] ?? groups[0];
@@ -121,6 +123,18 @@ function indexFolder(
     index.delete(key);
   }
   return index;
+}
+
+/** Returns the files whose path (without extension) matches `pattern`, keyed by its first group; the rest are reported. */
+function patternKeys(folder: string, files: string[], pattern: string, unpaired: UnpairedFile[]): KeyedFile[] {
+  const re = new RegExp(pattern);
+  const out: KeyedFile[] = [];
+  for (const file of files) {
+    const m = re.exec(fileStem(file));
+    if (m && m[1]) out.push({ file, key: m[1], tail: '' });
+    else unpaired.push({ folder, file, reason: `does not match the key pattern ${pattern} of hairline.json` });
+  }
+  return out;
 }
 
 /** Looks a key up among the truth keys: exactly, then by its last path part (nested against flat), then by its aliases. */
@@ -180,19 +194,20 @@ function folderMatch(
 export function datasetPair(listing: DatasetListing, options: PairOptions = {}): Pairing {
   const out = { unpaired: [] as UnpairedFile[], ambiguous: [] as AmbiguousFile[], groups: [] as GroupChoice[] };
   const chosen = options.chosen ?? {};
-  const truth = indexFolder('truth', listing.truth, LABEL_EXT, out, chosen.truth);
+  const pat = options.patterns ?? {};
+  const truth = indexFolder('truth', listing.truth, LABEL_EXT, out, chosen.truth, pat.truth);
   const truthFile = truth;
   const match = truthMatcher([...truth.keys()]);
-  const images = folderMatch('images', indexFolder('images', listing.images, PHOTO_EXT, out, chosen.images), match, truthFile, out);
+  const images = folderMatch('images', indexFolder('images', listing.images, PHOTO_EXT, out, chosen.images, pat.images), match, truthFile, out);
   const runs = Object.keys(listing.predictions).sort(naturalCompare);
   const preds = new Map(runs.map((r) => {
     const folder = `predictions/${r}`;
-    return [r, folderMatch(folder, indexFolder(folder, listing.predictions[r], LABEL_EXT, out, chosen[folder]), match, truthFile, out)];
+    return [r, folderMatch(folder, indexFolder(folder, listing.predictions[r], LABEL_EXT, out, chosen[folder], pat[folder]), match, truthFile, out)];
   }));
   const confRuns = Object.keys(listing.confidence ?? {}).sort(naturalCompare);
   const confs = new Map(confRuns.map((r) => {
     const folder = `confidence/${r}`;
-    return [r, folderMatch(folder, indexFolder(folder, listing.confidence![r], LABEL_EXT, out, chosen[folder]), match, truthFile, out)];
+    return [r, folderMatch(folder, indexFolder(folder, listing.confidence![r], LABEL_EXT, out, chosen[folder], pat[folder]), match, truthFile, out)];
   }));
 
   const names = [...truth.keys()].sort(naturalCompare);

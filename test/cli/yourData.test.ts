@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -105,5 +105,57 @@ describe('npm run score on datasets as they lie on disk', () => {
     expect(r.stderr).toContain('… and 13 more files not paired');
     const report = JSON.parse(readFileSync(join(dir, 'strays.json'), 'utf8'));
     expect(report.unpaired.length).toBe(33);
+  });
+
+  it('--dataset DIR with hairline.json (folders, suffix, list file): the listed frames, scored as dataset_ref.py', () => {
+    const root = join(dir, 'suffixed');
+    writeFileSync(join(root, 'val.txt'), '# frames to score\nberth001\n\nnorth/berth004\n');
+    writeFileSync(join(root, 'hairline.json'), JSON.stringify({ truth: { folder: 'gt', suffix: '_gt_class' }, images: 'photos', predictions: { model: 'preds' }, list: 'val.txt' }));
+    try {
+      const out = join(dir, 'described.json');
+      const r = scoreCli(['--dataset', root, '--out', out]);
+      expect(r.status).toBe(0);
+      expect(r.stderr).toMatch(/note: truth: several encodings .*; chosen in the description file/);
+      const report = JSON.parse(readFileSync(out, 'utf8'));
+      expect(report.frames.map((f: { name: string }) => f.name)).toEqual(['north/berth004', 'south/berth001']);
+      const ref = reference({
+        classes: join(root, 'classes.json'),
+        frames: frames.filter((f) => ['berth001', 'berth004'].includes(f.key)).map((f) => ({ name: `${f.site}/${f.key}`, truth: join(root, 'gt', f.site, `${f.key}_gt_class.png`), pred: join(root, 'preds', `${f.key}_pred.png`) })),
+      });
+      expect(report.dataset.meanIoU).toBeCloseTo(ref.dataset.meanIoU, 9);
+      writeFileSync(join(root, 'hairline.json'), '{"truth": {"folder": "gt", "sufix": "_gt_class"}}');
+      const bad = scoreCli(['--dataset', root]);
+      expect(bad.status).toBe(1);
+      expect(bad.stderr.split('\n')[0]).toBe(`hairline score: ${join(root, 'hairline.json')}: "truth": Unrecognized key: "sufix"`);
+    } finally {
+      rmSync(join(root, 'hairline.json'));
+      rmSync(join(root, 'val.txt'));
+    }
+  });
+
+  it('--dataset DIR without a description: folders recognised by name, symlinked folders followed; --list names a missing frame: exit 1', () => {
+    const root = join(dir, 'linked');
+    const src = join(dir, 'suffixed');
+    fileWrite(join(root, 'README.txt'), 'invented');
+    symlinkSync(join(src, 'gt'), join(root, 'labels'));
+    symlinkSync(join(src, 'preds'), join(root, 'preds'));
+    symlinkSync(join(src, 'photos'), join(root, 'photos'));
+    writeFileSync(join(root, 'classes.json'), readFileSync(join(src, 'classes.json')));
+    const out = join(dir, 'linked.json');
+    const r = scoreCli(['--dataset', root, '--out', out]);
+    expect(r.status).toBe(0);
+    const report = JSON.parse(readFileSync(out, 'utf8'));
+    expect(report.frames).toHaveLength(5);
+    expect(report.opened.runs).toEqual(['preds']);
+    expect(report.dataset.meanIoU).toBeCloseTo(JSON.parse(readFileSync(join(dir, 'suffixed.json'), 'utf8')).dataset.meanIoU, 12);
+    writeFileSync(join(dir, 'missing.txt'), 'berth001\nberth077\n');
+    const missing = scoreCli(['--dataset', root, '--list', join(dir, 'missing.txt')]);
+    expect(missing.status).toBe(1);
+    expect(missing.stderr).toContain(`${join(dir, 'missing.txt')}: lists a frame that the dataset does not have: berth077`);
+    const empty = join(dir, 'empty');
+    fileWrite(join(empty, 'scans', 'a.png'), 'x');
+    const none = scoreCli(['--dataset', empty]);
+    expect(none.status).toBe(1);
+    expect(none.stderr).toMatch(/no ground-truth folder found: expected truth\/ .*Found: scans\/ \(1 file\)/);
   });
 });
