@@ -58,7 +58,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
   if (dataset !== null) {
     const mixed = ['truth', 'pred', 'images', 'confidence'].find((k) => a[k] !== undefined);
     if (mixed) throw new UsageError(`--dataset names the folders itself; leave out --${mixed} (or describe it in hairline.json)`);
-  } else if (typeof a.truth !== 'string') throw new UsageError('--truth DIR (or --dataset DIR) is required');
+  } else if (typeof a.truth !== 'string') throw new UsageError('--truth DIR is required (or --dataset DIR)');
   const preds = (a.pred as string[] | undefined) ?? [];
   if (preds.length === 0 && dataset === null) throw new UsageError('--pred DIR is required (give it once per prediction run)');
   const runs = preds.map((p) => namedDirParse(p, 'pred'));

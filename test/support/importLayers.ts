@@ -30,6 +30,7 @@ export const PACKAGE_LOWEST_LAYER: Record<string, Layer> = {
   'fflate': 'src/core',
   'upng-js': 'src/core',
   'culori': 'src/core',
+  'zod': 'src/data',
   'zustand': 'src/state',
   'idb-keyval': 'src/state',
   'pixi.js': 'src/view',
