@@ -1,7 +1,7 @@
-import { readFile } from 'node:fs/promises';
 import type { FrameFileReader } from '../core/frameFiles.ts';
 import { photoFromPng } from '../core/png/decodePhoto.ts';
 import { fail } from '../core/result.ts';
+import { fileReadBounded } from './fileReadBounded.ts';
 
 /** A file to read: its path on disk and the name used in messages. */
 export interface FilePath {
@@ -11,7 +11,7 @@ export interface FilePath {
 
 /** Returns the reader of a frame's files on disk; photos are decoded only when PNG (at most `maxPixels`). */
 export function diskFileReader(o: { maxPixels?: number } = {}): FrameFileReader<FilePath> {
-  const bytes = async (f: FilePath) => new Uint8Array(await readFile(f.path));
+  const bytes = (f: FilePath) => fileReadBounded(f.path, o.maxPixels);
   return {
     bytes,
     async photo(f, given) {

@@ -1,6 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { classTableFromText, classTableGenerated, type ClassTable } from '../core/classTable.ts';
+import { dictCreate } from '../core/dict.ts';
 import { frameDecode } from '../core/decodedFrame.ts';
 import type { TileExportSource } from '../core/export/tilesExport.ts';
 import { fail } from '../core/result.ts';
@@ -40,7 +41,7 @@ async function tableRead(o: ExportOptions): Promise<ClassTable> {
 export async function exportDatasetOpen(o: ExportOptions): Promise<ExportDataset> {
   const table = await tableRead(o);
   const truth = await filesUnder(o.truth, 'truth');
-  const predictions: Record<string, string[]> = {};
+  const predictions = dictCreate<string[]>();
   for (const r of o.runs) predictions[r.name] = await filesUnder(r.dir, 'pred');
   const images = o.images ? await filesUnder(o.images, 'images') : [];
   const pairing = datasetPair({ truth, predictions, images });

@@ -81,12 +81,15 @@ async function run(given: ScoreOptions): Promise<number> {
     let anyFailed = false;
     const rows: FrameCsvRow[] = [];
     for (const r of result.runs) {
-      const error = result.error ?? r.error;
+      let error = result.error ?? r.error;
       if (r.stats && !error) {
-        let t = totals.get(r.run)!;
-        if (generated) totals.set(r.run, (t = datasetTotalsWiden(t, r.stats.classIds)));
-        datasetTotalsAdd(t, r.stats);
-      } else anyFailed = true;
+        const wide = generated ? datasetTotalsWiden(totals.get(r.run)!, r.stats.classIds) : { ok: true as const, value: totals.get(r.run)! };
+        if (wide.ok) {
+          totals.set(r.run, wide.value);
+          datasetTotalsAdd(wide.value, r.stats);
+        } else error = `${result.name}: ${wide.error}`;
+      }
+      if (!r.stats || error) anyFailed = true;
       lines.get(r.run)![index] = reportFrameLine(result.name, error ? null : r.stats, error);
       const s = r.stats && !error ? frameSummary(r.stats, 3) : null;
       rows.push({

@@ -1,6 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { classTableFromText, type ClassTable } from '../core/classTable.ts';
+import { dictCreate } from '../core/dict.ts';
 import { datasetPairProbed } from '../data/labelGroups.ts';
 import { frameListParse, pairingListed } from '../data/frameList.ts';
 import type { Pairing } from '../data/pairing.ts';
@@ -41,9 +42,9 @@ async function tableRead(options: ScoreOptions): Promise<ClassTable | null> {
 export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreDataset> {
   const table = await tableRead(options);
   const truth = await filesUnder(options.truth, 'truth');
-  const predictions: Record<string, string[]> = {};
+  const predictions = dictCreate<string[]>();
   for (const r of options.runs) predictions[r.name] = await filesUnder(r.dir, 'pred');
-  const confidence: Record<string, string[]> = {};
+  const confidence = dictCreate<string[]>();
   for (const c of options.confidence) confidence[c.name] = await filesUnder(c.dir, 'confidence');
   const images = options.images ? await filesUnder(options.images, 'images') : [];
   const ignore = table?.ignore ?? options.ignore ?? 255;

@@ -1,6 +1,5 @@
 // Worker thread of the headless scorer: reads a frame's files from disk and runs the same core job
 // as the browser's scoring worker.
-import { readFile } from 'node:fs/promises';
 import { frameJobScore, type FileBytes, type FrameJobInput, type FrameJobResult } from '../core/frameJob.ts';
 import { scoreScratchCreate } from '../core/metrics/scratch.ts';
 import { photoFromPng } from '../core/png/decodePhoto.ts';
@@ -8,6 +7,7 @@ import { regionScratchCreate } from '../core/regions/regionScratch.ts';
 import type { JobOutput } from '../workers/protocol.ts';
 import { frameResultBuffers } from '../workers/scoreJobs.ts';
 import { workerServe } from '../workers/serve.ts';
+import { fileReadBounded } from './fileReadBounded.ts';
 import { threadEndpoint } from './threadPort.ts';
 
 /** A file to read: its path on disk and the name used in messages. */
@@ -28,7 +28,7 @@ export interface FrameScorePaths extends Omit<FrameJobInput, 'truth' | 'preds' |
 
 async function bytesOf(f: FilePath): Promise<FileBytes | string> {
   try {
-    return { file: f.file, bytes: new Uint8Array(await readFile(f.path)) };
+    return { file: f.file, bytes: await fileReadBounded(f.path) };
   } catch (e) {
     return `${f.file}: could not be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`;
   }

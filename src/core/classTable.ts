@@ -26,6 +26,14 @@ export interface ClassTable {
 
 /** Largest id a class may have; 65535 is kept free so a 16-bit map always has an id outside the table. */
 export const CLASS_ID_MAX = 65534;
+/**
+ * Most classes scored. Each frame keeps a band histogram of 65 widths per (truth, prediction) pair of
+ * classes: 17 MB per frame at 256 classes (twice that in each run's dataset totals), so the limit
+ * keeps memory bounded however many ids a hostile file holds.
+ */
+export const CLASSES_MAX = 256;
+/** Longest class name kept (in characters); longer names are cut with "…". */
+export const CLASS_NAME_MAX = 80;
 /** Default void id (common practice for 8-bit label maps). */
 export const DEFAULT_IGNORE = 255;
 
@@ -43,6 +51,16 @@ export function rgb24ToColor(rgb: number): string {
 
 function isPlainObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
+}
+
+/** Characters that reorder or hide text (bidi controls) or are not text at all (control characters). */
+// eslint-disable-next-line no-control-regex
+const NAME_UNSAFE = /[\u0000-\u001f\u007f-\u009f\u061c\u200b-\u200f\u202a-\u202e\u2066-\u2069\ufeff]/g;
+
+/** Returns a class name safe to show: bidi and control characters removed, trimmed, cut to CLASS_NAME_MAX characters. */
+export function classNameClean(name: string): string {
+  const chars = [...name.replace(NAME_UNSAFE, '').trim()];
+  return chars.length > CLASS_NAME_MAX ? chars.slice(0, CLASS_NAME_MAX - 1).join('') + '…' : chars.join('');
 }
 
 function isIdInRange(v: unknown): v is number {
@@ -70,6 +88,9 @@ export function classTableFromJson(json: unknown, file = 'classes.json'): Result
   }
   if (!Array.isArray(json.classes)) return fail(file, '"classes" must be an array of { id, name, color }');
   if (json.classes.length === 0) return fail(file, '"classes" is empty: list at least one class');
+  if (json.classes.length > CLASSES_MAX) {
+    return fail(file, `lists ${json.classes.length} classes; at most ${CLASSES_MAX} are scored (every frame keeps counts for each pair of classes)`);
+  }
   const classes: ClassInfo[] = [];
   const byId = new Map<number, number>();
   const byColor = new Map<string, number>();
@@ -86,7 +107,7 @@ export function classTableFromJson(json: unknown, file = 'classes.json'): Result
     if (byId.has(id)) return fail(file, `id ${id} is used twice (class #${byId.get(id)! + 1} and ${where})`);
     byId.set(id, i);
     const name = c.name === undefined ? String(id) : c.name;
-    if (typeof name !== 'string' || name.trim() === '') return fail(file, `${where} (id ${id}) needs a non-empty "name"`);
+    if (typeof name !== 'string' || classNameClean(name) === '') return fail(file, `${where} (id ${id}) needs a non-empty "name"`);
     if (typeof c.color !== 'string' || !COLOR_RE.test(c.color)) {
       return fail(file, `${where} (id ${id}) has colour ${JSON.stringify(c.color)}; use "#rrggbb"`);
     }
@@ -97,7 +118,7 @@ export function classTableFromJson(json: unknown, file = 'classes.json'): Result
       return fail(file, `colour ${color} is used twice (${other} and ${where}); colour-coded maps need unique colours`);
     }
     byColor.set(color, i);
-    classes.push({ id, name: name.trim(), color });
+    classes.push({ id, name: classNameClean(name), color });
   }
   classes.sort((a, b) => a.id - b.id);
   for (const v of ignoreList) {

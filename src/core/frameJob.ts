@@ -1,4 +1,4 @@
-import { classTableGenerated, type ClassTable } from './classTable.ts';
+import { classTableGenerated, CLASSES_MAX, type ClassTable } from './classTable.ts';
 import { frameSizesCheck, labelMapIdsCheck } from './frameCheck.ts';
 import type { LabelMap } from './labelMap.ts';
 import { frameScore, type FrameStats } from './metrics/frameScore.ts';
@@ -134,6 +134,12 @@ export function frameJobScore(
   const classIds = table.generated
     ? presentIds([truth.value, ...decoded.flatMap((d) => (d.map ? [d.map] : []))], settings.ignore)
     : table.classes.map((c) => c.id);
+  if (classIds.length > CLASSES_MAX) {
+    return failAll(
+      `${input.truth.file}: ${classIds.length} distinct ids in this frame's ground truth and predictions and no classes.json; ` +
+        `at most ${CLASSES_MAX} classes are scored (give a classes.json naming the classes)`,
+    );
+  }
   const runs = decoded.map(({ run, map, error }): FrameRunResult => {
     if (!map) return { run, stats: null, error };
     const s = frameScore(truth.value, map, classIds, settings, scratch);

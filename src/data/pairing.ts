@@ -1,3 +1,4 @@
+import { dictCreate } from '../core/dict.ts';
 import { fileExt, fileStem, folderGroups, folderKeys, stemAliases, type KeyedFile } from './frameKeys.ts';
 import { naturalCompare } from './naturalSort.ts';
 
@@ -212,13 +213,13 @@ export function datasetPair(listing: DatasetListing, options: PairOptions = {}):
 
   const names = [...truth.keys()].sort(naturalCompare);
   const frames: FrameFiles[] = names.map((name) => {
-    const predictions: Record<string, string | null> = {};
+    const predictions = dictCreate<string | null>();
     for (const r of runs) {
       const file = preds.get(r)!.get(name) ?? null;
       predictions[r] = file;
       if (file === null) out.unpaired.push({ folder: `predictions/${r}`, file: name, reason: `run "${r}" has no prediction for frame ${name}` });
     }
-    const confidence: Record<string, string | null> = {};
+    const confidence = dictCreate<string | null>();
     for (const r of confRuns) confidence[r] = confs.get(r)!.get(name) ?? null;
     return { name, image: images.get(name) ?? null, truth: truth.get(name)!, predictions, confidence };
   });

@@ -1,5 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
 import type { FrameJobResult, FrameRunResult } from '../core/frameJob.ts';
+import { dictCreate, dictFrom } from '../core/dict.ts';
 import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';
 import { frameDigestOf, type FrameDigest } from '../core/metrics/frameDigest.ts';
 import type { AppState } from './store.ts';
@@ -50,21 +51,21 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
   scoring: { generation: 0, total: 0, done: 0, failed: 0, startedAt: 0, finishedAt: null },
   results: [],
   resultsVersion: 0,
-  totals: {},
+  totals: dictCreate(),
   totalsClassIds: null,
   scoringStart: (generation, total, classIds) =>
     set({
       scoring: { generation, total, done: 0, failed: 0, startedAt: Date.now(), finishedAt: total === 0 ? Date.now() : null },
       results: new Array(total),
       resultsVersion: get().resultsVersion + 1,
-      totals: {},
+      totals: dictCreate(),
       totalsClassIds: classIds,
     }),
   scoringFramesDone: (generation, batch) => {
     const { scoring, results, totals, totalsClassIds } = get();
     if (generation !== scoring.generation) return;
     const next = results.slice();
-    const nextTotals = { ...totals };
+    const nextTotals = dictFrom(totals);
     let done = scoring.done;
     let failed = scoring.failed;
     for (const { index, result } of batch) {
@@ -72,7 +73,11 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
       const runs: StoredRun[] = result.runs.map((r) => {
         if (!r.stats || result.error || r.error) return { ...r, stats: null };
         let t = nextTotals[r.run] ?? datasetTotalsCreate(totalsClassIds ?? []);
-        if (totalsClassIds === null) t = datasetTotalsWiden(t, r.stats.classIds);
+        if (totalsClassIds === null) {
+          const wide = datasetTotalsWiden(t, r.stats.classIds);
+          if (!wide.ok) return { ...r, stats: null, error: `${result.name}: ${wide.error}` };
+          t = wide.value;
+        }
         datasetTotalsAdd(t, r.stats);
         nextTotals[r.run] = t;
         return { ...r, stats: frameDigestOf(r.stats) };

@@ -1,5 +1,6 @@
 import type { FrameFileReader } from '../core/frameFiles.ts';
 import { fail, ok } from '../core/result.ts';
+import { blobBytesBounded } from './blobBounded.ts';
 import { photoDecode } from './photoDecode.ts';
 
 /** A file as the page holds it: a Blob (a File, a fetched body, or demo bytes) and its display name. */
@@ -10,7 +11,7 @@ export interface FileBlob {
 
 /** Reads a frame's files in the browser: Blob bytes, photos of any type the browser decodes. */
 export const blobFileReader: FrameFileReader<FileBlob> = {
-  bytes: async (f) => new Uint8Array(await f.blob.arrayBuffer()),
+  bytes: (f) => blobBytesBounded(f.blob),
   async photo(f) {
     try {
       return ok(await photoDecode(f.blob));

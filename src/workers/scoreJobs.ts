@@ -4,6 +4,7 @@ import type { FrameStats } from '../core/metrics/frameScore.ts';
 import { scoreScratchCreate } from '../core/metrics/scratch.ts';
 import { regionScratchCreate } from '../core/regions/regionScratch.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
+import { blobBytesBounded } from './blobBounded.ts';
 import type { FileBlob } from './blobFiles.ts';
 import { photoDecode } from './photoDecode.ts';
 import { buffersOf, type JobOutput } from './protocol.ts';
@@ -41,7 +42,7 @@ export function frameResultBuffers(result: FrameJobResult): ArrayBuffer[] {
 }
 
 async function bytesOf(f: FileBlob): Promise<FileBytes> {
-  return { file: f.file, bytes: new Uint8Array(await f.blob.arrayBuffer()) };
+  return { file: f.file, bytes: await blobBytesBounded(f.blob) };
 }
 
 const scratch = scoreScratchCreate();

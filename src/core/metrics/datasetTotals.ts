@@ -1,3 +1,4 @@
+import { CLASSES_MAX } from '../classTable.ts';
 import { fail, ok, type Result } from '../result.ts';
 import { BAND_BINS } from './bandHistogram.ts';
 import type { FrameStats } from './frameScore.ts';
@@ -119,12 +120,16 @@ export function datasetTotalsMerge(into: DatasetTotals, from: DatasetTotals): Re
 /**
  * Returns totals over the ascending union of `totals.classIds` and `extraIds` holding the same sums
  * (rows and columns moved by id), for a dataset without a class table whose ids appear as frames
- * arrive. Returns `totals` itself when no id is new.
+ * arrive; `totals` itself when no id is new. Fails, allocating nothing, when the union would pass
+ * CLASSES_MAX (memory grows with the square of the class count).
  */
-export function datasetTotalsWiden(totals: DatasetTotals, extraIds: readonly number[]): DatasetTotals {
+export function datasetTotalsWiden(totals: DatasetTotals, extraIds: readonly number[]): Result<DatasetTotals> {
   const known = new Set(totals.classIds);
-  if (extraIds.every((id) => known.has(id))) return totals;
+  if (extraIds.every((id) => known.has(id))) return ok(totals);
   const ids = [...new Set([...totals.classIds, ...extraIds])].sort((a, b) => a - b);
+  if (ids.length > CLASSES_MAX) {
+    return fail('', `the dataset holds more than ${CLASSES_MAX} distinct ids (this frame would bring it to ${ids.length}) and has no classes.json; at most ${CLASSES_MAX} classes are scored (give a classes.json naming the classes)`);
+  }
   const out = datasetTotalsCreate(ids);
   const K = ids.length, k = totals.classIds.length;
   const pos = new Map(ids.map((id, i) => [id, i]));
@@ -148,5 +153,5 @@ export function datasetTotalsWiden(totals: DatasetTotals, extraIds: readonly num
   out.frameMeanIoUCount = totals.frameMeanIoUCount;
   out.frameBFSum = totals.frameBFSum;
   out.frameBFCount = totals.frameBFCount;
-  return out;
+  return ok(out);
 }

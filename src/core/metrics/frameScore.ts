@@ -1,4 +1,5 @@
 import type { LabelMap } from '../labelMap.ts';
+import { CLASSES_MAX } from '../classTable.ts';
 import { fail, ok, type Result } from '../result.ts';
 import { bandConfusionTotal, BAND_BINS, BAND_WIDTH_MAX } from './bandHistogram.ts';
 import { boundaryFCounts } from './boundaryF.ts';
@@ -37,10 +38,6 @@ export interface FrameStats {
   bfTruthTotal: Uint32Array;
 }
 
-/** Cells a frame's band histogram may have (4 bytes each): 256 MB, about 1000 classes. */
-const BAND_CELLS_MAX = 2 ** 26;
-/** The most classes whose band histogram fits BAND_CELLS_MAX. */
-const BAND_CLASSES_MAX = Math.floor((-1 + Math.sqrt(1 + (4 * BAND_CELLS_MAX) / BAND_BINS)) / 2);
 
 function frameInputCheck(truth: LabelMap, pred: LabelMap): Result<true> {
   const { width, height } = truth;
@@ -76,9 +73,9 @@ export function frameScore(
   if (!ids.ok) return ids;
   const { width, height } = truth;
   const k = classIds.length;
-  if (BAND_BINS * k * (k + 1) > BAND_CELLS_MAX) {
+  if (k > CLASSES_MAX) {
     const mb = Math.round((BAND_BINS * k * (k + 1) * 4) / 2 ** 20);
-    return fail('', `${k} classes would need a ${mb} MB band histogram per frame; score at most ${BAND_CLASSES_MAX} classes`);
+    return fail('', `${k} classes would need a ${mb} MB band histogram per frame; at most ${CLASSES_MAX} classes are scored`);
   }
   const s = scratch;
   scoreScratchFit(s, width, height);

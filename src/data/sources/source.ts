@@ -1,3 +1,4 @@
+import { dictCreate } from '../../core/dict.ts';
 import type { DatasetListing } from '../pairing.ts';
 
 /** Where a dataset's files come from: the built-in demo, a folder served by `npm start`, or a folder dropped on the page. */
@@ -26,7 +27,7 @@ export function datasetPathSplit(path: string): { folder: string; rest: string }
 
 /** Returns the dataset listing of a flat list of paths relative to the dataset root, and the classes.json path. */
 export function listingFromPaths(paths: string[]): { listing: DatasetListing; classesPath: string | null; ignored: string[] } {
-  const listing: DatasetListing = { images: [], truth: [], predictions: {}, confidence: {} };
+  const listing: DatasetListing = { images: [], truth: [], predictions: dictCreate(), confidence: dictCreate() };
   let classesPath: string | null = null;
   const ignored: string[] = [];
   for (const path of paths) {
