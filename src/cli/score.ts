@@ -20,7 +20,7 @@ import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportR
 import { OutputError, outputCheck, outputWrite } from './outputFile.ts';
 import { framesCsv, summaryText, type FrameCsvRow } from './scoreReportWrite.ts';
 import { termText } from './termText.ts';
-import type { ScoreThreadJobs } from './scoreThread.ts';
+import type { ScoreFileJobs } from './scoreFiles.ts';
 import { threadPortCreate } from './threadPort.ts';
 
 const THREAD = new URL('./scoreThread.ts', import.meta.url);
@@ -103,7 +103,7 @@ async function run(given: ScoreOptions): Promise<number> {
     progress.tick(done, failed, termText(result.name));
   };
 
-  const pool = workerPoolCreate<ScoreThreadJobs>(() => threadPortCreate(THREAD), Math.min(options.workers, n));
+  const pool = workerPoolCreate<ScoreFileJobs>(() => threadPortCreate(THREAD), Math.min(options.workers, n));
   try {
     let next = 0;
     // A bounded window keeps memory flat: at most two frames per thread are read or in flight.

@@ -8,7 +8,7 @@ import type { Pairing } from '../data/pairing.ts';
 import { UsageError } from './args.ts';
 import { filesUnder } from './listFiles.ts';
 import type { ScoreOptions } from './scoreArgs.ts';
-import type { FrameScorePaths } from './scoreThread.ts';
+import type { FrameScorePaths } from './scoreFiles.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
 
 /** The dataset the scorer was pointed at: frames paired by stem, the class table, and what did not pair. */
@@ -84,7 +84,6 @@ export function scoreJobOf(ds: ScoreDataset, options: ScoreOptions, table: Class
       return { run, file: file === null ? null : { file: `${run}/${file}`, path: join(runDir.get(run)!, file) } };
     }),
     photo: options.images && f.image ? { file: `images/${f.image}`, path: join(options.images, f.image) } : null,
-    photoPixels: true,
     confidence: options.confidence.map((c) => {
       const file = f.confidence[c.name] ?? null;
       return { run: c.name, file: file === null ? null : { file: `confidence/${c.name}/${file}`, path: join(confDir.get(c.name)!, file) } };

@@ -1,5 +1,5 @@
 import type { RgbaImage } from './png/decodePhoto.ts';
-import { fail, ok, type Result } from './result.ts';
+import { ok, type Result } from './result.ts';
 
 /** A file of a frame: the name used in messages (e.g. `truth/kq-0001.png`) plus whatever locates it. */
 export interface FrameFileRef {
@@ -33,11 +33,20 @@ function readReason(e: unknown): string {
   return e instanceof Error ? e.message : String(e);
 }
 
-/** Returns the file's bytes, or `<file>: could not be read (<reason>)`; browser and command line say it alike. */
+/**
+ * Returns the file's bytes, or `<file>: could not be read (<reason>)`; browser and command line say it
+ * alike. A reader's error that already names the file (`<file>: …`) is passed on as it is.
+ */
 export async function fileBytesRead<F extends FrameFileRef>(reader: FrameFileReader<F>, file: F): Promise<Result<FileBytes>> {
   try {
     return ok({ file: file.file, bytes: await reader.bytes(file) });
   } catch (e) {
-    return fail(file.file, `could not be read (${readReason(e)})`);
+    return { ok: false, error: readFailure(file.file, e) };
   }
+}
+
+/** Returns the message for `file` failing to be read with `e`: `<file>: could not be read (<reason>)`, or `e`'s own message when it names the file. */
+export function readFailure(file: string, e: unknown): string {
+  if (e instanceof Error && e.message.startsWith(`${file}: `)) return e.message;
+  return `${file}: could not be read (${readReason(e)})`;
 }

@@ -1,5 +1,6 @@
 import { classTableGenerated, CLASSES_MAX, type ClassTable } from './classTable.ts';
 import { frameSizesCheck, labelMapIdsCheck } from './frameCheck.ts';
+import type { FileBytes } from './frameFiles.ts';
 import type { LabelMap } from './labelMap.ts';
 import { frameScore, type FrameStats } from './metrics/frameScore.ts';
 import { scoreScratchCreate, type ScoreScratch } from './metrics/scratch.ts';
@@ -14,12 +15,6 @@ import { regionScratchCreate, type RegionScratch } from './regions/regionScratch
 import { regionSettingsCheck, type RegionSettings } from './regions/regionSettings.ts';
 import type { ClassAppearance } from './regions/appearance.ts';
 import type { FrameGrid, RunRegions } from './regions/regionTypes.ts';
-
-/** One file of a frame, as bytes, with the name used in messages (e.g. `truth/kq-0001.png`). */
-export interface FileBytes {
-  file: string;
-  bytes: Uint8Array;
-}
 
 /** Everything needed to score one frame against every run; plain data so it crosses to a worker. */
 export interface FrameJobInput {

@@ -1,10 +1,10 @@
 import type { ClassTable } from '../core/classTable.ts';
 import type { DecodedFrame } from '../core/decodedFrame.ts';
 import type { Result } from '../core/result.ts';
-import type { FileBlob } from '../workers/blobFiles.ts';
 import type { ViewPool } from '../workers/scorePool.ts';
 import { VIEW_COMMANDS, type FrameDecodeRequest } from '../workers/viewJobs.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
+import { frameBlobOf } from './scoringRun.ts';
 
 /** Decoded frames kept around the cursor: a small LRU, so memory stays flat however long the dataset. */
 export interface FrameCache {
@@ -20,20 +20,13 @@ export interface FrameCache {
 export function frameCacheCreate(dataset: LoadedDataset, table: ClassTable, pool: ViewPool, capacity = 5): FrameCache {
   const entries = new Map<number, Promise<Result<DecodedFrame>>>();
 
-  async function blob(folder: string, path: string | null): Promise<FileBlob | null> {
-    if (path === null) return null;
-    return { file: `${folder}/${path}`, blob: await dataset.source.read(folder, path) };
-  }
-
   async function decode(index: number): Promise<Result<DecodedFrame>> {
     const frame = dataset.pairing.frames[index];
     const req: FrameDecodeRequest = {
       name: frame.name,
-      truth: (await blob('truth', frame.truth))!,
-      preds: await Promise.all(
-        dataset.pairing.runs.map(async (run) => ({ run, file: await blob(`predictions/${run}`, frame.predictions[run]).catch(() => null) })),
-      ),
-      photo: await blob('images', frame.image).catch(() => null),
+      truth: (await frameBlobOf(dataset.source, 'truth', frame.truth))!,
+      preds: await Promise.all(dataset.pairing.runs.map(async (run) => ({ run, file: await frameBlobOf(dataset.source, `predictions/${run}`, frame.predictions[run]) }))),
+      photo: await frameBlobOf(dataset.source, 'images', frame.image),
       table,
     };
     return pool.run(VIEW_COMMANDS.frameDecode, req);

@@ -6,7 +6,7 @@ import type { FrameFiles } from '../data/pairing.ts';
 import type { DatasetSource } from '../data/sources/source.ts';
 import { JobCancelled } from '../workers/pool.ts';
 import type { ScorePool } from '../workers/scorePool.ts';
-import type { FileBlob } from '../workers/blobFiles.ts';
+import { fileBlobOf, type FileBlob } from '../workers/blobFiles.ts';
 import { SCORE_COMMANDS, type FrameScoreRequest } from '../workers/scoreJobs.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
 import type { AppStore } from './store.ts';
@@ -17,9 +17,9 @@ export function scoringTableOf(dataset: LoadedDataset, settings: ScoreSettings):
   return { ...base, ignore: settings.ignore, classes: base.classes.filter((c) => c.id !== settings.ignore) };
 }
 
-async function blobOf(source: DatasetSource, folder: string, path: string | null): Promise<FileBlob | null> {
-  if (path === null) return null;
-  return { file: `${folder}/${path}`, blob: await source.read(folder, path) };
+/** Returns the frame's file in `folder` as the workers take it (null when the frame has none); a failed read travels with it. */
+export function frameBlobOf(source: DatasetSource, folder: string, path: string | null): Promise<FileBlob | null> {
+  return path === null ? Promise.resolve(null) : fileBlobOf(`${folder}/${path}`, () => source.read(folder, path));
 }
 
 /** Returns the worker request for one frame, reading its files from the source. */
@@ -27,13 +27,11 @@ export async function frameScoreRequest(
   dataset: LoadedDataset, frame: FrameFiles, table: ClassTable, settings: ScoreSettings,
 ): Promise<FrameScoreRequest> {
   const { source, pairing } = dataset;
-  const truth = (await blobOf(source, 'truth', frame.truth))!;
-  const preds = await Promise.all(
-    pairing.runs.map(async (run) => ({ run, file: await blobOf(source, `predictions/${run}`, frame.predictions[run]).catch(() => null) })),
-  );
-  const photo = await blobOf(source, 'images', frame.image).catch(() => null);
+  const truth = (await frameBlobOf(source, 'truth', frame.truth))!;
+  const preds = await Promise.all(pairing.runs.map(async (run) => ({ run, file: await frameBlobOf(source, `predictions/${run}`, frame.predictions[run]) })));
+  const photo = await frameBlobOf(source, 'images', frame.image);
   const confidence = await Promise.all(
-    Object.entries(frame.confidence).map(async ([run, path]) => ({ run, file: await blobOf(source, `confidence/${run}`, path).catch(() => null) })),
+    Object.entries(frame.confidence).map(async ([run, path]) => ({ run, file: await frameBlobOf(source, `confidence/${run}`, path) })),
   );
   return { name: frame.name, truth, preds, photo, confidence, table, settings };
 }
@@ -95,7 +93,7 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
         result = await pool.run(SCORE_COMMANDS.frameScore, req);
       } catch (e) {
         if (e instanceof JobCancelled || gen !== generation) return;
-        result = failedResult(frame, dataset.pairing.runs, (e as Error).message.startsWith('truth/') ? (e as Error).message : `${frame.name}: ${(e as Error).message}`);
+        result = failedResult(frame, dataset.pairing.runs, `${frame.name}: ${(e as Error).message}`);
       }
       if (gen === generation) deliver(gen, index, result);
     };

@@ -14,7 +14,7 @@ describe('blobFileReader (src/workers/blobFiles.ts)', () => {
   });
 
   it('a Blob whose read fails gives "<file>: could not be read (<reason>)"', async () => {
-    const broken = { arrayBuffer: () => Promise.reject(new Error('A requested file or directory could not be found')) } as unknown as Blob;
+    const broken: Blob = { size: 100, slice: () => broken, arrayBuffer: () => Promise.reject(new Error('A requested file or directory could not be found')) } as unknown as Blob;
     const r = await fileBytesRead(blobFileReader, { file: 'predictions/a/f.png', blob: broken });
     expect(r).toEqual({ ok: false, error: 'predictions/a/f.png: could not be read (A requested file or directory could not be found)' });
   });
