@@ -49,6 +49,7 @@ export async function scoreOptionsResolve(options: ScoreOptions): Promise<ScoreO
     runs: runs.map((name) => ({ name, dir: join(root, dirs[`predictions/${name}`]) })),
     images: dirs.images !== undefined ? join(root, dirs.images) : null,
     confidence: Object.keys(listing.confidence ?? {}).map((name) => ({ name, dir: join(root, dirs[`confidence/${name}`]) })),
+    instances: dirs.instances !== undefined ? join(root, dirs.instances) : null,
     classes: options.classes ?? (classesPath ? join(root, classesPath) : null),
     list: options.list ?? (listPath ? join(root, listPath) : null),
     pair,

@@ -8,6 +8,8 @@ export interface ScoreOptions {
   runs: { name: string; dir: string }[];
   images: string | null;
   confidence: { name: string; dir: string }[];
+  /** A folder of instance maps (16-bit ids, 0 = no instance) for iIoU, or null. */
+  instances: string | null;
   classes: string | null;
   ignore: number | null;
   out: string | null;
@@ -28,7 +30,7 @@ export interface ScoreOptions {
 }
 
 export const SCORE_USAGE = `usage: npm run score -- --truth DIR --pred [NAME=]DIR [--pred ...] [--classes FILE] [--ignore N]
-       [--images DIR] [--confidence NAME=DIR] [--list FILE] [--out report.json] [--csv frames.csv] [--workers N]
+       [--images DIR] [--confidence NAME=DIR] [--instances DIR] [--list FILE] [--out report.json] [--csv frames.csv] [--workers N]
        [--biou-ratio R] [--bf-tolerance T] [--suspects N] [--verdicts FLAGS.json]
    or: npm run score -- --dataset DIR|hairline.json [--list FILE] [--classes FILE] [--out …] …`;
 
@@ -39,6 +41,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     pred: { kind: 'string', repeat: true },
     images: { kind: 'string' },
     confidence: { kind: 'string', repeat: true },
+    instances: { kind: 'string' },
     classes: { kind: 'string' },
     ignore: { kind: 'number' },
     out: { kind: 'string' },
@@ -56,7 +59,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
   if (a._.length) throw new UsageError(`unexpected argument "${a._[0]}"`);
   const dataset = (a.dataset as string | undefined) ?? null;
   if (dataset !== null) {
-    const mixed = ['truth', 'pred', 'images', 'confidence'].find((k) => a[k] !== undefined);
+    const mixed = ['truth', 'pred', 'images', 'confidence', 'instances'].find((k) => a[k] !== undefined);
     if (mixed) throw new UsageError(`--dataset names the folders itself; leave out --${mixed} (or describe it in hairline.json)`);
   } else if (typeof a.truth !== 'string') throw new UsageError('--truth DIR is required (or --dataset DIR)');
   const preds = (a.pred as string[] | undefined) ?? [];
@@ -84,6 +87,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     runs,
     images: (a.images as string | undefined) ?? null,
     confidence,
+    instances: (a.instances as string | undefined) ?? null,
     classes: (a.classes as string | undefined) ?? null,
     ignore: ignore ?? null,
     out: (a.out as string | undefined) ?? null,

@@ -47,12 +47,14 @@ export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreData
   const confidence = dictCreate<string[]>();
   for (const c of options.confidence) confidence[c.name] = await filesUnder(c.dir, 'confidence');
   const images = options.images ? await filesUnder(options.images, 'images') : [];
+  const instances = options.instances ? await filesUnder(options.instances, 'instances') : undefined;
   const ignore = table?.ignore ?? options.ignore ?? 255;
   const dirs = new Map<string, string>([['truth', options.truth], ['images', options.images ?? '']]);
   for (const r of options.runs) dirs.set(`predictions/${r.name}`, r.dir);
   for (const c of options.confidence) dirs.set(`confidence/${c.name}`, c.dir);
+  if (options.instances) dirs.set('instances', options.instances);
   const read = async (folder: string, path: string) => new Uint8Array(await readFile(join(dirs.get(folder)!, path)));
-  let pairing = await datasetPairProbed({ truth, predictions, images, confidence }, read, table, ignore, options.pair);
+  let pairing = await datasetPairProbed({ truth, predictions, images, confidence, instances }, read, table, ignore, options.pair);
   if (options.list) {
     const text = await readFile(options.list, 'utf8').catch((e: NodeJS.ErrnoException) => {
       throw new UsageError(`--list ${options.list}: cannot read (${e.code ?? e.message})`);

@@ -3,10 +3,12 @@ import { frameSizesCheck, labelMapIdsCheck } from './frameCheck.ts';
 import type { FileBytes } from './frameFiles.ts';
 import type { LabelMap } from './labelMap.ts';
 import { frameScore, type FrameStats } from './metrics/frameScore.ts';
-import { scoreScratchCreate, type ScoreScratch } from './metrics/scratch.ts';
+import { scoreScratchCodeTable, scoreScratchCreate, type ScoreScratch } from './metrics/scratch.ts';
+import { frameExtrasCompute, type RunExtras } from './frameExtras.ts';
 import type { ScoreSettings } from './metrics/settings.ts';
 import { idCensusOf, type IdCensus } from './idCensus.ts';
 import { labelMapRead } from './labelRead.ts';
+import { labelMapFromPng } from './png/decodeLabel.ts';
 import { pngHeaderRead } from './png/header.ts';
 import type { RgbaImage } from './png/decodePhoto.ts';
 import { confidenceFromPng, type ConfidenceMap } from './regions/confidenceMap.ts';
@@ -33,6 +35,13 @@ export interface FrameJobInput {
   confidence?: { run: string; file: FileBytes | null }[];
   /** Region settings (defaults: REGION_DEFAULTS); false skips error regions. */
   regions?: Partial<RegionSettings> | false;
+  /**
+   * Per run: its predictions at this frame's neighbours in its sequence (src/core/temporal/sequences.ts),
+   * for the flip-back rate; null at a sequence end. Absent: no flicker scores.
+   */
+  neighbours?: { run: string; prev: FileBytes | null; next: FileBytes | null }[];
+  /** The frame's instance map (8/16-bit gray PNG, 0 = no instance), for iIoU; null / absent without one. */
+  instances?: FileBytes | null;
   table: ClassTable;
   settings: ScoreSettings;
   maxPixels?: number;
@@ -52,6 +61,8 @@ export interface FrameRunResult {
   regions?: RunRegions | null;
   /** How this run's ids line up with the truth's (for the id-space warnings of src/core/idCensus.ts). */
   census?: IdCensus;
+  /** Objects, flicker and iIoU counts (src/core/frameExtras.ts); absent when the run failed. */
+  extras?: RunExtras | null;
 }
 
 /** Scores of one frame: `error` set when the frame itself (its ground truth) failed, else per-run results. */
@@ -141,6 +152,7 @@ export function frameJobScore(
     if (!s.ok) return { run, stats: null, error: `${input.truth.file}: ${s.error}` };
     return { run, stats: s.value, error: null, census: idCensusOf(truth.value, map, settings.ignore) };
   });
+  extrasAdd(input, truth.value, decoded.map((d, i) => (runs[i].error ? null : d.map)), classIds, scratch, runs, warnings);
   if (input.regions === false) return { ...base, width, height, error: null, runs, ...(warnings.length ? { warnings } : {}) };
   const regionSettings = regionSettingsCheck(input.regions);
   if (!regionSettings.ok) return failAll(regionSettings.error);
@@ -161,6 +173,45 @@ export function frameJobScore(
   }
   runs.forEach((r, i) => (r.regions = regions.value.runs[i]));
   return { ...base, width, height, error: null, runs, grid: regions.value.grid, appearance: regions.value.appearance, warnings };
+}
+
+/** Decodes a neighbour's prediction or an instance map for the extras; null (with a warning) when it is unusable. */
+function extraMapRead(
+  file: FileBytes | null, input: FrameJobInput, role: 'prediction' | 'instances', width: number, height: number, warnings: string[], loses: string,
+): LabelMap | null {
+  if (!file) return null;
+  const r = role === 'prediction'
+    ? labelMapRead(file.bytes, { file: file.file, table: input.table, maxPixels: input.maxPixels, role })
+    : labelMapFromPng(file.bytes, { file: file.file, maxPixels: input.maxPixels });
+  const sizes = r.ok ? frameSizesCheck([{ file: input.truth.file, width, height }, { file: file.file, width: r.value.width, height: r.value.height }]) : r;
+  if (!sizes.ok) {
+    warnings.push(`${sizes.error}; ${loses} not computed on this frame`);
+    return null;
+  }
+  return r.ok ? r.value : null;
+}
+
+/** Computes each scored run's objects, flicker and iIoU counts into `runs[i].extras`. */
+function extrasAdd(
+  input: FrameJobInput, truth: LabelMap, maps: (LabelMap | null)[], classIds: readonly number[], scratch: ScoreScratch,
+  runs: FrameRunResult[], warnings: string[],
+): void {
+  if (classIds.length === 0) return;
+  const { width, height } = truth;
+  const instances = extraMapRead(input.instances ?? null, input, 'instances', width, height, warnings, 'instance-weighted IoU');
+  const runMaps = runs.map((r, i) => {
+    const n = input.neighbours?.find((x) => x.run === r.run);
+    const map = maps[i];
+    if (!map || !n || !n.prev || !n.next) return { map, prev: null, next: null };
+    const prev = extraMapRead(n.prev, input, 'prediction', width, height, warnings, `flicker of ${r.run}`);
+    const next = prev ? extraMapRead(n.next, input, 'prediction', width, height, warnings, `flicker of ${r.run}`) : null;
+    return { map, prev, next };
+  });
+  const codes = scoreScratchCodeTable(scratch, classIds, input.settings.ignore);
+  const extras = frameExtrasCompute(truth, runMaps, instances, classIds, codes);
+  runs.forEach((r, i) => {
+    if (extras[i]) r.extras = extras[i];
+  });
 }
 
 /** Returns the run's decoded confidence map, or null (absent, or unusable: then the reason is added to `warnings`). */

@@ -20,6 +20,8 @@ export interface Description {
   /** Run name → its folder. */
   predictions?: Record<string, FolderSpec>;
   confidence?: Record<string, FolderSpec>;
+  /** Instance maps (16-bit instance ids, 0 = no instance), for instance-weighted IoU. */
+  instances?: FolderSpec;
   /** The class table file. */
   classes?: string;
   /** A list file of the frames to use (one key per line, `#` comments). */
@@ -60,6 +62,7 @@ const descriptionSchema = z
       images: folderSchema.optional(),
       predictions: runsSchema.optional(),
       confidence: runsSchema.optional(),
+      instances: folderSchema.optional(),
       classes: pathSchema.optional(),
       list: pathSchema.optional(),
     },

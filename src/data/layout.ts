@@ -77,6 +77,7 @@ export function layoutFromPaths(paths: string[], description: Description | null
       if (!description.predictions?.[run]) return fail(DESCRIPTION_FILE, `"confidence.${run}": no run named "${run}" in "predictions"`);
       listing.confidence![run] = place(`confidence/${run}`, spec);
     }
+    if (description.instances) listing.instances = place('instances', description.instances);
     return ok({ listing, dirs, classesPath, listPath: description.list ?? null, pair, how: DESCRIPTION_FILE });
   }
   const truth = topFolder(paths, TRUTH_NAMES);
@@ -98,5 +99,7 @@ export function layoutFromPaths(paths: string[], description: Description | null
     const runs = new Set(filesIn(paths, conf).filter((f) => f.includes('/')).map((f) => f.slice(0, f.indexOf('/'))));
     for (const run of runs) if (listing.predictions[run]) listing.confidence![run] = place(`confidence/${run}`, { folder: `${conf}/${run}` });
   }
+  const instances = topFolder(paths, ['instances']);
+  if (instances) listing.instances = place('instances', { folder: instances });
   return ok({ listing, dirs, classesPath, listPath: null, pair, how: 'folder names' });
 }

@@ -12,6 +12,8 @@ export interface DatasetListing {
   predictions: Record<string, string[]>;
   /** Run name → files of its optional confidence maps. */
   confidence?: Record<string, string[]>;
+  /** Optional instance maps (16-bit ids, 0 = no instance), for iIoU. */
+  instances?: string[];
 }
 
 /** The files that make up one frame, paired by frame key. Paths are relative to their folder. */
@@ -22,6 +24,8 @@ export interface FrameFiles {
   /** Run name → prediction file, or null when the run has no file for this frame. */
   predictions: Record<string, string | null>;
   confidence: Record<string, string | null>;
+  /** The frame's instance map, when the dataset has them. */
+  instance?: string | null;
 }
 
 /** A file that could not be matched to a frame, and why. */
@@ -211,6 +215,10 @@ export function datasetPair(listing: DatasetListing, options: PairOptions = {}):
     return [r, folderMatch(folder, indexFolder(folder, listing.confidence![r], LABEL_EXT, out, chosen[folder], pat[folder]), match, truthFile, out)];
   }));
 
+  const instances = listing.instances?.length
+    ? folderMatch('instances', indexFolder('instances', listing.instances, LABEL_EXT, out, chosen.instances), match, truthFile, out)
+    : null;
+
   const names = [...truth.keys()].sort(naturalCompare);
   const frames: FrameFiles[] = names.map((name) => {
     const predictions = dictCreate<string | null>();
@@ -221,7 +229,9 @@ export function datasetPair(listing: DatasetListing, options: PairOptions = {}):
     }
     const confidence = dictCreate<string | null>();
     for (const r of confRuns) confidence[r] = confs.get(r)!.get(name) ?? null;
-    return { name, image: images.get(name) ?? null, truth: truth.get(name)!, predictions, confidence };
+    const frame: FrameFiles = { name, image: images.get(name) ?? null, truth: truth.get(name)!, predictions, confidence };
+    if (instances) frame.instance = instances.get(name) ?? null;
+    return frame;
   });
   const warnings: string[] = [];
   const photos = listing.images.filter((f) => !isHidden(f)).length;
