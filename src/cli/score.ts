@@ -8,11 +8,12 @@ import { frameSummary } from '../core/metrics/frameSummary.ts';
 import { flagsFileParse } from '../core/review/flagsFile.ts';
 import type { SuspectVerdictKind } from '../core/review/verdict.ts';
 import { reportFrameLine, scoreReport, type ReportFrameLine, type ScoreReport } from '../core/metrics/report.ts';
-import { workerPoolCreate } from '../workers/pool.ts';
 import { UsageError } from './args.ts';
 import { progressCreate } from './progress.ts';
 import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
-import { scoreDatasetOpen, scoreJobOf } from './scoreDataset.ts';
+import { scoreDatasetOpen } from './scoreDataset.ts';
+import { framesScore } from './scoreFrames.ts';
+import { scoreResults } from './scoreResults.ts';
 import { censusKeep, pairingReport } from './scoreOpened.ts';
 import { scoreOptionsResolve } from './datasetArgs.ts';
 import { openedOf } from '../data/opened.ts';
@@ -20,10 +21,6 @@ import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportR
 import { OutputError, outputCheck, outputWrite } from './outputFile.ts';
 import { framesCsv, summaryText, type FrameCsvRow } from './scoreReportWrite.ts';
 import { termText } from './termText.ts';
-import type { ScoreFileJobs } from './scoreFiles.ts';
-import { threadPortCreate } from './threadPort.ts';
-
-const THREAD = new URL('./scoreThread.ts', import.meta.url);
 
 /** Warnings printed before the rest are only counted. */
 const WARNINGS_SHOWN = 20;
@@ -60,6 +57,7 @@ async function run(given: ScoreOptions): Promise<number> {
   if (pairing.frames.length === 0) throw new UsageError(`--truth ${options.truth}: no label PNGs found`);
   const generated = ds.table === null;
   const table: ClassTable = ds.table ?? { ignore: ds.settings.ignore, ignoreColor: null, classes: [], generated: true };
+  if (options.results) return scoreResults(options, ds, table);
   const runs = pairing.runs;
   const n = pairing.frames.length;
 
@@ -103,27 +101,7 @@ async function run(given: ScoreOptions): Promise<number> {
     progress.tick(done, failed, termText(result.name));
   };
 
-  const pool = workerPoolCreate<ScoreFileJobs>(() => threadPortCreate(THREAD), Math.min(options.workers, n));
-  try {
-    let next = 0;
-    // A bounded window keeps memory flat: at most two frames per thread are read or in flight.
-    const lane = async () => {
-      while (next < n) {
-        const index = next++;
-        let result: FrameJobResult;
-        try {
-          result = await pool.run('frameScore', scoreJobOf(ds, options, table, index));
-        } catch (e) {
-          const error = `${pairing.frames[index].name}: ${(e as Error).message}`;
-          result = { name: pairing.frames[index].name, width: 0, height: 0, error, runs: runs.map((r) => ({ run: r, stats: null, error })) };
-        }
-        take(index, result);
-      }
-    };
-    await Promise.all(Array.from({ length: Math.min(n, pool.size * 2) }, lane));
-  } finally {
-    pool.destroy();
-  }
+  await framesScore(ds, options, table, 0, n, take);
   progress.end(done, failed);
   if (warned > WARNINGS_SHOWN) process.stderr.write(`… and ${warned - WARNINGS_SHOWN} more warnings like these\n`);
   const idWarnings = census.warnings();

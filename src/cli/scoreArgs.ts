@@ -27,11 +27,15 @@ export interface ScoreOptions {
   list: string | null;
   /** Per-folder suffix group or key pattern, from hairline.json. */
   pair?: PairOptions;
+  /** A results folder to write (README "Large datasets"), and the shard of the frames to score ("K/N" or "auto"). */
+  results: string | null;
+  shard: string | null;
 }
 
 export const SCORE_USAGE = `usage: npm run score -- --truth DIR --pred [NAME=]DIR [--pred ...] [--classes FILE] [--ignore N]
        [--images DIR] [--confidence NAME=DIR] [--instances DIR] [--list FILE] [--out report.json] [--csv frames.csv] [--workers N]
        [--biou-ratio R] [--bf-tolerance T] [--suspects N] [--verdicts FLAGS.json]
+       [--results DIR [--shard K/N|auto]]
    or: npm run score -- --dataset DIR|hairline.json [--list FILE] [--classes FILE] [--out …] …`;
 
 /** Returns the scorer's options from argv, or throws UsageError naming the mistake. */
@@ -53,10 +57,19 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     verdicts: { kind: 'string' },
     dataset: { kind: 'string' },
     list: { kind: 'string' },
+    results: { kind: 'string' },
+    shard: { kind: 'string' },
     help: { kind: 'flag' },
   });
   if (a.help) throw new UsageError(SCORE_USAGE);
   if (a._.length) throw new UsageError(`unexpected argument "${a._[0]}"`);
+  const results = (a.results as string | undefined) ?? null;
+  const shard = (a.shard as string | undefined) ?? null;
+  if (shard !== null && results === null) throw new UsageError('--shard needs --results DIR (a shard writes a results folder for npm run merge)');
+  if (results !== null && a.verdicts !== undefined) throw new UsageError('--verdicts re-ranks the JSON report\'s queue; leave it out with --results');
+  if (results !== null && (a.out !== undefined || a.csv !== undefined)) {
+    throw new UsageError('--results writes its own tables; leave out --out and --csv (run again without --results for the JSON report)');
+  }
   const dataset = (a.dataset as string | undefined) ?? null;
   if (dataset !== null) {
     const mixed = ['truth', 'pred', 'images', 'confidence', 'instances'].find((k) => a[k] !== undefined);
@@ -99,5 +112,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     verdicts: (a.verdicts as string | undefined) ?? null,
     dataset,
     list: (a.list as string | undefined) ?? null,
+    results,
+    shard,
   };
 }

@@ -28,6 +28,8 @@ export const LAYER_MAY_IMPORT: Record<Layer, readonly Layer[]> = {
  */
 export const PACKAGE_LOWEST_LAYER: Record<string, Layer> = {
   'fflate': 'src/core',
+  'hyparquet': 'src/core',
+  'hyparquet-writer': 'src/core',
   'upng-js': 'src/core',
   'culori': 'src/core',
   'zod': 'src/data',

@@ -87,6 +87,22 @@ export function suspectScore(signals: SuspectSignals, s: SuspectSettings): numbe
   return suspectScoreOf(signals, s).score;
 }
 
+/** The dataset-wide sums a candidate's signals read (confidence thresholds, class-pair habits, class appearance). */
+export type SuspectSums = Pick<SuspectQueueInput, 'confidence' | 'recurrence' | 'appearance'>;
+
+/** Returns a candidate scored from its own evidence, its temporal evidence (flip, steady) and the dataset-wide sums. */
+export function suspectScored(c: SuspectCandidate, flip: TemporalFlip, steady: number, sums: SuspectSums, s: SuspectSettings): ScoredCandidate {
+  const e = sums.confidence.get(c.run)?.get(c.predictedClass);
+  const threshold = e && e.count > 0 ? e.sum / e.count : null;
+  const pair = pairHabitOf(sums.recurrence ?? new Map(), c.truthClass, c.predictedClass, s);
+  const signals: SuspectSignals = {
+    geometry: c.geometry, agreement: c.agreement, confidence: signalConfidence(c.confidenceHist, threshold), image: c.image,
+    appearance: sums.appearance ? signalAppearance(appearanceEvidenceOf(c.appearanceHist, c.truthClass, c.predictedClass, sums.appearance, s), s) : null,
+    temporal: flip.share, steady, habit: pair.habit,
+  };
+  return { c, signals, score: suspectScore(signals, s), threshold, flip, pair };
+}
+
 /** The queue's order: higher score first, then larger area, then earlier frame. */
 export function suspectOrder(a: Pick<ScoredCandidate, 'c' | 'score'>, b: Pick<ScoredCandidate, 'c' | 'score'>): number {
   return b.score - a.score || b.c.area - a.c.area || a.c.frameIndex - b.c.frameIndex;
@@ -98,30 +114,11 @@ export function suspectOrder(a: Pick<ScoredCandidate, 'c' | 'score'>, b: Pick<Sc
  * `queueMax` entries.
  */
 export function suspectQueue(input: SuspectQueueInput, s: SuspectSettings): Suspect[] {
-  const thresholdOf = (run: string, id: number): number | null => {
-    const e = input.confidence.get(run)?.get(id);
-    return e && e.count > 0 ? e.sum / e.count : null;
-  };
   const index = candidateIndexBuild(input.candidates);
   const scoredFrame = (t: number, run: string) => t >= 0 && t < input.grids.length && !!input.grids[t]?.runs[run];
-  const recurrence: PairRecurrence = input.recurrence ?? new Map();
-  const habits = new Map<string, PairHabit>();
-  const habitOf = (g: number, p: number) => {
-    const k = `${g}>${p}`;
-    let h = habits.get(k);
-    if (!h) habits.set(k, (h = pairHabitOf(recurrence, g, p, s)));
-    return h;
-  };
-  const scored = input.candidates.map((c): ScoredCandidate => {
-    const threshold = thresholdOf(c.run, c.predictedClass);
+  const scored = input.candidates.map((c) => {
     const flip = temporalFlip(input.grids, c.frameIndex, c.run, c.cells, c.truthClass, c.predictedClass, s.temporalWindow, s.temporalReach);
-    const pair = habitOf(c.truthClass, c.predictedClass);
-    const signals: SuspectSignals = {
-      geometry: c.geometry, agreement: c.agreement, confidence: signalConfidence(c.confidenceHist, threshold), image: c.image,
-      appearance: input.appearance ? signalAppearance(appearanceEvidenceOf(c.appearanceHist, c.truthClass, c.predictedClass, input.appearance, s), s) : null,
-      temporal: flip.share, steady: steadyDisagreement(c, index, s.temporalWindow, scoredFrame), habit: pair.habit,
-    };
-    return { c, signals, score: suspectScore(signals, s), threshold, flip, pair };
+    return suspectScored(c, flip, steadyDisagreement(c, index, s.temporalWindow, scoredFrame), input, s);
   });
   return suspectRank(scored, input, s);
 }
