@@ -40,9 +40,12 @@ export function runSumsCreate(classIds: readonly number[]): RunSums {
   return { totals: datasetTotalsCreate(classIds), meanIoU: 0n, boundaryF: 0n, bfClass: classIds.map(() => 0n) };
 }
 
-/** Adds one scored frame; with `widen` (no class table) ids not seen before are added first. */
+/** Adds one scored frame; with `widen` (no class table) ids not seen before are added first (throws past the class limit). */
 export function runSumsAdd(s: RunSums, stats: FrameStats, widen: boolean): void {
-  if (widen) runSumsWiden(s, stats.classIds);
+  if (widen) {
+    const w = runSumsWiden(s, stats.classIds);
+    if (!w.ok) throw new Error(w.error);
+  }
   datasetTotalsAdd(s.totals, stats);
   const at = new Map(s.totals.classIds.map((id, i) => [id, i]));
   stats.classIds.forEach((id, c) => {
@@ -57,19 +60,24 @@ export function runSumsAdd(s: RunSums, stats: FrameStats, widen: boolean): void 
 }
 
 /** Widens the sums to the ascending union of their class ids and `ids` (a dataset without a class table). */
-function runSumsWiden(s: RunSums, ids: readonly number[]): void {
+function runSumsWiden(s: RunSums, ids: readonly number[]): Result<true> {
   const old = s.totals.classIds;
-  s.totals = datasetTotalsWiden(s.totals, ids);
-  if (s.totals.classIds.length === old.length) return;
+  const wide = datasetTotalsWiden(s.totals, ids);
+  if (!wide.ok) return wide;
+  s.totals = wide.value;
+  if (s.totals.classIds.length === old.length) return ok(true);
   const was = new Map(old.map((id, i) => [id, s.bfClass[i]]));
   s.bfClass = s.totals.classIds.map((id) => was.get(id) ?? 0n);
+  return ok(true);
 }
 
 /** Adds `from` into `into`; with `widen` the class lists are joined first, otherwise they must be equal. */
 export function runSumsMerge(into: RunSums, from: RunSums, widen: boolean): Result<RunSums> {
   if (widen) {
-    runSumsWiden(into, from.totals.classIds);
-    runSumsWiden(from, into.totals.classIds);
+    const a = runSumsWiden(into, from.totals.classIds);
+    if (!a.ok) return a;
+    const b = runSumsWiden(from, into.totals.classIds);
+    if (!b.ok) return b;
   }
   const merged = datasetTotalsMerge(into.totals, from.totals);
   if (!merged.ok) return merged;
