@@ -2,7 +2,8 @@ import { useMemo, useState } from 'react';
 import { REGION_KINDS } from '../core/regions/regionTypes.ts';
 import { suspectKey, type SuspectVerdictKind } from '../core/review/verdict.ts';
 import type { Suspect } from '../core/suspects/suspectQueue.ts';
-import { classNameSel, suspectsSel } from '../state/selectors.ts';
+import { classNameSel } from '../state/selectors.ts';
+import { suspectsRankedSel } from '../state/suspectsRanked.ts';
 import { KIND_NAMES, VERDICT_NAMES } from './regionWords.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 import { Thumb } from './Thumb.tsx';
@@ -22,7 +23,7 @@ export function QueuePanel() {
   const [pair, setPair] = useState('');
   const [run, setRun] = useState('');
   const [hideJudged, setHideJudged] = useState(false);
-  const queue = useApp(suspectsSel);
+  const queue = useApp(suspectsRankedSel);
   const name = useApp(classNameSel);
   const pairs = useMemo(() => [...new Set(queue.map((q) => `${q.truthClass}>${q.predictedClass}`))], [queue]);
   const shown = queue.filter(
@@ -96,11 +97,15 @@ export function QueuePanel() {
                   label <b>{name(q.truthClass)}</b>, {q.run}
                   {q.alsoRuns.length ? ` and ${q.alsoRuns.join(', ')}` : ''} say <b>{name(q.predictedClass)}</b>
                 </div>
+                {q.learnedReason && <div className="qi-learned">{q.learnedReason}</div>}
                 <ul className="qi-reasons">
                   {q.reasons.slice(0, 3).map((r, i) => (
                     <li key={i}>{r}</li>
                   ))}
                 </ul>
+                <div className="qi-parts" title="What each signal added to the score (score = 0.5 + these)">
+                  {q.contributionsText}
+                </div>
                 <div className="qi-verdicts" onClick={(e) => e.stopPropagation()}>
                   {(['label-mistake', 'model-error', 'unsure'] as const).map((v) => (
                     <button key={v} className={verdict === v ? `on v-${v}` : ''} onClick={() => setVerdict(q, v)}>

@@ -1,5 +1,6 @@
 import type { LayerKey } from '../../core/composite/layerSettings.ts';
-import { frameOrderSel, suspectsSel } from '../../state/selectors.ts';
+import { frameOrderSel } from '../../state/selectors.ts';
+import { suspectsRankedSel } from '../../state/suspectsRanked.ts';
 import { suspectKey, type SuspectVerdictKind } from '../../core/review/verdict.ts';
 import type { Suspect } from '../../core/suspects/suspectQueue.ts';
 
@@ -40,7 +41,7 @@ function frameStepInOrder(ctx: CommandContext, step: number): void {
 /** Moves the queue selection by `step` (selecting the first item when none is selected). */
 function queueStep(ctx: CommandContext, step: number): void {
   const s = ctx.store.getState();
-  const queue = suspectsSel(s);
+  const queue = suspectsRankedSel(s);
   if (queue.length === 0) return;
   const keys = queue.map((q) => suspectKey(q));
   const at = s.queueSelected ? keys.indexOf(s.queueSelected) : -1;
@@ -59,7 +60,7 @@ function verdictCommand(v: SuspectVerdictKind, label: string, key: string): Comm
     enabled: ({ store }) => store.getState().queueSelected !== null,
     run: ({ store }) => {
       const s = store.getState();
-      const q = suspectsSel(s).find((x) => suspectKey(x) === s.queueSelected);
+      const q = suspectsRankedSel(s).find((x) => suspectKey(x) === s.queueSelected);
       if (!q) return;
       const ref = suspectRefOf(q);
       s.verdictSet(ref, s.reviewVerdicts[suspectKey(ref)]?.verdict === v ? null : v);
@@ -72,7 +73,7 @@ function flagSelected(ctx: CommandContext): void {
   const s = ctx.store.getState();
   const frame = s.dataset?.pairing.frames[s.frameIndex]?.name;
   if (!frame) return;
-  const q = s.queueSelected ? suspectsSel(s).find((x) => suspectKey(x) === s.queueSelected) : undefined;
+  const q = s.queueSelected ? suspectsRankedSel(s).find((x) => suspectKey(x) === s.queueSelected) : undefined;
   if (q && q.frameIndex === s.frameIndex) {
     s.flagDraftSet({
       frame, kind: 'region', bbox: q.bbox, reason: 'label-mistake', run: q.run,
@@ -174,11 +175,11 @@ export const APP_COMMANDS: Command[] = [
   },
   {
     id: 'queue.next', label: 'Next likely label mistake', group: 'Likely label mistakes', keys: ['Q'],
-    enabled: ({ store }) => suspectsSel(store.getState()).length > 0, run: (ctx) => queueStep(ctx, 1),
+    enabled: ({ store }) => suspectsRankedSel(store.getState()).length > 0, run: (ctx) => queueStep(ctx, 1),
   },
   {
     id: 'queue.prev', label: 'Previous likely label mistake', group: 'Likely label mistakes', keys: ['Shift+Q'],
-    enabled: ({ store }) => suspectsSel(store.getState()).length > 0, run: (ctx) => queueStep(ctx, -1),
+    enabled: ({ store }) => suspectsRankedSel(store.getState()).length > 0, run: (ctx) => queueStep(ctx, -1),
   },
   verdictCommand('label-mistake', 'label mistake', 'L'),
   verdictCommand('model-error', 'model error', 'E'),
