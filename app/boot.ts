@@ -35,7 +35,7 @@ export function appStart(): AppRuntime {
   const viewPool = viewPoolCreate();
   const fromUrl = urlViewDecode(location.hash);
   // Flags and verdicts are saved in IndexedDB per dataset as they change, and shared with other tabs.
-  const keeper = reviewKeep(store, { backend: reviewBackendIdb(), channel: reviewChannelOpen() });
+  const keeper = reviewKeep(store, { backend: reviewBackendIdb(), channel: reviewChannelOpen(), page: window });
   const stops = [scoringKeep(store, scorePool), shownKeep(store, viewPool), urlViewKeep(store), () => keeper.stop()];
   void datasetOpenInitial(store, fromUrl);
   return {

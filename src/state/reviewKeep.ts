@@ -3,10 +3,17 @@ import type { ReviewChannel } from './reviewChannel.ts';
 import { reviewStorageGet, reviewStorageLoad, reviewStoragePut, type ReviewBackend } from './reviewStorage.ts';
 import type { AppStore } from './store.ts';
 
-/** Storage and (optionally) the channel to other tabs that reviewKeep works with. */
+/** The page's life-cycle events reviewKeep listens to (the window in the app; none in tests). */
+export interface ReviewPageEvents {
+  addEventListener(type: 'pagehide' | 'visibilitychange' | 'beforeunload', listener: (e: Event) => void): void;
+  removeEventListener(type: 'pagehide' | 'visibilitychange' | 'beforeunload', listener: (e: Event) => void): void;
+}
+
+/** Storage, (optionally) the channel to other tabs, and the page whose closing flushes the writes. */
 export interface ReviewKeepOptions {
   backend: ReviewBackend;
   channel?: ReviewChannel | null;
+  page?: ReviewPageEvents | null;
 }
 
 /** A promise per settled step, so a caller (or a test) can wait until every write has landed. */
@@ -14,6 +21,8 @@ export interface ReviewKeeper {
   stop(): void;
   /** Resolves once the load and every write started so far have finished. */
   idle(): Promise<void>;
+  /** Returns whether changes are waiting to be written or being written. */
+  pending(): boolean;
 }
 
 function saveError(e: unknown): string {
@@ -22,11 +31,14 @@ function saveError(e: unknown): string {
 
 /**
  * Keeps the review slice persistent: loads the saved records when a dataset opens (by its fingerprint),
- * writes every changed record at once in its own last-write-wins update, tells other tabs, and merges
- * what other tabs wrote. Returns the keeper (stop, idle).
+ * writes changed records in last-write-wins updates, tells other tabs, and merges what other tabs
+ * wrote. Changes made together (an import, a bulk delete, many edits in one task) go in one
+ * transaction; while one is being written, further changes gather for the next, so a burst of edits
+ * costs two commits, not one per record. When the page is hidden or closed the gathered changes are
+ * written at once, and while any are unwritten the page asks before unloading. Returns the keeper.
  */
 export function reviewKeep(store: AppStore, options: ReviewKeepOptions): ReviewKeeper {
-  const { backend, channel } = options;
+  const { backend, channel, page } = options;
   /** Per record key: the record storage is known to hold (the same object as in the store). */
   const stored = new Map<string, ReviewRecord>();
   let key: string | null = null;
@@ -63,9 +75,27 @@ export function reviewKeep(store: AppStore, options: ReviewKeepOptions): ReviewK
     );
   }
 
+  /** Changes seen but not yet handed to storage, and whether a transaction is being written. */
+  let dirty = false;
+  let writing = false;
+  let scheduled = false;
+
+  /** Notes a change; it is written in the next task's transaction, together with any made meanwhile. */
   function write(): void {
+    dirty = true;
+    if (scheduled || writing) return;
+    scheduled = true;
+    queueMicrotask(() => {
+      scheduled = false;
+      flush();
+    });
+  }
+
+  function flush(): void {
+    if (!dirty || writing) return;
     const s = store.getState();
     if (key === null || s.reviewDatasetKey !== key || s.reviewStatus === 'loading') return;
+    dirty = false;
     const changed: ReviewRecord[] = [];
     for (const [k, r] of Object.entries(s.reviewRecords)) {
       if (stored.get(k) === r) continue;
@@ -75,8 +105,13 @@ export function reviewKeep(store: AppStore, options: ReviewKeepOptions): ReviewK
     if (changed.length === 0) return;
     const datasetKey = key;
     const gen = generation;
+    writing = true;
+    const settle = () => {
+      writing = false;
+      if (dirty) flush();
+    };
     void track(
-      reviewStoragePut(backend, datasetKey, changed).then(
+      reviewStoragePut(backend, datasetKey, changed).finally(settle).then(
         ({ newer, problems }) => {
           if (gen !== generation) return;
           if (newer.length) merge(newer);
@@ -107,14 +142,38 @@ export function reviewKeep(store: AppStore, options: ReviewKeepOptions): ReviewK
   });
   open(store.getState().dataset?.key ?? null);
 
+  const pending = () => dirty || writing || inflight.size > 0;
+  // Hidden or closing: hand gathered changes to storage now, not in a later task that may never run.
+  const onHide = (e: Event) => {
+    if (e.type === 'pagehide' || (e.target as Document | null)?.visibilityState !== 'visible') flush();
+  };
+  // Closing with writes unfinished: the browser asks the user to stay (it shows its own words).
+  const onBeforeUnload = (e: Event) => {
+    flush();
+    if (!pending()) return;
+    e.preventDefault();
+    (e as unknown as { returnValue: string }).returnValue = '';
+  };
+  page?.addEventListener('pagehide', onHide);
+  page?.addEventListener('visibilitychange', onHide);
+  page?.addEventListener('beforeunload', onBeforeUnload);
+
   return {
     stop() {
       unsubscribe();
       generation++;
       channel?.close();
+      page?.removeEventListener('pagehide', onHide);
+      page?.removeEventListener('visibilitychange', onHide);
+      page?.removeEventListener('beforeunload', onBeforeUnload);
     },
     async idle() {
-      while (inflight.size) await Promise.allSettled([...inflight]);
+      for (;;) {
+        if (inflight.size) await Promise.allSettled([...inflight]);
+        else if (scheduled) await new Promise<void>((r) => setTimeout(r, 0));
+        else return;
+      }
     },
+    pending,
   };
 }

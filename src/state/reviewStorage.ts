@@ -17,8 +17,12 @@ export interface ReviewBackend {
   /** Returns every [key, value] whose key starts with `prefix`. */
   entries(prefix: string): Promise<[string, unknown][]>;
   get(key: string): Promise<unknown>;
-  /** Replaces the value at `key` by `updater(old)` atomically (no other write lands in between). */
-  update(key: string, updater: (old: unknown) => unknown): Promise<void>;
+  /**
+   * Replaces the value at each key by `updater(old)`, all in one atomic transaction: no other write
+   * lands in between, and either every value is written or none (a bulk change is one commit, not
+   * one per record, so it lands before a reload that follows it closely).
+   */
+  updateMany(updates: readonly (readonly [key: string, updater: (old: unknown) => unknown])[]): Promise<void>;
   del(key: string): Promise<void>;
 }
 
@@ -39,16 +43,17 @@ export interface ReviewPutOutcome {
 }
 
 /**
- * Writes records, each in its own atomic update that keeps whichever version is newer (stored or
+ * Writes records in one transaction, each update keeping whichever version is newer (stored or
  * ours), so two tabs writing at once never lose each other's edits. Returns the stored versions that won.
  */
 export async function reviewStoragePut(backend: ReviewBackend, datasetKey: string, records: readonly ReviewRecord[]): Promise<ReviewPutOutcome> {
   const out: ReviewPutOutcome = { newer: [], problems: [] };
   const prefix = reviewStoragePrefix(datasetKey);
-  await Promise.all(
+  if (records.length === 0) return out;
+  await backend.updateMany(
     records.map((r) => {
       const key = prefix + reviewRecordKey(r);
-      return backend.update(key, (old) => {
+      return [key, (old: unknown) => {
         if (old === undefined) return reviewRecordToStored(r);
         const version = reviewStoredVersion(old);
         if (version !== null && version > REVIEW_SCHEMA) {
@@ -61,7 +66,7 @@ export async function reviewStoragePut(backend: ReviewBackend, datasetKey: strin
           return old;
         }
         return reviewRecordToStored(r);
-      });
+      }] as const;
     }),
   );
   return out;
@@ -130,10 +135,12 @@ export function reviewBackendMemory(map: Map<string, unknown> = new Map()): Revi
       await tick();
       return map.has(key) ? structuredClone(map.get(key)) : undefined;
     },
-    async update(key, updater) {
+    async updateMany(updates) {
       await tick();
-      // One synchronous read-modify-write: nothing else can run in between.
-      map.set(key, structuredClone(updater(map.has(key) ? structuredClone(map.get(key)) : undefined)));
+      // One synchronous read-modify-write of every key: nothing else can run in between, and an
+      // updater that throws leaves every value as it was.
+      const next = updates.map(([key, updater]) => [key, structuredClone(updater(map.has(key) ? structuredClone(map.get(key)) : undefined))] as const);
+      for (const [key, value] of next) map.set(key, value);
     },
     async del(key) {
       await tick();

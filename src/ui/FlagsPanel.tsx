@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from 'react';
+import { useLayoutEffect, useMemo, useRef, useState, type CSSProperties } from 'react';
 import { flagReasonCounts } from '../core/review/flagsFilter.ts';
 import type { Flag } from '../core/review/flag.ts';
 import { downloadBlob } from './download.ts';
@@ -10,7 +10,12 @@ function reasonName(r: string): string {
   return (VERDICT_NAMES as Record<string, string>)[r] ?? r;
 }
 
-function FlagRow({ flag, frameIndex }: { flag: Flag; frameIndex: number }) {
+/** Height of one row of the list, pixels: rows are all this tall, so only those in view are rendered. */
+const ROW_HEIGHT = 78;
+/** Rows rendered above and below the visible ones, so a fast scroll shows no gap. */
+const ROWS_AROUND = 8;
+
+function FlagRow({ flag, frameIndex, style }: { flag: Flag; frameIndex: number; style: CSSProperties }) {
   const store = useAppStore();
   const [editing, setEditing] = useState(false);
   const [note, setNote] = useState(flag.note);
@@ -21,7 +26,7 @@ function FlagRow({ flag, frameIndex }: { flag: Flag; frameIndex: number }) {
     else s.frameIndexSet(frameIndex);
   };
   return (
-    <li className="flag-row" data-flag={flag.id} data-frame={flag.frame}>
+    <li className="flag-row" data-flag={flag.id} data-frame={flag.frame} style={style}>
       <div className="fr-head" onClick={go}>
         <b>{flag.frame}</b> <span className={`fr-reason r-${flag.reason}`}>{reasonName(flag.reason)}</span>
         <span className="dim"> {flag.kind === 'frame' ? 'whole frame' : flag.kind === 'rect' ? 'box' : flag.region?.kind ?? 'region'}</span>
@@ -29,7 +34,7 @@ function FlagRow({ flag, frameIndex }: { flag: Flag; frameIndex: number }) {
       </div>
       {editing ? (
         <div className="fr-edit">
-          <textarea value={note} rows={2} onChange={(e) => setNote(e.currentTarget.value)} />
+          <textarea value={note} rows={1} onChange={(e) => setNote(e.currentTarget.value)} />
           <button
             onClick={() => {
               store.getState().flagEdit(flag.id, { note });
@@ -40,7 +45,9 @@ function FlagRow({ flag, frameIndex }: { flag: Flag; frameIndex: number }) {
           </button>
         </div>
       ) : (
-        flag.note && <p className="fr-note">{flag.note}</p>
+        <p className="fr-note" title={flag.note}>
+          {flag.note}
+        </p>
       )}
       <div className="fr-actions">
         <select value={flag.reason} aria-label="reason" onChange={(e) => store.getState().flagEdit(flag.id, { reason: e.currentTarget.value })}>
@@ -72,9 +79,20 @@ export function FlagsPanel() {
   const file = useRef<HTMLInputElement>(null);
   const indexOf = useMemo(() => new Map((frames ?? []).map((f, i) => [f.name, i])), [frames]);
   const counts = useMemo(() => flagReasonCounts(flags), [flags]);
-  const shown = flags.filter((f) => !reason || f.reason === reason).slice().reverse();
+  const shown = useMemo(() => flags.filter((f) => !reason || f.reason === reason).reverse(), [flags, reason]);
+  // Only the rows in view are rendered (a list of 50,000 flags is 50,000 × 78 px of scroll, a few dozen rows of DOM).
+  const panel = useRef<HTMLDivElement>(null);
+  const list = useRef<HTMLOListElement>(null);
+  const [view, setView] = useState({ top: 0, height: 1000 });
+  const measure = () => {
+    const p = panel.current, l = list.current;
+    if (p && l) setView({ top: p.scrollTop - l.offsetTop, height: p.clientHeight });
+  };
+  useLayoutEffect(measure, [shown.length]);
+  const first = Math.max(0, Math.floor(view.top / ROW_HEIGHT) - ROWS_AROUND);
+  const last = Math.min(shown.length, Math.ceil((view.top + view.height) / ROW_HEIGHT) + ROWS_AROUND);
   return (
-    <div className="flags">
+    <div className="flags" ref={panel} onScroll={measure}>
       <div className="flags-bar">
         <select value={reason} onChange={(e) => setReason(e.currentTarget.value)} aria-label="filter flags by reason">
           <option value="">every reason ({flags.length})</option>
@@ -111,11 +129,13 @@ export function FlagsPanel() {
           accept=".json,application/json"
           className="folder-input"
           onChange={async (e) => {
-            const f = e.currentTarget.files?.[0];
+            const input = e.currentTarget;
+            const f = input.files?.[0];
+            // Cleared at once, so choosing the same file again is a change and loads it again.
+            input.value = '';
             if (!f) return;
             const r = store.getState().flagsImport(await f.text(), f.name);
-            setMessage(r.ok ? `${f.name}: ${r.value.added} added, ${r.value.updated} updated, ${r.value.skipped.length} skipped` : r.error);
-            e.currentTarget.value = '';
+            setMessage(r.ok ? `${f.name}: ${r.value.added.length} added, ${r.value.updated.length} updated, ${r.value.skipped.length} skipped` : r.error);
           }}
         />
       </div>
@@ -123,9 +143,14 @@ export function FlagsPanel() {
       {error && <p className="bad small">{error}</p>}
       {message && <p className="small">{message}</p>}
       <p className="dim small">M flags the frame, Shift+M the selected region or queue item; hold Shift and drag on the picture (or press B) to flag a box.</p>
-      <ol className="flag-list">
-        {shown.map((f) => (
-          <FlagRow key={`${f.id}-${f.updatedAt}`} flag={f} frameIndex={indexOf.get(f.frame) ?? -1} />
+      <ol className="flag-list" ref={list} style={{ height: shown.length * ROW_HEIGHT }} data-count={shown.length}>
+        {shown.slice(first, last).map((f, i) => (
+          <FlagRow
+            key={`${f.id}-${f.updatedAt}`}
+            flag={f}
+            frameIndex={indexOf.get(f.frame) ?? -1}
+            style={{ top: (first + i) * ROW_HEIGHT, height: ROW_HEIGHT }}
+          />
         ))}
       </ol>
       {exporting && <ExportDialog onClose={() => setExporting(false)} />}

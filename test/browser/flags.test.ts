@@ -113,4 +113,57 @@ describe('flags and tile export through the workspace (real Chromium)', () => {
     expect(errors.filter((e) => !e.includes('GPU stall'))).toEqual([]);
     await context.close();
   });
+
+  it('hostile flags files: 50,000 flags load as counts in a windowed list, the same file loads twice, far-future times and huge strings are refused, save JSON still works', async () => {
+    const context = await browser.newContext({ viewport: { width: 1400, height: 860 }, acceptDownloads: true });
+    const page = await context.newPage();
+    const errors = pageErrors(page);
+    await page.goto(url + QUERY);
+    await ready(page);
+    await page.locator('.left-pane .tab', { hasText: 'Flags' }).click();
+    const dataset = await page.evaluate(() => {
+      const s = (window as any).hairline.store.getState();
+      return { key: s.dataset.key, title: s.dataset.title, frames: s.dataset.pairing.frames.map((f: { name: string }) => f.name) };
+    });
+    const t = new Date().toISOString();
+    const flag = (i: number, extra: Record<string, unknown> = {}) => ({
+      id: `bulk-${i}`, frame: dataset.frames[i % dataset.frames.length], kind: 'rect', bbox: [1, 1, 20, 20], reason: 'unsure', note: `n${i}`, run: null,
+      createdAt: t, updatedAt: t, ...extra,
+    });
+    const file = (flags: unknown[]) => Buffer.from(JSON.stringify({ format: 'hairline-flags', version: 2, dataset: { key: dataset.key, title: dataset.title, frames: dataset.frames.length }, exportedAt: t, flags, verdicts: [] }));
+    const input = page.locator('.flags input[type=file]');
+    const big = file(Array.from({ length: 50_000 }, (_, i) => flag(i)));
+    const t0 = Date.now();
+    await input.setInputFiles({ name: 'big.json', mimeType: 'application/json', buffer: big });
+    await page.locator('.flags p.small', { hasText: 'big.json: 50000 added, 0 updated, 0 skipped' }).waitFor({ timeout: 60_000 });
+    await page.locator('.flag-list[data-count="50000"]').waitFor();
+    const loadSeconds = (Date.now() - t0) / 1000;
+    const rows = await page.locator('.flag-row').count();
+    expect(rows).toBeLessThan(60);
+    // Scrolled to the end, the last rows are there (the oldest flag is listed last).
+    await page.locator('.flags').evaluate((el) => (el.scrollTop = el.scrollHeight));
+    await page.locator('.flag-row[data-flag="bulk-0"]').waitFor();
+    // The same file again: a change event, all skipped as already here.
+    await input.setInputFiles({ name: 'big.json', mimeType: 'application/json', buffer: big });
+    await page.locator('.flags p.small', { hasText: 'big.json: 0 added, 0 updated, 50000 skipped' }).waitFor({ timeout: 60_000 });
+    // Far-future time, 5 MB of reasons, 50,001 flags: refused with the reason, nothing imported.
+    const refused: [string, Buffer, RegExp][] = [
+      ['future.json', file([flag(1, { id: 'f', updatedAt: 1e300 })]), /"updatedAt" must be a time between 1970 and 2200/],
+      ['ahead.json', file([flag(1, { id: 'g', updatedAt: Date.now() + 3 * 86_400_000 })]), /more than a day ahead/],
+      ['long.json', file([flag(1, { id: 'h', kind: 'region', region: { kind: 'x', truthClass: 1, predictedClass: 2, score: 1, reasons: ['r'.repeat(5_000_000)] } })]), /"reasons" has one of 5000000 characters \(at most 300\)/],
+      ['many.json', file(Array.from({ length: 50_001 }, (_, i) => flag(i))), /holds 50,001 flags; at most 50,000 are read/],
+    ];
+    for (const [name, buffer, why] of refused) {
+      await input.setInputFiles({ name, mimeType: 'application/json', buffer });
+      await expect.poll(() => page.locator('.flags p.bad, .flags p.small').allTextContents(), { timeout: 30_000 }).toContainEqual(expect.stringMatching(why));
+    }
+    expect(await page.evaluate(() => (window as any).hairline.store.getState().reviewFlags.length)).toBe(50_000);
+    const [download] = await Promise.all([page.waitForEvent('download'), page.locator('button', { hasText: 'save JSON' }).click()]);
+    const saved = JSON.parse(readFileSync(await download.path(), 'utf8'));
+    expect(saved.flags.length).toBe(50_000);
+    console.log(`50,000 flags: loaded and listed in ${loadSeconds.toFixed(1)} s, ${rows} rows in the DOM`);
+    await page.screenshot({ path: process.env.HAIRLINE_SHOT ?? join(dir, 'flags-50000.png') });
+    expect(errors).toEqual([]);
+    await context.close();
+  }, 300_000);
 });

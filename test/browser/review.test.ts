@@ -92,4 +92,19 @@ describe('review persistence in Chromium (IndexedDB + BroadcastChannel)', () => 
     expect(await call(A, 'notes')).toEqual([...before, 'saved by layout 1'].sort());
     expect(errors).toEqual([]);
   });
+
+  it('bulk changes survive a reload 300 ms later: 1,000 imported flags, then 200 added one by one', async () => {
+    const page = await tabOpen();
+    const before = await call<number>(page, 'count');
+    expect(await call(page, 'importMany', 1000, 'bulk')).toBe(1000);
+    await page.waitForTimeout(300);
+    await reload(page);
+    expect(await call<number>(page, 'count')).toBe(before + 1000);
+    expect(await call(page, 'addMany', 200, 'one-by-one')).toBe(200);
+    await page.waitForTimeout(300);
+    await reload(page);
+    expect(await call<number>(page, 'count')).toBe(before + 1200);
+    expect(await call(page, 'pending')).toBe(false);
+    await page.close();
+  });
 });

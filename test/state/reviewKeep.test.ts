@@ -150,7 +150,7 @@ describe('reviewKeep: flags persist per dataset fingerprint', () => {
     const map = new Map<string, unknown>();
     const inner = reviewBackendMemory(map);
     let broken = false;
-    const backend: ReviewBackend = { ...inner, update: (k, u) => (broken ? Promise.reject(new Error('QuotaExceededError')) : inner.update(k, u)) };
+    const backend: ReviewBackend = { ...inner, updateMany: (u) => (broken ? Promise.reject(new Error('QuotaExceededError')) : inner.updateMany(u)) };
     const { store, keeper } = await tab(backend, 'yard', null);
     broken = true;
     store.getState().flagAdd({ frame: 'a', kind: 'frame', bbox: null, reason: 'unsure', note: 'kept' });

@@ -131,4 +131,25 @@ describe('review slice: flags and verdicts with undo/redo', () => {
     const bad = b.getState().flagsImport('{', 'broken.json');
     expect(!bad.ok && bad.error).toMatch(/^broken\.json: is not valid JSON/);
   });
+
+  it('a hostile flags file cannot bring a deleted flag back or break save JSON (times 1970..2200, at most a day ahead)', () => {
+    const store = storeWith(['a']);
+    const s = () => store.getState();
+    const f = s().flagAdd({ frame: 'a', kind: 'frame', bbox: null, reason: 'unsure', note: 'keep out' });
+    if (!f.ok) throw new Error(f.error);
+    const saved = s().flagsExportText();
+    expect(s().flagsDelete([f.value.id])).toBe(1);
+    const json = JSON.parse(saved);
+    for (const updatedAt of [1e300, Date.now() + 2 * 86_400_000, -5]) {
+      json.flags[0].updatedAt = updatedAt;
+      const r = s().flagsImport(JSON.stringify(json), 'hostile.json');
+      expect(r.ok).toBe(false);
+      expect(s().reviewFlags).toEqual([]);
+    }
+    // The copy saved before the delete is older than the delete: skipped.
+    const r = s().flagsImport(saved, 'old.json');
+    expect(r.ok && r.value.skipped).toEqual([{ id: f.value.id, reason: 'deleted here after this version was saved' }]);
+    expect(s().reviewFlags).toEqual([]);
+    expect(() => JSON.parse(s().flagsExportText())).not.toThrow();
+  });
 });

@@ -22,6 +22,16 @@ export const FLAG_COORD_MAX = 1 << 20;
 export const FLAG_NOTE_MAX = 10_000;
 /** Longest user-defined reason tag, characters. */
 export const FLAG_TAG_MAX = 64;
+/** Most reasons kept on a flag's region, and the longest of them, characters. */
+export const FLAG_REGION_REASONS_MAX = 20;
+export const FLAG_REGION_REASON_MAX = 300;
+/** Most flags (and, separately, verdicts) read from one flags file. */
+export const FLAGS_FILE_MAX = 50_000;
+/** Times a flag or verdict may carry, ms since the epoch: 1970-01-01 to 2200-01-01. */
+export const REVIEW_TIME_MIN = 0;
+export const REVIEW_TIME_MAX = Date.UTC(2200, 0, 1);
+/** How far ahead of this machine's clock a time in a flags file may be (another machine's clock may run ahead). */
+export const REVIEW_FUTURE_MAX_MS = 24 * 3600 * 1000;
 
 /** What the region finder said about a region a flag was made from. */
 export interface FlagRegion {

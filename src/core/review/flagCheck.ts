@@ -3,7 +3,12 @@ import {
   FLAG_COORD_MAX,
   FLAG_KINDS,
   FLAG_NOTE_MAX,
+  FLAG_REGION_REASON_MAX,
+  FLAG_REGION_REASONS_MAX,
   FLAG_TAG_MAX,
+  REVIEW_FUTURE_MAX_MS,
+  REVIEW_TIME_MAX,
+  REVIEW_TIME_MIN,
   type Flag,
   type FlagBox,
   type FlagKind,
@@ -49,8 +54,18 @@ function nameCheck(v: unknown, what: string): string | null {
   return null;
 }
 
-function timeCheck(v: unknown, what: string): string | null {
-  return typeof v === 'number' && Number.isFinite(v) && v >= 0 ? null : `"${what}" must be milliseconds since 1970 (a number ≥ 0), got ${JSON.stringify(v)}`;
+/**
+ * Returns why `v` is not a usable time (ms since 1970, before 2200, and, when `now` is given, at most
+ * a day ahead of it), or null. A time far ahead would win every later edit and bring deleted flags back.
+ */
+export function reviewTimeCheck(v: unknown, what: string, now?: number): string | null {
+  if (typeof v !== 'number' || !Number.isFinite(v) || v < REVIEW_TIME_MIN || v > REVIEW_TIME_MAX) {
+    return `"${what}" must be a time between 1970 and 2200, got ${JSON.stringify(v)?.slice(0, 40)}`;
+  }
+  if (now !== undefined && v > now + REVIEW_FUTURE_MAX_MS) {
+    return `"${what}" is ${new Date(v).toISOString()}, more than a day ahead of this computer's clock`;
+  }
+  return null;
 }
 
 function classIdOrNull(v: unknown): boolean {
@@ -65,20 +80,26 @@ export function flagRegionCheck(v: unknown): Result<FlagRegion> {
   if (!classIdOrNull(truthClass)) return fail('', `"truthClass" must be a class id 0..65535 or null, got ${JSON.stringify(v.truthClass)}`);
   if (!classIdOrNull(predictedClass)) return fail('', `"predictedClass" must be a class id 0..65535 or null, got ${JSON.stringify(v.predictedClass)}`);
   if (score !== null && (typeof score !== 'number' || !Number.isFinite(score))) return fail('', `"score" must be a number or null, got ${JSON.stringify(v.score)}`);
+  if (v.kind.length > FLAG_TAG_MAX) return fail('', `"kind" is ${v.kind.length} characters long (at most ${FLAG_TAG_MAX})`);
   const reasons = v.reasons ?? [];
   if (!Array.isArray(reasons) || !reasons.every((r) => typeof r === 'string')) return fail('', '"reasons" must be an array of strings');
+  if (reasons.length > FLAG_REGION_REASONS_MAX) return fail('', `"reasons" holds ${reasons.length} reasons (at most ${FLAG_REGION_REASONS_MAX})`);
+  const long = reasons.find((r: string) => r.length > FLAG_REGION_REASON_MAX);
+  if (long !== undefined) return fail('', `"reasons" has one of ${long.length} characters (at most ${FLAG_REGION_REASON_MAX})`);
   return ok({ kind: v.kind, truthClass: truthClass as number | null, predictedClass: predictedClass as number | null, score: score as number | null, reasons: [...reasons] });
 }
 
 /**
  * Returns a flag read from parsed JSON (storage or a flags file), every field checked, or the first
- * problem prefixed with `where` (e.g. `flags[3]`).
+ * problem prefixed with `where` (e.g. `flags[3]`). With `now` (a file from elsewhere), times more
+ * than a day ahead of it are refused.
  */
-export function flagFromJson(v: unknown, where: string): Result<Flag> {
+export function flagFromJson(v: unknown, where: string, now?: number): Result<Flag> {
   if (!isPlainObject(v)) return fail('', `${where} must be an object, got ${JSON.stringify(v)?.slice(0, 40)}`);
   const at = typeof v.id === 'string' && v.id !== '' ? `${where} (id ${JSON.stringify(v.id.slice(0, 60))})` : where;
   const bad = (problem: string) => fail<Flag>('', `${at}: ${problem}`);
-  const problem = nameCheck(v.id, 'id') ?? nameCheck(v.frame, 'frame') ?? timeCheck(v.createdAt, 'createdAt') ?? timeCheck(v.updatedAt, 'updatedAt');
+  const problem =
+    nameCheck(v.id, 'id') ?? nameCheck(v.frame, 'frame') ?? reviewTimeCheck(v.createdAt, 'createdAt', now) ?? reviewTimeCheck(v.updatedAt, 'updatedAt', now);
   if (problem) return bad(problem);
   if (!(FLAG_KINDS as readonly unknown[]).includes(v.kind)) return bad(`"kind" must be one of ${FLAG_KINDS.join(', ')}, got ${JSON.stringify(v.kind)}`);
   const kind = v.kind as FlagKind;

@@ -1,5 +1,5 @@
 import { fail, ok, type Result } from '../result.ts';
-import type { Flag } from './flag.ts';
+import { FLAGS_FILE_MAX, type Flag } from './flag.ts';
 import { flagFromJson } from './flagCheck.ts';
 import { flagFromV1 } from './reviewMigrate.ts';
 import { verdictFromJson, type SuspectVerdict } from './verdict.ts';
@@ -31,8 +31,10 @@ export interface FlagsFileContent {
 /** Most problems listed in one error message. */
 const PROBLEMS_SHOWN = 5;
 
-function iso(ms: number): string {
-  return new Date(ms).toISOString();
+/** Returns the time as ISO 8601; a time no Date can hold (only from storage written by something else) stays a number, so saving never fails. */
+function iso(ms: number): string | number {
+  const d = new Date(ms);
+  return Number.isNaN(d.getTime()) ? ms : d.toISOString();
 }
 
 /** Returns the text of a flags file holding `flags` and `verdicts` (flags in the order given). */
@@ -70,8 +72,11 @@ function datasetRead(v: unknown): Result<FlagsFileDataset | null> {
   return ok({ key: o.key, title: o.title, frames: o.frames });
 }
 
-/** Returns the flags and verdicts of a flags file's text, or an error naming the file and its problems (up to 5). */
-export function flagsFileParse(text: string, file: string): Result<FlagsFileContent> {
+/**
+ * Returns the flags and verdicts of a flags file's text, or an error naming the file and its problems
+ * (up to 5). At most FLAGS_FILE_MAX flags and as many verdicts; times from 1970 to at most a day after `now`.
+ */
+export function flagsFileParse(text: string, file: string, now = Date.now()): Result<FlagsFileContent> {
   let json: unknown;
   try {
     json = JSON.parse(text);
@@ -91,13 +96,18 @@ export function flagsFileParse(text: string, file: string): Result<FlagsFileCont
   if (!Array.isArray(o.flags)) return fail(file, '"flags" must be an array');
   const verdictsIn = o.verdicts ?? [];
   if (!Array.isArray(verdictsIn)) return fail(file, '"verdicts" must be an array');
+  for (const [what, list] of [['flags', o.flags], ['verdicts', verdictsIn]] as const) {
+    if (list.length > FLAGS_FILE_MAX) {
+      return fail(file, `holds ${list.length.toLocaleString('en-US')} ${what}; at most ${FLAGS_FILE_MAX.toLocaleString('en-US')} are read from one file (split it)`);
+    }
+  }
 
   const problems: string[] = [];
   const flags: Flag[] = [];
   const ids = new Map<string, number>();
   o.flags.forEach((raw, i) => {
     const where = `flags[${i}]`;
-    const f = o.version === 1 ? flagFromV1(raw, where) : flagFromJson(timed(raw, ['createdAt', 'updatedAt']), where);
+    const f = o.version === 1 ? flagFromV1(raw, where, now) : flagFromJson(timed(raw, ['createdAt', 'updatedAt']), where, now);
     if (!f.ok) return void problems.push(f.error);
     const prior = ids.get(f.value.id);
     if (prior !== undefined) return void problems.push(`${where}: id ${JSON.stringify(f.value.id)} is used twice (also flags[${prior}])`);
@@ -106,7 +116,7 @@ export function flagsFileParse(text: string, file: string): Result<FlagsFileCont
   });
   const verdicts: SuspectVerdict[] = [];
   verdictsIn.forEach((raw, i) => {
-    const v = verdictFromJson(timed(raw, ['updatedAt']), `verdicts[${i}]`);
+    const v = verdictFromJson(timed(raw, ['updatedAt']), `verdicts[${i}]`, now);
     if (v.ok) verdicts.push(v.value);
     else problems.push(v.error);
   });

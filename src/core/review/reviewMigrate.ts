@@ -31,7 +31,7 @@ export const V1_WRITER = 'migrated-v1';
 const V1_REASONS: Record<string, string> = { label: 'label-mistake', model: 'model-error', unsure: 'unsure' };
 
 /** Returns a layout-2 flag converted from a layout-1 flag, checked as any flag is, or the problem. */
-export function flagFromV1(v: unknown, where: string): Result<Flag> {
+export function flagFromV1(v: unknown, where: string, now?: number): Result<Flag> {
   if (typeof v !== 'object' || v === null || Array.isArray(v)) return fail('', `${where} must be an object`);
   const o = v as Record<string, unknown>;
   let bbox: unknown = null;
@@ -51,6 +51,7 @@ export function flagFromV1(v: unknown, where: string): Result<Flag> {
       run: o.run ?? null, createdAt: o.created, updatedAt: o.created,
     },
     where,
+    now,
   );
 }
 

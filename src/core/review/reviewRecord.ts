@@ -1,6 +1,6 @@
 import { fail, ok, type Result } from '../result.ts';
 import type { Flag } from './flag.ts';
-import { flagFromJson } from './flagCheck.ts';
+import { flagFromJson, reviewTimeCheck } from './flagCheck.ts';
 import { verdictFromJson, type SuspectVerdict } from './verdict.ts';
 
 /** Version of the stored record layout: 1 kept one list per dataset, 2 keeps one record per flag or verdict. */
@@ -54,9 +54,10 @@ export function reviewRecordFromStored(v: unknown, where: string): Result<Review
   if (version !== REVIEW_SCHEMA) return fail('', `${where}: stored with schema ${version ?? 'unknown'}, this version reads ${REVIEW_SCHEMA}`);
   const o = v as Record<string, unknown>;
   if (typeof o.id !== 'string' || o.id === '') return fail('', `${where}: no "id"`);
-  if (typeof o.updatedAt !== 'number' || !Number.isFinite(o.updatedAt)) return fail('', `${where}: no "updatedAt"`);
+  const time = reviewTimeCheck(o.updatedAt, 'updatedAt');
+  if (time) return fail('', `${where}: ${time}`);
   if (typeof o.writer !== 'string') return fail('', `${where}: no "writer"`);
-  const base = { id: o.id, updatedAt: o.updatedAt, writer: o.writer };
+  const base = { id: o.id, updatedAt: o.updatedAt as number, writer: o.writer };
   if (o.type === 'flag') {
     if (o.flag === null) return ok({ ...base, type: 'flag', flag: null });
     const f = flagFromJson(o.flag, where);

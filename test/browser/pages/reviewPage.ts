@@ -16,7 +16,7 @@ const source: DatasetSource = {
 };
 const backend = reviewBackendIdb();
 const store = appStoreCreate();
-const keeper = reviewKeep(store, { backend, channel: reviewChannelOpen() });
+const keeper = reviewKeep(store, { backend, channel: reviewChannelOpen(), page: window });
 datasetInstall(store, datasetFromSource(source));
 const key = store.getState().dataset!.key;
 
@@ -33,7 +33,24 @@ const byNote = (note: string) => store.getState().reviewFlags.find((f) => f.note
   notes: () => store.getState().reviewFlags.map((f) => f.note).sort(),
   error: () => store.getState().reviewError,
   idle: () => keeper.idle(),
-  legacyPut: (value: unknown) => backend.update(reviewLegacyKey(key), () => value),
+  count: () => store.getState().reviewFlags.length,
+  pending: () => keeper.pending(),
+  /** Imports a flags file of `n` new flags (made here, as another machine would save them). */
+  importMany: (n: number, tag: string) => {
+    const t = new Date().toISOString();
+    const flags = Array.from({ length: n }, (_, i) => ({
+      id: `${tag}-${i}`, frame: frames[i % frames.length], kind: 'rect', bbox: [1, 1, 9, 9], reason: 'unsure', note: `${tag} ${i}`, run: null, createdAt: t, updatedAt: t,
+    }));
+    const text = JSON.stringify({ format: 'hairline-flags', version: 2, dataset: { key, title: 'review test yard', frames: frames.length }, exportedAt: t, flags, verdicts: [] });
+    const r = store.getState().flagsImport(text, 'bulk.json');
+    return r.ok ? r.value.added.length : r.error;
+  },
+  addMany: (n: number, tag: string) => {
+    let made = 0;
+    for (let i = 0; i < n; i++) made += store.getState().flagAdd({ frame: frames[i % frames.length], kind: 'frame', bbox: null, reason: 'unsure', note: `${tag} ${i}` }).ok ? 1 : 0;
+    return made;
+  },
+  legacyPut: (value: unknown) => backend.updateMany([[reviewLegacyKey(key), () => value]]),
   legacyGet: () => backend.get(reviewLegacyKey(key)),
 };
 document.title = 'review test page ready';

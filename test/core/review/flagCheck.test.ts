@@ -35,7 +35,7 @@ describe('flagFromJson: every field of a stored or imported flag is checked', ()
     expect(err({ ...good, note: 5 })).toMatch(/"note" must be a string/);
     expect(err({ ...good, note: 'n'.repeat(10_001) })).toMatch(/"note" is 10001 characters long/);
     expect(err({ ...good, run: '' })).toMatch(/"run" must be a non-empty string.*\(or null\)/);
-    expect(err({ ...good, createdAt: 'yesterday' })).toMatch(/"createdAt" must be milliseconds since 1970/);
+    expect(err({ ...good, createdAt: 'yesterday' })).toMatch(/"createdAt" must be a time between 1970 and 2200, got "yesterday"/);
     expect(err({ ...good, updatedAt: Number.NaN })).toMatch(/"updatedAt" must be/);
     expect(err({ ...good, region: { kind: 'x', truthClass: -1 } })).toMatch(/"region" "truthClass" must be a class id/);
     expect(err([1, 2])).toMatch(/flags\[0\] must be an object/);
