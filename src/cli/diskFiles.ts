@@ -1,5 +1,5 @@
 import type { FrameFileReader } from '../core/frameFiles.ts';
-import { photoFromPng } from '../core/png/decodePhoto.ts';
+import { photoFromBytes } from './photoFile.ts';
 import { fail } from '../core/result.ts';
 import { fileReadBounded } from './fileReadBounded.ts';
 
@@ -9,20 +9,19 @@ export interface FilePath {
   path: string;
 }
 
-/** Returns the reader of a frame's files on disk; photos are decoded only when PNG (at most `maxPixels`). */
+/** Returns the reader of a frame's files on disk; PNG and JPEG photos are decoded (at most `maxPixels`). */
 export function diskFileReader(o: { maxPixels?: number } = {}): FrameFileReader<FilePath> {
   const bytes = (f: FilePath) => fileReadBounded(f.path, o.maxPixels);
   return {
     bytes,
     async photo(f, given) {
-      if (!/\.png$/i.test(f.file)) return fail(f.file, 'only PNG photos are decoded headless');
       let data = given;
       try {
         data ??= await bytes(f);
       } catch (e) {
         return fail(f.file, `could not be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
       }
-      return photoFromPng(data, { file: f.file, maxPixels: o.maxPixels });
+      return photoFromBytes(data, { file: f.file, maxPixels: o.maxPixels });
     },
   };
 }

@@ -5,7 +5,7 @@ import { frameResultBuffers, frameScoreRun, type FrameScoreFiles } from '../work
 import type { JobOutput } from '../workers/protocol.ts';
 import { diskFileReader, type FilePath } from './diskFiles.ts';
 
-/** Input of the scoring thread's `frameScore`: the frame's files as paths (photos decoded when PNG). */
+/** Input of the scoring thread's `frameScore`: the frame's files as paths (PNG and JPEG photos decoded). */
 export type FrameScorePaths = FrameScoreFiles<FilePath>;
 
 const scratch = scoreScratchCreate();

@@ -3,7 +3,8 @@ import type { ClassTable } from './classTable.ts';
 import { frameSizesCheck } from './frameCheck.ts';
 import type { LabelMap } from './labelMap.ts';
 import { fileBytesRead, type FrameFileReader, type FrameFileRef } from './frameFiles.ts';
-import { labelMapFromPng, type DecodedLabelMap } from './png/decodeLabel.ts';
+import { labelMapRead, type ReadLabelMap } from './labelRead.ts';
+import { predictionFit } from './labelScale.ts';
 import { ok, type Result } from './result.ts';
 
 /**
@@ -12,7 +13,7 @@ import { ok, type Result } from './result.ts';
  * are Picks of this one. `Map` is the label map type: the composite needs ids only, the export and the
  * viewer's readout the source encodings too.
  */
-export interface DecodedFrame<Map extends LabelMap = DecodedLabelMap> {
+export interface DecodedFrame<Map extends LabelMap = ReadLabelMap> {
   name: string;
   width: number;
   height: number;
@@ -48,7 +49,7 @@ export interface FrameDecodeInput<F extends FrameFileRef> {
 export async function frameDecode<F extends FrameFileRef>(input: FrameDecodeInput<F>, reader: FrameFileReader<F>): Promise<Result<DecodedFrame>> {
   const truthBytes = await fileBytesRead(reader, input.truth);
   if (!truthBytes.ok) return truthBytes;
-  const t = labelMapFromPng(truthBytes.value.bytes, { file: input.truth.file, table: input.table });
+  const t = labelMapRead(truthBytes.value.bytes, { file: input.truth.file, table: input.table, role: 'truth' });
   if (!t.ok) return t;
   const truth = t.value;
   const { width, height } = truth;
@@ -60,10 +61,13 @@ export async function frameDecode<F extends FrameFileRef>(input: FrameDecodeInpu
       continue;
     }
     const b = await fileBytesRead(reader, p.file);
-    const m = b.ok ? labelMapFromPng(b.value.bytes, { file: p.file.file, table: input.table }) : b;
-    const sized = m.ok ? sizeCheck(p.file.file, m.value.width, m.value.height) : m;
-    if (!sized.ok) frame.notes.push(sized.error);
-    else if (m.ok) frame.preds[p.run] = m.value;
+    const m = b.ok ? labelMapRead(b.value.bytes, { file: p.file.file, table: input.table, role: 'prediction' }) : b;
+    const fit = m.ok ? predictionFit({ file: input.truth.file, width, height }, { file: p.file.file, map: m.value }) : m;
+    if (!fit.ok) frame.notes.push(fit.error);
+    else {
+      frame.preds[p.run] = fit.value.map;
+      if (fit.value.factor > 1) frame.notes.push(`${p.file.file}: scaled up ×${fit.value.factor} to the label's size by nearest neighbour`);
+    }
   }
   if (input.photo) {
     const photo = await reader.photo(input.photo);

@@ -9,6 +9,7 @@ import type { ScoreSettings } from './metrics/settings.ts';
 import { idCensusOf, type IdCensus } from './idCensus.ts';
 import { labelMapRead } from './labelRead.ts';
 import { labelMapFromPng } from './png/decodeLabel.ts';
+import { predictionFit } from './labelScale.ts';
 import { pngHeaderRead } from './png/header.ts';
 import type { RgbaImage } from './png/decodePhoto.ts';
 import { confidenceFromPng, type ConfidenceMap } from './regions/confidenceMap.ts';
@@ -63,6 +64,8 @@ export interface FrameRunResult {
   census?: IdCensus;
   /** Objects, flicker and iIoU counts (src/core/frameExtras.ts); absent when the run failed. */
   extras?: RunExtras | null;
+  /** The whole factor the prediction was scaled up by to the label's size (nearest neighbour), when it was. */
+  scaledBy?: number;
 }
 
 /** Scores of one frame: `error` set when the frame itself (its ground truth) failed, else per-run results. */
@@ -124,17 +127,14 @@ export function frameJobScore(
   }
 
   const warnings: string[] = [];
-  const decoded: { run: string; map: LabelMap | null; error: string | null }[] = input.preds.map(({ run, file }) => {
+  const decoded: { run: string; map: LabelMap | null; error: string | null; factor?: number }[] = input.preds.map(({ run, file }) => {
     if (!file) return { run, map: null, error: `predictions/${run}: no prediction file for frame ${input.name}` };
     const r = labelMapRead(file.bytes, { file: file.file, table, maxPixels: input.maxPixels, role: 'prediction' });
     if (!r.ok) return { run, map: null, error: r.error };
     if (r.value.warning) warnings.push(r.value.warning);
-    const sizes = frameSizesCheck([
-      { file: input.truth.file, width, height },
-      { file: file.file, width: r.value.width, height: r.value.height },
-    ]);
-    if (!sizes.ok) return { run, map: null, error: sizes.error };
-    return { run, map: r.value, error: null };
+    const fit = predictionFit({ file: input.truth.file, width, height }, { file: file.file, map: r.value });
+    if (!fit.ok) return { run, map: null, error: fit.error };
+    return { run, map: fit.value.map, error: null, factor: fit.value.factor };
   });
 
   const classIds = table.generated
@@ -146,11 +146,12 @@ export function frameJobScore(
         `at most ${CLASSES_MAX} classes are scored (give a classes.json naming the classes)`,
     );
   }
-  const runs = decoded.map(({ run, map, error }): FrameRunResult => {
+  const runs = decoded.map(({ run, map, error, factor }): FrameRunResult => {
     if (!map) return { run, stats: null, error };
     const s = frameScore(truth.value, map, classIds, settings, scratch);
     if (!s.ok) return { run, stats: null, error: `${input.truth.file}: ${s.error}` };
-    return { run, stats: s.value, error: null, census: idCensusOf(truth.value, map, settings.ignore) };
+    const scaled = factor && factor > 1 ? { scaledBy: factor } : {};
+    return { run, stats: s.value, error: null, census: idCensusOf(truth.value, map, settings.ignore), ...scaled };
   });
   extrasAdd(input, truth.value, decoded.map((d, i) => (runs[i].error ? null : d.map)), classIds, scratch, runs, warnings);
   if (input.regions === false) return { ...base, width, height, error: null, runs, ...(warnings.length ? { warnings } : {}) };

@@ -8,7 +8,7 @@ import { classTableGenerated } from '../../src/core/classTable.ts';
 import { frameDecode } from '../../src/core/decodedFrame.ts';
 import { fileBytesRead } from '../../src/core/frameFiles.ts';
 
-// The command line's file reader under the shared frame decoder: files from disk, PNG photos only,
+// The command line's file reader under the shared frame decoder: files from disk, PNG and JPEG photos,
 // read errors named by their system code. PNGs are written by pngjs, a second PNG implementation.
 
 const dir = mkdtempSync(join(tmpdir(), 'hairline-disk-files-'));
@@ -30,12 +30,13 @@ describe('diskFileReader (src/cli/diskFiles.ts)', () => {
     expect(r).toEqual({ ok: false, error: 'run-a/f.png: could not be read (ENOENT)' });
   });
 
-  it('decodes PNG photos and refuses other types by name', async () => {
+  it('decodes PNG photos and names a photo that is neither PNG nor JPEG', async () => {
     const photo = pngWrite('photo.png', 3, 2, true);
     const r = await reader.photo({ file: 'images/f.png', path: photo });
     expect(r.ok && [r.value.width, r.value.height, r.value.rgba[0]]).toEqual([3, 2, 200]);
+    writeFileSync(join(dir, 'f.jpg'), 'not an image');
     const jpg = await reader.photo({ file: 'images/f.jpg', path: join(dir, 'f.jpg') });
-    expect(jpg).toEqual({ ok: false, error: 'images/f.jpg: only PNG photos are decoded headless' });
+    expect(jpg).toEqual({ ok: false, error: 'images/f.jpg: is neither a PNG nor a JPEG photo' });
   });
 
   it('frameDecode over disk files: notes for an unreadable prediction and a non-PNG photo, as in the browser', async () => {
@@ -49,6 +50,6 @@ describe('diskFileReader (src/cli/diskFiles.ts)', () => {
     }, reader);
     if (!r.ok) throw new Error(r.error);
     expect(Object.keys(r.value.preds)).toEqual(['a']);
-    expect(r.value.notes).toEqual(['b/f.png: could not be read (ENOENT)', 'images/f.jpg: only PNG photos are decoded headless']);
+    expect(r.value.notes).toEqual(['b/f.png: could not be read (ENOENT)', 'images/f.jpg: is neither a PNG nor a JPEG photo']);
   });
 });

@@ -163,7 +163,7 @@ describe('npm run score with --images and --confidence on a small constructed da
     expect(r.status).toBe(0);
     const rep = JSON.parse(r.stdout);
     expect(r.stderr).toMatch(/warning: confidence\/run-a\/c\.png: is 65×48 pixels but truth\/c\.png is 64×48/);
-    expect(r.stderr).toMatch(/warning: images\/c\.jpg: only PNG photos are decoded headless/);
+    expect(r.stderr).toMatch(/warning: images\/c\.jpg: could not be decoded as JPEG/);
     const top = rep.suspects[0] as Suspect;
     expect([top.frame, top.run, top.bbox, top.truthClass, top.predictedClass, top.kind]).toEqual(['b', 'run-a', [20, 14, 40, 34], 4, 6, 'missedObject']);
     const text = top.reasons.join(' | ');

@@ -5,7 +5,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
 import { pythonRefRequire } from '../reference/pythonRef.ts';
-import { fileWrite, suffixedWrite, yardFrames, type YardFrame } from '../support/diskDatasets.ts';
+import jpeg from 'jpeg-js';
+import { fileWrite, suffixedWrite, yardFrames, yardPhoto, type YardFrame } from '../support/diskDatasets.ts';
 import { randomPair } from '../support/randomMaps.ts';
 import { scoreCli } from './scoreRun.ts';
 
@@ -157,5 +158,33 @@ describe('npm run score on datasets as they lie on disk', () => {
     const none = scoreCli(['--dataset', empty]);
     expect(none.status).toBe(1);
     expect(none.stderr).toMatch(/no ground-truth folder found: expected truth\/ .*Found: scans\/ \(1 file\)/);
+  });
+
+  it('predictions at half the label size and JPEG photos: scaled up by nearest neighbour with a warning, scored as dataset_ref.py, photos used', () => {
+    const root = join(dir, 'half');
+    const src = join(dir, 'suffixed');
+    for (const f of frames) {
+      const { width, height } = f.storedPred;
+      const half = new Uint8Array((width / 2) * (height / 2)).map((_, i) => f.storedPred.ids[Math.floor(i / (width / 2)) * 2 * width + (i % (width / 2)) * 2]);
+      fileWrite(join(root, 'preds', `${f.key}.png`), labelMapToPng({ width: width / 2, height: height / 2, ids: half }, { kind: 'gray', bitDepth: 8 }));
+      fileWrite(join(root, 'photos', `${f.key}.jpg`), new Uint8Array(jpeg.encode({ width, height, data: yardPhoto(f) }, 90).data));
+    }
+    const out = join(dir, 'half.json');
+    const r = scoreCli(['--truth', join(src, 'gt'), '--pred', `model=${join(root, 'preds')}`, '--images', join(root, 'photos'), '--classes', join(src, 'classes.json'), '--out', out]);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toContain(`warning: run "model": predictions scaled up ×2 to the label's size by nearest neighbour on 5 of 5 frames`);
+    expect(r.stderr).not.toMatch(/photos\/|\.jpg/);
+    const report = JSON.parse(readFileSync(out, 'utf8'));
+    expect(report.opened.photos).toBe(5);
+    const ref = reference({
+      classes: join(src, 'classes.json'),
+      frames: frames.map((f) => ({ name: `${f.site}/${f.key}`, truth: join(src, 'gt', f.site, `${f.key}_gt_class.png`), pred: join(root, 'preds', `${f.key}.png`) })),
+    });
+    expect(report.dataset.meanIoU).toBeCloseTo(ref.dataset.meanIoU, 9);
+    for (const f of ref.frames) expect(report.frames.find((x: { name: string }) => x.name === f.name).pixelAccuracy).toBeCloseTo(f.pixelAccuracy, 9);
+    // 20×12 is no whole fraction of 48×36 in both directions: the per-frame size error stays.
+    fileWrite(join(root, 'odd', `${frames[0].key}.png`), labelMapToPng({ width: 20, height: 12, ids: new Uint8Array(240) }, { kind: 'gray', bitDepth: 8 }));
+    const odd = scoreCli(['--truth', join(src, 'gt'), '--pred', `odd=${join(root, 'odd')}`, '--classes', join(src, 'classes.json')]);
+    expect(odd.stderr).toContain("is 20×12 pixels but truth/south/berth001_gt_class.png is 48×36; a prediction must have the label's size or a whole fraction of it");
   });
 });

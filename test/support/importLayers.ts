@@ -33,6 +33,7 @@ export const PACKAGE_LOWEST_LAYER: Record<string, Layer> = {
   'upng-js': 'src/core',
   'culori': 'src/core',
   'zod': 'src/data',
+  'jpeg-js': 'src/cli',
   'zustand': 'src/state',
   'idb-keyval': 'src/state',
   'pixi.js': 'src/view',

@@ -39,6 +39,11 @@ function wrongPixels(truth: LabelMap, pred: LabelMap, ignore: number): number {
   return n;
 }
 
+/** Returns the map with the ids its file stored (before an id map of the class table), which label crops write back exactly. */
+function storedOf(map: ExportFrame['truth']): ExportFrame['truth'] {
+  return map.stored ? { ...map, ids: map.stored } : map;
+}
+
 /** Returns the overlay's run: the flag's run when the frame has it, else the first run the frame has. */
 function overlayRunOf(flag: Flag, frame: ExportFrame, runs: readonly string[]): string | null {
   if (flag.run !== null && Object.hasOwn(frame.preds, flag.run)) return flag.run;
@@ -54,7 +59,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
   const files: TileFile[] = [];
   const notes = [...frame.notes];
   const truthCrop = labelMapCrop(frame.truth, box);
-  const truthPng = labelCropToPng(truthCrop, frame.truth.encoding, ctx.table, ctx.compress);
+  const truthPng = labelCropToPng(labelMapCrop(storedOf(frame.truth), box), frame.truth.encoding, ctx.table, ctx.compress);
   if (!truthPng.ok) return fail('', `ground truth ${truthPng.error}`);
   files.push({ path: `${dir}truth.png`, bytes: truthPng.value.png });
   const truthCounts = new Map(labelMapIdCounts(truthCrop).map((c) => [c.id, c.count]));
@@ -67,7 +72,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
     const map = frame.preds[run];
     if (!map) continue;
     const crop = labelMapCrop(map, box);
-    const png = labelCropToPng(crop, map.encoding, ctx.table, ctx.compress);
+    const png = labelCropToPng(labelMapCrop(storedOf(map), box), map.encoding, ctx.table, ctx.compress);
     if (!png.ok) {
       notes.push(`run "${run}": prediction ${png.error}`);
       continue;
