@@ -1,12 +1,11 @@
-import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import { classTableFromText, classTableGenerated, type ClassTable } from '../core/classTable.ts';
+import type { ClassTable } from '../core/classTable.ts';
 import { dictCreate } from '../core/dict.ts';
 import { frameDecode } from '../core/decodedFrame.ts';
 import type { TileExportSource } from '../core/export/tilesExport.ts';
 import { fail } from '../core/result.ts';
 import { datasetPair, type Pairing } from '../data/pairing.ts';
-import { UsageError } from './args.ts';
+import { classTableRead } from './classesRead.ts';
 import { diskFileReader } from './diskFiles.ts';
 import type { ExportOptions } from './exportArgs.ts';
 import { filesUnder } from './listFiles.ts';
@@ -17,29 +16,9 @@ export interface ExportDataset {
   table: ClassTable;
 }
 
-/** Returns the class table of --classes (with --ignore), or throws UsageError saying what is wrong. */
-async function tableRead(o: ExportOptions): Promise<ClassTable> {
-  // Without a table ids are named by number (colour-coded maps then fail with a message saying why).
-  if (!o.classes) return classTableGenerated(-1, o.ignore ?? 255);
-  let text: string;
-  try {
-    text = await readFile(o.classes, 'utf8');
-  } catch (e) {
-    throw new UsageError(`--classes ${o.classes}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
-  const r = classTableFromText(text, o.classes);
-  if (!r.ok) throw new UsageError(r.error);
-  if (o.ignore !== null && o.ignore !== r.value.ignore) {
-    const clash = r.value.classes.find((c) => c.id === o.ignore);
-    if (clash) throw new UsageError(`--ignore ${o.ignore} is the id of class "${clash.name}" in ${o.classes}`);
-    return { ...r.value, ignore: o.ignore };
-  }
-  return r.value;
-}
-
 /** Lists the folders and pairs frames by stem; runs keep the order given on the command line. */
 export async function exportDatasetOpen(o: ExportOptions): Promise<ExportDataset> {
-  const table = await tableRead(o);
+  const table = await classTableRead(o.classes, o.ignore);
   const truth = await filesUnder(o.truth, 'truth');
   const predictions = dictCreate<string[]>();
   for (const r of o.runs) predictions[r.name] = await filesUnder(r.dir, 'pred');

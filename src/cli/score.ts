@@ -1,7 +1,6 @@
 // `npm run score -- --truth DIR --pred [NAME=]DIR ...`: scores a dataset headless with the same core
 // code as the browser, in a pool of worker threads; writes the src/docs/metrics.md JSON report.
 import { readFile } from 'node:fs/promises';
-import type { ClassTable } from '../core/classTable.ts';
 import type { FrameJobResult } from '../core/frameJob.ts';
 import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';
 import { frameSummary } from '../core/metrics/frameSummary.ts';
@@ -55,8 +54,8 @@ async function run(given: ScoreOptions): Promise<number> {
   const { pairing } = ds;
   pairingReport(pairing, (line) => process.stderr.write(`${termText(line)}\n`));
   if (pairing.frames.length === 0) throw new UsageError(`--truth ${options.truth}: no label PNGs found`);
-  const generated = ds.table === null;
-  const table: ClassTable = ds.table ?? { ignore: ds.settings.ignore, ignoreColor: null, classes: [], generated: true };
+  const { table } = ds;
+  const generated = table.generated;
   if (options.results) return scoreResults(options, ds, table);
   const runs = pairing.runs;
   const n = pairing.frames.length;

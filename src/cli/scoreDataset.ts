@@ -1,11 +1,12 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import { classTableFromText, type ClassTable } from '../core/classTable.ts';
+import type { ClassTable } from '../core/classTable.ts';
 import { dictCreate } from '../core/dict.ts';
 import { datasetPairProbed } from '../data/labelGroups.ts';
 import { frameListParse, pairingListed } from '../data/frameList.ts';
 import type { Pairing } from '../data/pairing.ts';
 import { UsageError } from './args.ts';
+import { classTableRead } from './classesRead.ts';
 import { filesUnder } from './listFiles.ts';
 import type { ScoreOptions } from './scoreArgs.ts';
 import type { FrameScorePaths } from './scoreFiles.ts';
@@ -14,33 +15,14 @@ import type { ScoreSettings } from '../core/metrics/settings.ts';
 /** The dataset the scorer was pointed at: frames paired by stem, the class table, and what did not pair. */
 export interface ScoreDataset {
   pairing: Pairing;
-  table: ClassTable | null;
+  /** The table frames are scored with (generated without --classes: `table.generated`). */
+  table: ClassTable;
   settings: ScoreSettings;
-}
-
-/** Returns the class table from --classes with --ignore applied, or throws UsageError saying what is wrong. */
-async function tableRead(options: ScoreOptions): Promise<ClassTable | null> {
-  if (!options.classes) return null;
-  let text: string;
-  try {
-    text = await readFile(options.classes, 'utf8');
-  } catch (e) {
-    throw new UsageError(`--classes ${options.classes}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
-  const r = classTableFromText(text, options.classes);
-  if (!r.ok) throw new UsageError(r.error);
-  const table = r.value;
-  if (options.ignore !== null && options.ignore !== table.ignore) {
-    const clash = table.classes.find((c) => c.id === options.ignore);
-    if (clash) throw new UsageError(`--ignore ${options.ignore} is the id of class "${clash.name}" in ${options.classes}`);
-    return { ...table, ignore: options.ignore };
-  }
-  return table;
 }
 
 /** Lists the folders, pairs frames by stem and reads the class table. */
 export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreDataset> {
-  const table = await tableRead(options);
+  const table = await classTableRead(options.classes, options.ignore);
   const truth = await filesUnder(options.truth, 'truth');
   const predictions = dictCreate<string[]>();
   for (const r of options.runs) predictions[r.name] = await filesUnder(r.dir, 'pred');
@@ -48,13 +30,13 @@ export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreData
   for (const c of options.confidence) confidence[c.name] = await filesUnder(c.dir, 'confidence');
   const images = options.images ? await filesUnder(options.images, 'images') : [];
   const instances = options.instances ? await filesUnder(options.instances, 'instances') : undefined;
-  const ignore = table?.ignore ?? options.ignore ?? 255;
+  const ignore = table.ignore;
   const dirs = new Map<string, string>([['truth', options.truth], ['images', options.images ?? '']]);
   for (const r of options.runs) dirs.set(`predictions/${r.name}`, r.dir);
   for (const c of options.confidence) dirs.set(`confidence/${c.name}`, c.dir);
   if (options.instances) dirs.set('instances', options.instances);
   const read = async (folder: string, path: string) => new Uint8Array(await readFile(join(dirs.get(folder)!, path)));
-  let pairing = await datasetPairProbed({ truth, predictions, images, confidence, instances }, read, table, ignore, options.pair);
+  let pairing = await datasetPairProbed({ truth, predictions, images, confidence, instances }, read, table.generated ? null : table, ignore, options.pair);
   if (options.list) {
     const text = await readFile(options.list, 'utf8').catch((e: NodeJS.ErrnoException) => {
       throw new UsageError(`--list ${options.list}: cannot read (${e.code ?? e.message})`);

@@ -1,4 +1,4 @@
-import { classTableGenerated, CLASSES_MAX, type ClassTable } from './classTable.ts';
+import { CLASSES_MAX, type ClassTable } from './classTable.ts';
 import { frameSizesCheck, labelMapIdsCheck } from './frameCheck.ts';
 import type { FileBytes } from './frameFiles.ts';
 import type { LabelMap } from './labelMap.ts';
@@ -230,9 +230,4 @@ function confidenceOf(input: FrameJobInput, run: string, width: number, height: 
     return null;
   }
   return m.value;
-}
-
-/** Returns a class table for scoring: the given one, or a generated one when there is none. */
-export function scoringTable(table: ClassTable | null, ignore: number): ClassTable {
-  return table ?? { ...classTableGenerated(-1, ignore), generated: true };
 }

@@ -1,8 +1,7 @@
-import { scoringTable } from '../core/frameJob.ts';
 import { labelMapIdsCheck } from '../core/frameCheck.ts';
 import { labelMapMaxId } from '../core/labelMap.ts';
 import { labelMapRead } from '../core/labelRead.ts';
-import type { ClassTable } from '../core/classTable.ts';
+import { classTableGenerated, type ClassTable } from '../core/classTable.ts';
 import { fileExt } from './frameKeys.ts';
 import { datasetPair, type DatasetListing, type GroupChoice, type PairOptions, type Pairing } from './pairing.ts';
 
@@ -30,7 +29,7 @@ async function groupProbe(folder: string, tail: string, sample: string, read: Fo
   } catch (e) {
     return { tail, rank: Infinity, what: `${sample} could not be read (${(e as Error).message})` };
   }
-  const t = scoringTable(table, ignore);
+  const t = table ?? classTableGenerated(-1, ignore);
   const role = folder === 'truth' ? 'truth' : 'prediction';
   const r = labelMapRead(bytes, { file: `${folder}/${sample}`, table: t, role });
   if (!r.ok) return { tail, rank: Infinity, what: r.error.replace(`${folder}/${sample}: `, '') };

@@ -1,5 +1,7 @@
 import { shallow } from 'zustand/vanilla/shallow';
-import { classTableGenerated, type ClassTable } from '../core/classTable.ts';
+import type { ClassTable } from '../core/classTable.ts';
+import type { Result } from '../core/result.ts';
+import { scoringTableBuild } from '../core/scoringTable.ts';
 import type { FrameJobResult } from '../core/frameJob.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
 import type { FrameFiles } from '../data/pairing.ts';
@@ -11,10 +13,21 @@ import { SCORE_COMMANDS, type FrameScoreRequest } from '../workers/scoreJobs.ts'
 import type { LoadedDataset } from './datasetSlice.ts';
 import type { AppStore } from './store.ts';
 
-/** Returns the table frames are scored with: the dataset's, or a generated one; void id from settings. */
+/**
+ * Returns the table frames are scored with, or why the settings' void id cannot be used with the
+ * dataset's table (the rule of scoringTableBuild, the same as the command line's).
+ */
+export function scoringTableResult(dataset: LoadedDataset, settings: ScoreSettings): Result<ClassTable> {
+  return scoringTableBuild(dataset.table, settings.ignore);
+}
+
+/**
+ * Returns the table to show frames with: the scoring table, or, while the void id is refused, the
+ * dataset's own table (scoring then fails every frame with the refusal).
+ */
 export function scoringTableOf(dataset: LoadedDataset, settings: ScoreSettings): ClassTable {
-  const base = dataset.table ?? classTableGenerated(-1, settings.ignore);
-  return { ...base, ignore: settings.ignore, classes: base.classes.filter((c) => c.id !== settings.ignore) };
+  const r = scoringTableResult(dataset, settings);
+  return r.ok ? r.value : dataset.table!;
 }
 
 /** Returns the frame's file in `folder` as the workers take it (null when the frame has none); a failed read travels with it. */
@@ -74,9 +87,12 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     generation++;
     const gen = generation;
     const frames = dataset?.pairing.frames ?? [];
-    const table = dataset ? scoringTableOf(dataset, settings) : null;
+    const built = dataset ? scoringTableResult(dataset, settings) : null;
+    const table = built?.ok ? built.value : null;
     store.getState().scoringStart(gen, frames.length, table && !table.generated ? table.classes.map((c) => c.id) : null);
-    if (!dataset || !table || frames.length === 0) return;
+    if (!dataset || !built || frames.length === 0) return;
+    // A refused void id fails every frame with the refusal, as the command line refuses to start.
+    if (!built.ok) return frames.forEach((f, i) => deliver(gen, i, failedResult(f, dataset.pairing.runs, built.error)));
     const order = frames.map((_, i) => i);
     const first = Math.min(frameIndex, frames.length - 1);
     order.splice(first, 1);
@@ -88,7 +104,7 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
       const frame = frames[index];
       let result: FrameJobResult;
       try {
-        const req = await frameScoreRequest(dataset, frame, table, settings);
+        const req = await frameScoreRequest(dataset, frame, built.value, settings);
         if (gen !== generation) return;
         result = await pool.run(SCORE_COMMANDS.frameScore, req);
       } catch (e) {

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { classTableFromText } from '../core/classTable.ts';
+import { scoringTableBuild } from '../core/scoringTable.ts';
 import { boundaryFTolerance, boundaryIoUDilation } from '../core/metrics/settings.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 
@@ -42,8 +43,8 @@ export function SettingsTab() {
         note="ground-truth pixels with this id are left out of every score"
         onCommit={(v) => {
           if (!Number.isInteger(v)) return 'the void id is a whole number';
-          const clash = dataset?.table?.classes.find((c) => c.id === v);
-          if (clash) return `id ${v} is the class "${clash.name}" in classes.json`;
+          const table = scoringTableBuild(dataset?.table ?? null, v);
+          if (!table.ok) return table.error;
           set({ ignore: v });
           return null;
         }}

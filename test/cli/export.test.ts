@@ -133,6 +133,8 @@ describe('npm run export', () => {
       [['--truth', join(demo, 'truth'), '--out', out], /--flags FILE is required/],
       [[...base(), '--out', out, '--reason', 'nothing-like-this'], /nothing to export \(no flag matches --reason\/--frame\)/],
       [[...base(), '--out', join(dir, 'no-such-folder', 'x.zip')], /--out .*x\.zip: cannot write \(the folder .*no-such-folder does not exist \(ENOENT\)\); nothing was written/],
+      // the void-id rule of src/core/scoringTable.ts, the same in the app (test/state/scoringRun.test.ts)
+      [[...base(), '--out', out, '--ignore', '2'], /--ignore 2: void id 2 is the id of class "quay" in .*classes\.json; choose another void id/],
     ];
     for (const [args, msg] of cases) {
       const r = exportCli(args);

@@ -136,6 +136,8 @@ describe('npm run score: bad input', () => {
       [['--truth', dir, '--pred', dir, '--workers', 'many'], /--workers must be a number/],
       [['--truth', dir, '--pred', dir, '--frobnicate'], /unknown option --frobnicate/],
       [['--truth', join(dir, 'ok', 'truth'), '--pred', join(dir, 'ok', 'pred-a'), '--classes', join(dir, 'missing.json')], /--classes .*missing\.json: cannot read/],
+      // the void-id rule of src/core/scoringTable.ts, the same in the app (test/state/scoringRun.test.ts)
+      [['--truth', join(dir, 'ok', 'truth'), '--pred', join(dir, 'ok', 'pred-a'), '--classes', join(dir, 'ok', 'classes.json'), '--ignore', '3'], /--ignore 3: void id 3 is the id of class "c3" in .*classes\.json; choose another void id/],
     ];
     for (const [args, re] of cases) {
       const r = scoreCli(args);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { frameJobScore, scoringTable, type FrameJobInput } from '../../src/core/frameJob.ts';
+import { classTableGenerated } from '../../src/core/classTable.ts';
+import { frameJobScore, type FrameJobInput } from '../../src/core/frameJob.ts';
 import type { LabelMap } from '../../src/core/labelMap.ts';
 import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
@@ -11,7 +12,7 @@ import { paintRect } from '../support/paint.ts';
 // optional inputs reported without losing the scores.
 
 const W = 40, H = 30;
-const table = scoringTable(null, 255);
+const table = classTableGenerated(-1, 255);
 const png = (m: LabelMap) => labelMapToPng(m, { kind: 'gray', bitDepth: 8 });
 
 function frame(): FrameJobInput {

@@ -23,15 +23,15 @@ function png(ids: number[], w: number): Blob {
   return new Blob([labelMapToPng(map, { kind: 'gray', bitDepth: 8 }) as BlobPart]);
 }
 
-/** A small in-memory dataset: 6 frames of 4×2 pixels; `dies` kills the worker scoring it. */
-function sourceMake(names: string[]): DatasetSource {
+/** A small in-memory dataset: frames of 4×2 pixels, with a classes.json unless `classes` is false; `dies` kills the worker scoring it. */
+function sourceMake(names: string[], classes = true): DatasetSource {
   const truth = png([0, 0, 1, 1, 0, 0, 1, 1], 4);
   const pred = png([0, 1, 1, 1, 0, 0, 1, 255], 4);
   return {
     kind: 'folder',
     title: 'tiny',
     listing: { images: [], truth: names.map((n) => `${n}.png`), predictions: { r: names.map((n) => `${n}.png`) } },
-    classesText: JSON.stringify({ ignore: 255, classes: [{ id: 0, name: 'a', color: '#000001' }, { id: 1, name: 'b', color: '#000002' }] }),
+    classesText: classes ? JSON.stringify({ ignore: 255, classes: [{ id: 0, name: 'a', color: '#000001' }, { id: 1, name: 'b', color: '#000002' }] }) : null,
     read: async (folder) => (folder === 'truth' ? truth : pred),
   };
 }
@@ -72,11 +72,11 @@ describe('scoringKeep: the pipeline that keeps scores in step with the dataset a
     pool = workerPoolCreate<ScoreJobs>(() => threadPortCreate(ENTRY), 1);
     const store = appStoreCreate();
     stop = scoringKeep(store, pool);
-    datasetInstall(store, datasetFromSource(sourceMake(['a1', 'a2', 'a3', 'a4', 'a5', 'a6', 'a7', 'a8'])));
+    datasetInstall(store, datasetFromSource(sourceMake(['a1', 'a2', 'a3', 'a4', 'a5', 'a6', 'a7', 'a8'], false)));
     const gen1 = store.getState().scoring.generation;
     await new Promise((r) => setTimeout(r, 30));
     expect(store.getState().scoring.done).toBeLessThan(8);
-    // Class 1 becomes the void id: its ground-truth pixels leave every score.
+    // Id 1 becomes the void id (no classes.json: classes are the ids present): its ground-truth pixels leave every score.
     store.getState().settingsSet({ ignore: 1 });
     const gen2 = store.getState().scoring.generation;
     expect(gen2).toBeGreaterThan(gen1);
@@ -88,5 +88,19 @@ describe('scoringKeep: the pipeline that keeps scores in step with the dataset a
     // Results of the cancelled pass never land in the new one: every frame counts 4 valid pixels, not 8.
     expect(s.scoring.failed).toBe(0);
     for (const r of s.results) expect(r!.runs[0].stats!.confusion.reduce((a, b) => a + b, 0)).toBe(4);
+  });
+
+  it('a void id that is a class id is refused naming the class: every frame fails with the reason (as the command line refuses)', async () => {
+    pool = workerPoolCreate<ScoreJobs>(() => threadPortCreate(ENTRY), 1);
+    const store = appStoreCreate();
+    stop = scoringKeep(store, pool);
+    datasetInstall(store, datasetFromSource(sourceMake(['b1', 'b2', 'b3'])));
+    await settled(store);
+    expect(store.getState().scoring.failed).toBe(0);
+    store.getState().settingsSet({ ignore: 1 });
+    await settled(store);
+    const s = store.getState();
+    expect(s.scoring.failed).toBe(3);
+    for (const r of s.results) expect(r!.error).toBe('void id 1 is the id of class "b" in classes.json; choose another void id');
   });
 });

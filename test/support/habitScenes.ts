@@ -1,4 +1,5 @@
-import { frameJobScore, scoringTable, type FrameJobResult } from '../../src/core/frameJob.ts';
+import { classTableGenerated } from '../../src/core/classTable.ts';
+import { frameJobScore, type FrameJobResult } from '../../src/core/frameJob.ts';
 import type { LabelMap } from '../../src/core/labelMap.ts';
 import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
@@ -112,7 +113,7 @@ function photoOf(truth: Uint8Array, inst: Int16Array, objs: Obj[], w: number, h:
 export function habitSceneBuild(o: SceneOptions): HabitScene {
   const w = o.width ?? 192, h = o.height ?? 128;
   const rng = rngCreate(o.seed);
-  const table = scoringTable(null, SCENE_VOID);
+  const table = classTableGenerated(-1, SCENE_VOID);
   const png = (ids: Uint8Array) => labelMapToPng({ width: w, height: h, ids } as LabelMap, { kind: 'gray', bitDepth: 8 });
   const mistakes: PlantedMistake[] = [], habits: HabitScene['habits'] = [], results: FrameJobResult[] = [];
   // Which frames get a mistake, and of which sort, fixed by the seed.

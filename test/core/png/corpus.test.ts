@@ -4,7 +4,8 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { frameJobScore, scoringTable } from '../../../src/core/frameJob.ts';
+import { classTableGenerated } from '../../../src/core/classTable.ts';
+import { frameJobScore } from '../../../src/core/frameJob.ts';
 import { DEFAULT_SCORE_SETTINGS } from '../../../src/core/metrics/settings.ts';
 import { labelMapFromPng, type DecodedLabelMap } from '../../../src/core/png/decodeLabel.ts';
 import { photoFromPng } from '../../../src/core/png/decodePhoto.ts';
@@ -81,7 +82,7 @@ describe('malformed PNG corpus', () => {
       const photo = photoFromPng(bytes, { file });
       expect(photo.ok || photo.error.startsWith(`${file}: `)).toBe(true);
       // As truth and as prediction against itself: the decoder's own message, or scores.
-      const res = frameJobScore({ name, truth: { file, bytes }, preds: [{ run: 'r', file: { file: `predictions/r/${name}`, bytes } }], table: scoringTable(null, 255), settings: DEFAULT_SCORE_SETTINGS });
+      const res = frameJobScore({ name, truth: { file, bytes }, preds: [{ run: 'r', file: { file: `predictions/r/${name}`, bytes } }], table: classTableGenerated(-1, 255), settings: DEFAULT_SCORE_SETTINGS });
       const jobError = JOB_ERROR[name];
       if (jobError) expect(res.error).toMatch(jobError);
       else expect(res.error).toBe(r.ok ? null : r.error);

@@ -4,8 +4,8 @@
 // hang and bomb guards, far above normal costs, not speed checks (those live in test/bench/).
 import { deflateSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
-import { classTableColorIndex } from '../../../src/core/classTable.ts';
-import { frameJobScore, scoringTable, type FrameJobResult } from '../../../src/core/frameJob.ts';
+import { classTableColorIndex, classTableGenerated } from '../../../src/core/classTable.ts';
+import { frameJobScore, type FrameJobResult } from '../../../src/core/frameJob.ts';
 import { DEFAULT_SCORE_SETTINGS } from '../../../src/core/metrics/settings.ts';
 import { labelMapFromPng, type DecodedLabelMap } from '../../../src/core/png/decodeLabel.ts';
 import { photoFromPng } from '../../../src/core/png/decodePhoto.ts';
@@ -239,7 +239,7 @@ describe('decompression bombs, absurd headers and forbidden formats', () => {
     const valid = labelMapToPng({ width: 100, height: 100, ids: new Uint8Array(10000) }, { kind: 'gray', bitDepth: 8 });
     for (const [truth, pred] of [[bytes, valid], [valid, bytes]]) {
       const res = guarded(() =>
-        frameJobScore({ name: 'bomb', truth: { file: 'truth/bomb.png', bytes: truth }, preds: [{ run: 'r', file: { file: 'predictions/r/bomb.png', bytes: pred } }], table: scoringTable(null, 255), settings: DEFAULT_SCORE_SETTINGS }),
+        frameJobScore({ name: 'bomb', truth: { file: 'truth/bomb.png', bytes: truth }, preds: [{ run: 'r', file: { file: 'predictions/r/bomb.png', bytes: pred } }], table: classTableGenerated(-1, 255), settings: DEFAULT_SCORE_SETTINGS }),
       );
       expect(res.runs[0].stats?.confusion.reduce((a, b) => a + b, 0)).toBe(10000);
     }

@@ -1,7 +1,6 @@
 // Valid label PNGs of every kind the decoder reads, the starting points of the fuzz mutants. Each
 // base keeps the ids it was written from, so a mutant that still decodes can be checked exactly.
-import { colorToRgb24, type ClassTable } from '../../../src/core/classTable.ts';
-import { scoringTable } from '../../../src/core/frameJob.ts';
+import { classTableGenerated, colorToRgb24, type ClassTable } from '../../../src/core/classTable.ts';
 import { labelMapToPng } from '../../../src/core/png/encode.ts';
 import { seededPalette, testTable } from './fixtures.ts';
 import { testPngWrite, type TestPngSpec } from './pngTestWriter.ts';
@@ -24,7 +23,7 @@ const RGB_IDS = Array.from({ length: 12 }, (_, i) => i + 1);
 /** The class table the colour-coded bases are written with. */
 export const FUZZ_RGB_TABLE = testTable(RGB_IDS, 61, 255, '#000000');
 /** The table used when a dataset has no classes.json (ids named by number). */
-const GENERATED = scoringTable(null, 255);
+const GENERATED = classTableGenerated(-1, 255);
 
 function grayOrPalette(name: string, spec: Omit<TestPngSpec, 'samples'>, seed: number): FuzzBase {
   const { width, height, bitDepth, colorType } = spec;
