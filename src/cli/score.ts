@@ -6,6 +6,7 @@ import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type Dataset
 import { frameSummary } from '../core/metrics/frameSummary.ts';
 import { flagsFileParse } from '../core/review/flagsFile.ts';
 import type { SuspectVerdictKind } from '../core/review/verdict.ts';
+import { extrasFrameLine, extrasTotalsAdd, extrasTotalsCreate, extrasTotalsReport, type ExtrasTotals } from '../core/metrics/extrasTotals.ts';
 import { reportFrameLine, scoreReport, type ReportFrameLine, type ScoreReport } from '../core/metrics/report.ts';
 import { UsageError } from './args.ts';
 import { progressCreate } from './progress.ts';
@@ -62,6 +63,7 @@ async function run(given: ScoreOptions): Promise<number> {
 
   const totals = new Map<string, DatasetTotals>(runs.map((r) => [r, datasetTotalsCreate(table.classes.map((c) => c.id))]));
   const lines = new Map<string, (ReportFrameLine | undefined)[]>(runs.map((r) => [r, new Array(n)]));
+  const extras = new Map<string, ExtrasTotals>(runs.map((r) => [r, extrasTotalsCreate()]));
   const csvRows: (FrameCsvRow[] | undefined)[] = new Array(n);
   const regions = regionGatherCreate(n, options.suspects);
   const census = censusKeep(runs);
@@ -87,7 +89,8 @@ async function run(given: ScoreOptions): Promise<number> {
         } else error = `${result.name}: ${wide.error}`;
       }
       if (!r.stats || error) anyFailed = true;
-      lines.get(r.run)![index] = reportFrameLine(result.name, error ? null : r.stats, error);
+      if (r.stats && r.extras && !error) extrasTotalsAdd(extras.get(r.run)!, r.extras, r.stats.classIds);
+      lines.get(r.run)![index] = { ...reportFrameLine(result.name, error ? null : r.stats, error), ...extrasFrameLine(error ? null : r.extras) };
       const s = r.stats && !error ? frameSummary(r.stats, 3) : null;
       rows.push({
         frame: result.name, run: r.run, meanIoU: s?.meanIoU ?? null, pixelAccuracy: s?.pixelAccuracy ?? null, bandIoU3: s?.bandIoU ?? null,
@@ -107,7 +110,12 @@ async function run(given: ScoreOptions): Promise<number> {
   for (const w of idWarnings) process.stderr.write(`warning: ${termText(w)}\n`);
 
   const classesOf = (t: DatasetTotals) => (generated ? t.classIds.map((id) => ({ id, name: String(id) })) : table.classes);
-  const reports = runs.map((r) => scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]));
+  const reports = runs.map((r) => {
+    const out = scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]);
+    const t = totals.get(r)!;
+    Object.assign(out.dataset, extrasTotalsReport(extras.get(r)!, t.classIds, out.dataset.perClass.map((c) => c.fp)));
+    return out;
+  });
   const report: Omit<ScoreReport, 'frames'> & {
     frames: (ReportFrameLine & { regions?: ReportRegion[] | null; voidSpill?: ReportVoidSpill | null })[];
     runs?: Record<string, ScoreReport['dataset']>;

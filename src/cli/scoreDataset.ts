@@ -11,6 +11,7 @@ import { filesUnder } from './listFiles.ts';
 import type { ScoreOptions } from './scoreArgs.ts';
 import type { FrameScorePaths } from './scoreFiles.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
+import { sequencePlaces, type SequencePlace } from '../core/temporal/sequences.ts';
 
 /** The dataset the scorer was pointed at: frames paired by stem, the class table, and what did not pair. */
 export interface ScoreDataset {
@@ -18,6 +19,8 @@ export interface ScoreDataset {
   /** The table frames are scored with (generated without --classes: `table.generated`). */
   table: ClassTable;
   settings: ScoreSettings;
+  /** Each frame's place in its sequence (neighbours for flicker), in pairing order. */
+  places: SequencePlace[];
 }
 
 /** Lists the folders, pairs frames by stem and reads the class table. */
@@ -52,7 +55,7 @@ export async function scoreDatasetOpen(options: ScoreOptions): Promise<ScoreData
     biouDilationRatio: options.biouRatio,
     bfTolerance: options.bfTolerance,
   };
-  return { pairing, table, settings };
+  return { pairing, table, settings, places: sequencePlaces(pairing.frames.map((f) => f.name)) };
 }
 
 /** Returns the worker-thread job for frame `index`: file paths and the names used in messages. */
@@ -68,6 +71,15 @@ export function scoreJobOf(ds: ScoreDataset, options: ScoreOptions, table: Class
       return { run, file: file === null ? null : { file: `${run}/${file}`, path: join(runDir.get(run)!, file) } };
     }),
     photo: options.images && f.image ? { file: `images/${f.image}`, path: join(options.images, f.image) } : null,
+    neighbours: ds.pairing.runs.map((run) => {
+      const at = (i: number | null) => {
+        const file = i === null ? null : ds.pairing.frames[i].predictions[run];
+        return file ? { file: `${run}/${file}`, path: join(runDir.get(run)!, file) } : null;
+      };
+      const { prev, next } = ds.places[index];
+      return { run, prev: at(prev), next: at(next) };
+    }),
+    instances: options.instances && f.instance ? { file: `instances/${f.instance}`, path: join(options.instances, f.instance) } : null,
     confidence: options.confidence.map((c) => {
       const file = f.confidence[c.name] ?? null;
       return { run: c.name, file: file === null ? null : { file: `confidence/${c.name}/${file}`, path: join(confDir.get(c.name)!, file) } };

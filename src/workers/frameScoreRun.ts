@@ -6,7 +6,7 @@ import type { RegionScratch } from '../core/regions/regionScratch.ts';
 import { buffersOf } from './protocol.ts';
 
 /** A frame-scoring job: FrameJobInput with the frame's files located by `F` (Blobs in the page, paths headless) instead of bytes. */
-export interface FrameScoreFiles<F extends FrameFileRef> extends Omit<FrameJobInput, 'truth' | 'preds' | 'photo' | 'photoRgba' | 'confidence'> {
+export interface FrameScoreFiles<F extends FrameFileRef> extends Omit<FrameJobInput, 'truth' | 'preds' | 'photo' | 'photoRgba' | 'confidence' | 'neighbours' | 'instances'> {
   truth: F;
   /** Per run: its prediction file, or null when the run has none for this frame. */
   preds: { run: string; file: F | null }[];
@@ -14,6 +14,10 @@ export interface FrameScoreFiles<F extends FrameFileRef> extends Omit<FrameJobIn
   photo: F | null;
   /** Per run: its confidence map, if the dataset has one. */
   confidence?: { run: string; file: F | null }[];
+  /** Per run: its predictions at the frame's neighbours in its sequence, for flicker; null at a sequence end. */
+  neighbours?: { run: string; prev: F | null; next: F | null }[];
+  /** The frame's instance map, for iIoU. */
+  instances?: F | null;
 }
 
 /**
@@ -47,8 +51,22 @@ export async function frameScoreRun<F extends FrameFileRef>(
       return { run: c.run, file: read?.ok ? read.value : null };
     }),
   );
+  // Neighbours and instance maps only feed the flicker and iIoU counts: one that cannot be read loses those, with a warning.
+  const optional = async (f: F | null | undefined, loses: string): Promise<FileBytes | null> => {
+    if (!f) return null;
+    const read = await fileBytesRead(reader, f);
+    if (!read.ok) warnings.push(`${read.error}; ${loses} not computed on this frame`);
+    return read.ok ? read.value : null;
+  };
+  const neighbours = await Promise.all((input.neighbours ?? []).map(async (n) => ({
+    run: n.run, prev: await optional(n.prev, `flicker of ${n.run}`), next: await optional(n.next, `flicker of ${n.run}`),
+  })));
+  const instances = await optional(input.instances, 'instance-weighted IoU');
   const value = frameJobScore(
-    { ...input, truth: truth.value, preds: preds.map((p) => ({ run: p.run, file: p.read?.ok ? p.read.value : null })), photo, photoRgba, confidence },
+    {
+      ...input, truth: truth.value, preds: preds.map((p) => ({ run: p.run, file: p.read?.ok ? p.read.value : null })), photo, photoRgba, confidence,
+      neighbours, instances,
+    },
     scratch,
     regionScratch,
   );

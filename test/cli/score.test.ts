@@ -8,6 +8,7 @@ import { pythonRefRequire, pythonRefRun, reportDifferences } from '../reference/
 import { harbourPrediction, harbourTruth } from '../support/harbourScene.ts';
 import { randomPair } from '../support/randomMaps.ts';
 import { scoreCli } from './scoreRun.ts';
+import { SCENE_KEYS } from './sceneKeys.ts';
 
 // The real CLI, end to end, against the independent numpy/scipy reference (test/reference/metrics_ref.py,
 // scipy.ndimage.distance_transform_edt and binary_erosion): every number of the report within 1e-9.
@@ -66,8 +67,9 @@ describe('npm run score (real CLI) against the numpy/scipy reference', () => {
       const refArgs = ['--truth', join(d, 'truth'), '--pred', join(d, 'pred-a'), '--classes', join(d, 'classes.json')];
       if (extra.length) refArgs.push('--biou-ratio', '0.05', '--bf-tolerance', '0.03');
       const ref = pythonRefRun(refArgs);
-      // The reference knows no error regions: frames[].regions and suspects are checked in suspects.test.ts.
-      expect(reportDifferences(ours, ref, 1e-9, ['timing', 'unpaired', 'opened', 'runs', 'regions', 'voidSpill', 'suspects'])).toEqual([]);
+      // The reference knows no error regions: frames[].regions and suspects are checked in suspects.test.ts;
+      // flicker, objects and iIoU against their own reference in sceneScores.test.ts.
+      expect(reportDifferences(ours, ref, 1e-9, ['timing', 'unpaired', 'opened', 'runs', 'regions', 'voidSpill', 'suspects', ...SCENE_KEYS])).toEqual([]);
       expect(ours.dataset.band).toHaveLength(65);
       expect(r.stdout).toMatch(/mean IoU/);
     }
@@ -82,7 +84,7 @@ describe('npm run score (real CLI) against the numpy/scipy reference', () => {
     expect(Object.keys(report.runs)).toEqual(['a', 'pred-b']);
     expect(report.runs.a).toEqual(report.dataset);
     const refB = pythonRefRun(['--truth', join(d, 'truth'), '--pred', join(d, 'pred-b'), '--classes', join(d, 'classes.json')]);
-    expect(reportDifferences(report.runs['pred-b'], refB.dataset)).toEqual([]);
+    expect(reportDifferences(report.runs['pred-b'], refB.dataset, 1e-9, SCENE_KEYS)).toEqual([]);
     const lines = readFileSync(csv, 'utf8').trim().split('\r\n');
     expect(lines[0]).toBe('frame,run,meanIoU,pixelAccuracy,bandIoU3,boundaryIoU,boundaryF,errorPixels,error');
     expect(lines).toHaveLength(1 + 8 * 2);

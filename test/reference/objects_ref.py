@@ -82,6 +82,7 @@ def main():
         out_frames.append({"name": f["name"], "objects": sorted(objects, key=lambda o: (o["classId"], o["area"], o["hits"])),
                            "smallObjectRecall": (sum(small) / len(small)) if small else None})
     keys = [seq_key(f["name"]) for f in frames]
+    sums = {"flips": 0, "pixels": 0, "flipsVoid": 0, "pixelsVoid": 0}
     for t in range(len(frames)):
         fb = {"flipBack": None, "flipBackVoid": None}
         if 0 < t < len(frames) - 1 and keys[t] is not None and keys[t - 1] == keys[t] == keys[t + 1]:
@@ -89,6 +90,10 @@ def main():
             a, b, c = maps[t - 1][1], maps[t][1], maps[t + 1][1]
             flip = (a == c) & (b != a)
             valid = np.isin(gt, class_ids)
+            sums["flips"] += int(flip[valid].sum())
+            sums["pixels"] += int(valid.sum())
+            sums["flipsVoid"] += int(flip[~valid].sum())
+            sums["pixelsVoid"] += int((~valid).sum())
             if valid.any():
                 fb["flipBack"] = float(flip[valid].mean())
             if (~valid).any():
@@ -116,6 +121,8 @@ def main():
         "objectsBySize": bins_of(bins.sum(0), recall_sum.sum(0), detected.sum(0)),
         "objectsBySizePerClass": [bins_of(bins[c], recall_sum[c], detected[c]) for c in range(k)],
         "iIoU": {"perClass": iiou, "mean": (sum(defined) / len(defined)) if defined else None},
+        "flipBack": sums["flips"] / sums["pixels"] if sums["pixels"] else None,
+        "flipBackVoid": sums["flipsVoid"] / sums["pixelsVoid"] if sums["pixelsVoid"] else None,
     }))
 
 

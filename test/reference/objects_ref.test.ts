@@ -1,51 +1,16 @@
-import { spawnSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { LabelMap } from '../../src/core/labelMap.ts';
 import { codeTableBuild } from '../../src/core/metrics/codes.ts';
 import { objectSizeBins, objectSizeCountsAdd, objectSizeCountsCreate, smallObjectRecall } from '../../src/core/objects/objectsBySize.ts';
 import { instanceCountsAdd, instanceCountsCreate, instanceIoU } from '../../src/core/objects/instanceIoU.ts';
 import { truthObjectsOf } from '../../src/core/objects/truthObjects.ts';
 import { flipBackCountsAdd, flipBackCountsCreate, flipBackRate } from '../../src/core/temporal/flipBack.ts';
 import { sequencePlaces } from '../../src/core/temporal/sequences.ts';
-import { rngCreate } from '../support/paint.ts';
-import { randomPair } from '../support/randomMaps.ts';
+import { CLASS_IDS, IGNORE, objectsRefRun, sequenceMake, type Frame } from './objectsRef.ts';
 import { pythonRefRequire, reportDifferences } from './pythonRef.ts';
 
 // Objects, object recall by size, iIoU and flip-back checked against test/reference/objects_ref.py:
 // scipy.ndimage.label with a 3×3 structure of ones for the objects, a numpy reading of Cordts et al.,
 // CVPR 2016, §3.2 for iIoU, and a numpy reading of src/docs/metrics.md "Flicker" for flip-back.
-
-const SCRIPT = fileURLToPath(new URL('./objects_ref.py', import.meta.url));
-const CLASS_IDS = [0, 1, 2, 3, 5];
-const IGNORE = 255;
-
-interface Frame { name: string; truth: LabelMap; pred: LabelMap; instances: Uint16Array }
-
-function sequenceMake(names: string[], w: number, h: number, seed: number, salt = 0): Frame[] {
-  const { truth, pred } = randomPair(w, h, seed, { classIds: CLASS_IDS, ignore: IGNORE, invalidIds: [4, 200], voids: true, shapes: 14 });
-  // Salt: single pixels of other classes, so objects touch only at corners (8- versus 4-connectivity).
-  const saltRng = rngCreate(seed + 3);
-  for (let i = 0; i < truth.ids.length; i++) if (saltRng() < salt) truth.ids[i] = CLASS_IDS[Math.floor(saltRng() * CLASS_IDS.length)];
-  const other = randomPair(w, h, seed + 1, { classIds: CLASS_IDS, ignore: IGNORE, invalidIds: [4], voids: false, shapes: 10 }).pred;
-  const rng = rngCreate(seed + 2);
-  // Instances: blocks of 8×8 pixels numbered 1..6 over classes 1 and 2, none elsewhere.
-  const instances = new Uint16Array(w * h).map((_, i) => (truth.ids[i] === 1 || truth.ids[i] === 2 ? 1 + (((i % w) >> 3) + ((i / w) >> 3) * 7) % 6 : 0));
-  return names.map((name) => {
-    const ids = pred.ids.map((v, i) => (rng() < 0.15 ? other.ids[i] : v));
-    return { name, truth, pred: { width: w, height: h, ids }, instances };
-  });
-}
-
-function pythonRun(frames: Frame[]): Record<string, unknown> {
-  const input = JSON.stringify({
-    classIds: CLASS_IDS, ignore: IGNORE,
-    frames: frames.map((f) => ({ name: f.name, width: f.truth.width, height: f.truth.height, truth: [...f.truth.ids], pred: [...f.pred.ids], instances: [...f.instances] })),
-  });
-  const r = spawnSync('python3', [SCRIPT], { input, encoding: 'utf8', maxBuffer: 1 << 28 });
-  if (r.error || r.status !== 0) throw new Error(`objects_ref.py failed: ${r.error?.message ?? r.stderr}`);
-  return JSON.parse(r.stdout) as Record<string, unknown>;
-}
 
 function tsRun(frames: Frame[]): Record<string, unknown> {
   const k = CLASS_IDS.length;
@@ -54,6 +19,7 @@ function tsRun(frames: Frame[]): Record<string, unknown> {
   const inst = instanceCountsCreate(k);
   const fp = new Float64Array(k);
   const places = sequencePlaces(frames.map((f) => f.name));
+  const all = flipBackCountsCreate(k);
   const outFrames = frames.map((f, t) => {
     const { width, height } = f.truth;
     const objects = truthObjectsOf(f.truth.ids, f.pred.ids, width, height, codes, k);
@@ -73,6 +39,10 @@ function tsRun(frames: Frame[]): Record<string, unknown> {
       line.flipBack = flipBackRate(fb.flips, fb.pixels);
       line.flipBackVoid = flipBackRate(fb.flipsVoid, fb.pixelsVoid);
       line.classFlipBack = CLASS_IDS.map((_, c) => flipBackRate(fb.classFlips[c], fb.classPixels[c]));
+      all.flips += fb.flips;
+      all.pixels += fb.pixels;
+      all.flipsVoid += fb.flipsVoid;
+      all.pixelsVoid += fb.pixelsVoid;
     }
     return line;
   });
@@ -81,6 +51,8 @@ function tsRun(frames: Frame[]): Record<string, unknown> {
     objectsBySize: objectSizeBins(sizes, null),
     objectsBySizePerClass: CLASS_IDS.map((_, c) => objectSizeBins(sizes, c)),
     iIoU: instanceIoU(inst, fp),
+    flipBack: flipBackRate(all.flips, all.pixels),
+    flipBackVoid: flipBackRate(all.flipsVoid, all.pixelsVoid),
   };
 }
 
@@ -95,7 +67,7 @@ describe('objects, iIoU and flip-back against numpy/scipy', () => {
       ...sequenceMake(['stills/overview'], 33, 17, 41),
     ];
     const ts = tsRun(frames);
-    const py = pythonRun(frames);
+    const py = objectsRefRun(frames);
     expect(reportDifferences(ts, py, 1e-9)).toEqual([]);
     // The dataset exercises what it claims to: flips, void flips, small and large objects, instances.
     const lines = ts.frames as { flipBack: number | null; flipBackVoid: number | null }[];

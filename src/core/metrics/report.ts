@@ -4,6 +4,7 @@ import type { FrameCounts } from './frameSummary.ts';
 import { frameBoundaryF, frameBoundaryIoU } from './frameSummary.ts';
 import { bandCurve, iouFamily } from './iouFamily.ts';
 import type { ScoreSettings } from './settings.ts';
+import type { ExtrasReport } from './extrasTotals.ts';
 
 /** The scorer's JSON report, keys and meaning exactly as src/docs/metrics.md "What the scorer prints". */
 export interface ScoreReport {
@@ -19,7 +20,7 @@ export interface ScoreReport {
     band: { width: number; meanIoU: number | null; pixelAccuracy: number | null }[];
     boundaryIoU: { mean: number | null; perClass: { id: number; value: number | null }[] };
     boundaryF: { mean: number | null };
-  };
+  } & Partial<ExtrasReport>;
   frames: ReportFrameLine[];
 }
 
@@ -31,6 +32,10 @@ export interface ReportFrameLine {
   boundaryIoU: number | null;
   boundaryF: number | null;
   error: string | null;
+  /** Flicker and small-object recall (src/core/metrics/extrasTotals.ts), where the scorer computed them. */
+  flipBack?: number | null;
+  flipBackVoid?: number | null;
+  smallObjectRecall?: number | null;
 }
 
 /** Returns a frame's report line from its counts, or a failed line carrying `error`. */
