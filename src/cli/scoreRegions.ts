@@ -8,9 +8,8 @@ import {
 } from '../core/suspects/suspectCandidates.ts';
 import { appearanceSumsAdd, type AppearanceSums } from '../core/suspects/appearanceModel.ts';
 import { pairRecurrenceAdd, type PairRecurrence } from '../core/suspects/pairRecurrence.ts';
-import { suspectQueue } from '../core/suspects/suspectQueue.ts';
+import { suspectQueue, type Suspect } from '../core/suspects/suspectQueue.ts';
 import type { SuspectVerdictKind } from '../core/review/verdict.ts';
-import type { SuspectContributions } from '../core/suspects/suspectScore.ts';
 import { suspectsRerank } from '../core/suspects/verdictRerank.ts';
 import { SUSPECT_DEFAULTS, type SuspectSettings } from '../core/suspects/suspectSettings.ts';
 import type { FrameGrids } from '../core/suspects/temporalFlip.ts';
@@ -31,19 +30,7 @@ export interface ReportVoidSpill {
 }
 
 /** One entry of the report's `suspects`, keys as README "Scoring headless" lists them. */
-export interface ReportSuspect {
-  frame: string;
-  run: string;
-  bbox: [number, number, number, number];
-  truthClass: number;
-  predictedClass: number;
-  kind: RegionKind;
-  score: number;
-  reasons: string[];
-  /** What each signal added to the score (score = 0.5 + their sum), and the same in words. */
-  contributions: SuspectContributions;
-  contributionsText: string;
-}
+export type ReportSuspect = Pick<Suspect, 'frame' | 'run' | 'bbox' | 'truthClass' | 'predictedClass' | 'kind' | 'score' | 'reasons' | 'contributions' | 'contributionsText'>;
 
 /** What the scorer keeps per dataset for regions and suspects. */
 export interface RegionGather {
