@@ -7,10 +7,9 @@ import {
   reviewStoredVersion,
   type ReviewRecord,
 } from '../core/review/reviewRecord.ts';
-import { reviewV1Migrate } from '../core/review/reviewMigrate.ts';
 
 /**
- * Where review records live: a small key-value interface, so the same merge and migration code runs
+ * Where review records live: a small key-value interface, so the same merge code runs
  * over IndexedDB in the browser (reviewBackendIdb) and over a Map in tests (reviewBackendMemory).
  */
 export interface ReviewBackend {
@@ -29,11 +28,6 @@ export interface ReviewBackend {
 /** Returns the storage key prefix of one dataset's records (layout 2: one value per record). */
 export function reviewStoragePrefix(datasetKey: string): string {
   return `hairline-review/${datasetKey}/`;
-}
-
-/** Returns the storage key of layout 1: the whole flag list of a dataset in one value. */
-export function reviewLegacyKey(datasetKey: string): string {
-  return `hairline-flags:${datasetKey}`;
 }
 
 /** What writing records found: stored versions that were newer than ours (they stay), and problems. */
@@ -86,25 +80,11 @@ export async function reviewStorageGet(backend: ReviewBackend, datasetKey: strin
 }
 
 /**
- * Returns every record of a dataset: layout-1 data is converted first (merged by last write wins, then
- * removed; left in place when unreadable), unreadable or newer-schema records are left untouched and
+ * Returns every record of a dataset; unreadable or newer-schema records are left untouched and
  * reported in `problems`.
  */
-export async function reviewStorageLoad(backend: ReviewBackend, datasetKey: string): Promise<{ records: ReviewRecord[]; problems: string[]; migrated: number }> {
+export async function reviewStorageLoad(backend: ReviewBackend, datasetKey: string): Promise<{ records: ReviewRecord[]; problems: string[] }> {
   const problems: string[] = [];
-  let migrated = 0;
-  const legacyKey = reviewLegacyKey(datasetKey);
-  const legacy = await backend.get(legacyKey);
-  if (legacy !== undefined) {
-    const m = reviewV1Migrate(legacy, 'flags saved by an older version');
-    if (!m.ok) problems.push(`${m.error}; they were left as they are`);
-    else {
-      const put = await reviewStoragePut(backend, datasetKey, m.value);
-      problems.push(...put.problems);
-      await backend.del(legacyKey);
-      migrated = m.value.length;
-    }
-  }
   const prefix = reviewStoragePrefix(datasetKey);
   const records: ReviewRecord[] = [];
   let newerSchema = 0;
@@ -120,7 +100,7 @@ export async function reviewStorageLoad(backend: ReviewBackend, datasetKey: stri
   }
   if (newerSchema === 1) problems.push('1 saved record is from a newer version of Hairline and was left as it is');
   else if (newerSchema > 1) problems.push(`${newerSchema} saved records are from a newer version of Hairline and were left as they are`);
-  return { records, problems, migrated };
+  return { records, problems };
 }
 
 /** Returns a backend over a Map (values structured-cloned in and out, as IndexedDB does); for tests and for running without IndexedDB. */

@@ -80,19 +80,6 @@ describe('review persistence in Chromium (IndexedDB + BroadcastChannel)', () => 
     await B.close();
   });
 
-  it('layout-1 data in IndexedDB is moved to per-flag records on the next load', async () => {
-    const A = await tabOpen();
-    const before = await call<string[]>(A, 'notes');
-    await call(A, 'legacyPut', { version: 1, flags: [{ id: 'old-1', frame: 'c', box: { x: 0, y: 0, width: 4, height: 4 }, reason: 'label', note: 'saved by layout 1', created: 1000 }] });
-    await reload(A);
-    expect(await call(A, 'notes')).toEqual([...before, 'saved by layout 1'].sort());
-    expect(await call(A, 'error')).toBeNull();
-    expect(await call(A, 'legacyGet')).toBeUndefined();
-    await reload(A);
-    expect(await call(A, 'notes')).toEqual([...before, 'saved by layout 1'].sort());
-    expect(errors).toEqual([]);
-  });
-
   it('bulk changes survive a reload 300 ms later: 1,000 imported flags, then 200 added one by one', async () => {
     const page = await tabOpen();
     const before = await call<number>(page, 'count');

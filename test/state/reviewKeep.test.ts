@@ -6,7 +6,7 @@ import type { DatasetSource } from '../../src/data/sources/source.ts';
 import { datasetFromSource, datasetInstall } from '../../src/state/datasetLoad.ts';
 import { reviewChannelOpen } from '../../src/state/reviewChannel.ts';
 import { reviewKeep, type ReviewKeeper } from '../../src/state/reviewKeep.ts';
-import { reviewBackendMemory, reviewLegacyKey, reviewStoragePrefix, type ReviewBackend } from '../../src/state/reviewStorage.ts';
+import { reviewBackendMemory, reviewStoragePrefix, type ReviewBackend } from '../../src/state/reviewStorage.ts';
 import { appStoreCreate, type AppStore } from '../../src/state/store.ts';
 
 const keepers: ReviewKeeper[] = [];
@@ -167,39 +167,13 @@ describe('reviewKeep: flags persist per dataset fingerprint', () => {
 
 describe('reviewKeep: schema versions', () => {
   const key = datasetFromSource(source('yard')).key;
-  const oldList = {
-    version: 1,
-    flags: [
-      { id: 'o1', frame: 'a', box: { x: 2, y: 2, width: 3, height: 3 }, reason: 'label', note: 'old one', created: 1000 },
-      { id: 'o2', frame: 'b', box: null, reason: 'model', note: 'old two', created: 2000 },
-    ],
-  };
 
-  it('moves layout-1 flags into layout-2 records on open, keeping a newer layout-2 version of the same flag', async () => {
+  it('leaves newer-schema records where they are, and says so', async () => {
     const map = new Map<string, unknown>();
-    map.set(reviewLegacyKey(key), structuredClone(oldList));
-    const newer = { id: 'o2', frame: 'b', kind: 'frame', bbox: null, reason: 'unsure', note: 'edited in the new version', run: null, createdAt: 2000, updatedAt: 5000 };
-    map.set(`${reviewStoragePrefix(key)}flag/o2`, { v: 2, type: 'flag', id: 'o2', updatedAt: 5000, writer: 'w', flag: newer });
-    const { store } = await tab(reviewBackendMemory(map), 'yard', null);
-    expect(store.getState().reviewError).toBeNull();
-    expect(store.getState().reviewFlags.map((f) => [f.id, f.kind, f.bbox, f.reason, f.note])).toEqual([
-      ['o1', 'rect', [2, 2, 5, 5], 'label-mistake', 'old one'],
-      ['o2', 'frame', null, 'unsure', 'edited in the new version'],
-    ]);
-    expect(map.has(reviewLegacyKey(key))).toBe(false);
-    expect(map.get(`${reviewStoragePrefix(key)}flag/o1`)).toMatchObject({ v: 2, writer: 'migrated-v1' });
-  });
-
-  it('leaves unreadable layout-1 data and newer-schema records where they are, and says so', async () => {
-    const map = new Map<string, unknown>();
-    const broken = { version: 1, flags: [{ id: 'x', frame: 'a', box: 'wide', reason: 'label', created: 1 }] };
-    map.set(reviewLegacyKey(key), broken);
     const future = { v: 3, type: 'flag', id: 'n', something: 'new' };
     map.set(`${reviewStoragePrefix(key)}flag/n`, future);
     const { store } = await tab(reviewBackendMemory(map), 'yard', null);
-    expect(store.getState().reviewError).toMatch(/flags saved by an older version flags\[0\]: "box" must be \{ x, y, width, height \} or null.*left as they are/);
     expect(store.getState().reviewError).toMatch(/1 saved record is from a newer version of Hairline and was left as it is/);
-    expect(map.get(reviewLegacyKey(key))).toEqual(broken);
     expect(map.get(`${reviewStoragePrefix(key)}flag/n`)).toEqual(future);
   });
 });

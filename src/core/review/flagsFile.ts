@@ -1,7 +1,6 @@
 import { fail, ok, type Result } from '../result.ts';
 import { FLAGS_FILE_MAX, type Flag } from './flag.ts';
 import { flagFromJson } from './flagCheck.ts';
-import { flagFromV1 } from './reviewMigrate.ts';
 import { verdictFromJson, type SuspectVerdict } from './verdict.ts';
 
 /**
@@ -23,7 +22,7 @@ export interface FlagsFileDataset {
 /** A flags file read back: flags and verdicts checked, times in ms. */
 export interface FlagsFileContent {
   version: number;
-  dataset: FlagsFileDataset | null;
+  dataset: FlagsFileDataset;
   flags: Flag[];
   verdicts: SuspectVerdict[];
 }
@@ -63,8 +62,8 @@ function timeRead(v: unknown): unknown {
   return Number.isFinite(ms) ? ms : v;
 }
 
-function datasetRead(v: unknown): Result<FlagsFileDataset | null> {
-  if (v === undefined || v === null) return ok(null);
+function datasetRead(v: unknown): Result<FlagsFileDataset> {
+  if (v === undefined || v === null) return fail('', 'has no "dataset" { key, title, frames }');
   const o = v as Record<string, unknown>;
   if (typeof v !== 'object' || Array.isArray(v)) return fail('', '"dataset" must be an object { key, title, frames }');
   if (typeof o.key !== 'string' || typeof o.title !== 'string') return fail('', '"dataset" needs "key" and "title" strings');
@@ -86,13 +85,12 @@ export function flagsFileParse(text: string, file: string, now = Date.now()): Re
   if (typeof json !== 'object' || json === null || Array.isArray(json)) return fail(file, 'is not a flags file: expected a JSON object');
   const o = json as Record<string, unknown>;
   if (o.format !== FLAGS_FORMAT) return fail(file, `is not a flags file: "format" must be "${FLAGS_FORMAT}", got ${JSON.stringify(o.format)}`);
-  if (o.version !== 1 && o.version !== 2) {
+  if (o.version !== FLAGS_FILE_VERSION) {
     const newer = typeof o.version === 'number' && o.version > FLAGS_FILE_VERSION;
-    return fail(file, newer ? `was written by a newer version (file version ${o.version}; this one reads 1 and 2)` : `has "version" ${JSON.stringify(o.version)}; expected 1 or 2`);
+    return fail(file, newer ? `was written by a newer version (file version ${o.version}; this one reads ${FLAGS_FILE_VERSION})` : `has "version" ${JSON.stringify(o.version)}; expected ${FLAGS_FILE_VERSION}`);
   }
   const dataset = datasetRead(o.dataset);
   if (!dataset.ok) return fail(file, dataset.error);
-  if (o.version === 2 && dataset.value === null) return fail(file, 'has no "dataset" { key, title, frames }');
   if (!Array.isArray(o.flags)) return fail(file, '"flags" must be an array');
   const verdictsIn = o.verdicts ?? [];
   if (!Array.isArray(verdictsIn)) return fail(file, '"verdicts" must be an array');
@@ -107,7 +105,7 @@ export function flagsFileParse(text: string, file: string, now = Date.now()): Re
   const ids = new Map<string, number>();
   o.flags.forEach((raw, i) => {
     const where = `flags[${i}]`;
-    const f = o.version === 1 ? flagFromV1(raw, where, now) : flagFromJson(timed(raw, ['createdAt', 'updatedAt']), where, now);
+    const f = flagFromJson(timed(raw, ['createdAt', 'updatedAt']), where, now);
     if (!f.ok) return void problems.push(f.error);
     const prior = ids.get(f.value.id);
     if (prior !== undefined) return void problems.push(`${where}: id ${JSON.stringify(f.value.id)} is used twice (also flags[${prior}])`);

@@ -6,7 +6,6 @@ import { datasetFromSource, datasetInstall } from '../../../src/state/datasetLoa
 import { reviewBackendIdb } from '../../../src/state/reviewBackendIdb.ts';
 import { reviewChannelOpen } from '../../../src/state/reviewChannel.ts';
 import { reviewKeep } from '../../../src/state/reviewKeep.ts';
-import { reviewLegacyKey } from '../../../src/state/reviewStorage.ts';
 import { appStoreCreate } from '../../../src/state/store.ts';
 
 const frames = ['a', 'b', 'c'];
@@ -50,7 +49,5 @@ const byNote = (note: string) => store.getState().reviewFlags.find((f) => f.note
     for (let i = 0; i < n; i++) made += store.getState().flagAdd({ frame: frames[i % frames.length], kind: 'frame', bbox: null, reason: 'unsure', note: `${tag} ${i}` }).ok ? 1 : 0;
     return made;
   },
-  legacyPut: (value: unknown) => backend.updateMany([[reviewLegacyKey(key), () => value]]),
-  legacyGet: () => backend.get(reviewLegacyKey(key)),
 };
 document.title = 'review test page ready';

@@ -38,18 +38,19 @@ describe('flags file: write, read back, and clear errors', () => {
     expect(back).toEqual({ ok: true, value: { version: 2, dataset: DS, flags, verdicts: [VERDICT] } });
   });
 
-  it('reads a version 1 file (layout-1 flags)', () => {
-    const v1 = { format: 'hairline-flags', version: 1, flags: [{ id: 'o', frame: 'kq-0001', box: { x: 2, y: 3, width: 4, height: 5 }, reason: 'model', created: 99 }] };
-    const r = flagsFileParse(JSON.stringify(v1), 'old.json');
-    expect(r.ok && r.value.flags).toEqual([{ id: 'o', frame: 'kq-0001', kind: 'rect', bbox: [2, 3, 6, 8], reason: 'model-error', note: '', run: null, createdAt: 99, updatedAt: 99 }]);
+  it('refuses a file of another version, saying which it reads', () => {
+    const v1 = { format: 'hairline-flags', version: 1, flags: [] };
+    expect(flagsFileParse(JSON.stringify(v1), 'old.json')).toEqual({ ok: false, error: 'old.json: has "version" 1; expected 2' });
+    const v3 = { format: 'hairline-flags', version: 3, flags: [] };
+    expect(flagsFileParse(JSON.stringify(v3), 'new.json')).toEqual({ ok: false, error: 'new.json: was written by a newer version (file version 3; this one reads 2)' });
   });
 
   it('names the file and what is wrong', () => {
     expect(parseErr('{"format": "hairline-flags",')).toMatch(/^flags\.json: is not valid JSON/);
     expect(parseErr('[]')).toMatch(/^flags\.json: is not a flags file: expected a JSON object/);
     expect(parseErr('{"format":"other","version":2}')).toMatch(/"format" must be "hairline-flags", got "other"/);
-    expect(parseErr('{"format":"hairline-flags","version":3,"flags":[]}')).toMatch(/was written by a newer version \(file version 3; this one reads 1 and 2\)/);
-    expect(parseErr('{"format":"hairline-flags","version":"2"}')).toMatch(/has "version" "2"; expected 1 or 2/);
+    expect(parseErr('{"format":"hairline-flags","version":3,"flags":[]}')).toMatch(/was written by a newer version \(file version 3; this one reads 2\)/);
+    expect(parseErr('{"format":"hairline-flags","version":"2"}')).toMatch(/has "version" "2"; expected 2/);
     expect(parseErr('{"format":"hairline-flags","version":2,"flags":[]}')).toMatch(/has no "dataset"/);
     expect(parseErr(JSON.stringify({ format: 'hairline-flags', version: 2, dataset: { ...DS, frames: -1 }, flags: [] }))).toMatch(/"dataset.frames" must be a whole number/);
     expect(parseErr(JSON.stringify({ format: 'hairline-flags', version: 2, dataset: DS, flags: {} }))).toMatch(/"flags" must be an array/);
