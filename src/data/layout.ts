@@ -1,4 +1,5 @@
 import { countText } from '../core/countText.ts';
+import { dictCreate } from '../core/dict.ts';
 import { fail, ok, type Result } from '../core/result.ts';
 import { DESCRIPTION_FILE, type Description, type FolderSpec } from './description.ts';
 import { naturalCompare } from './naturalSort.ts';
@@ -55,9 +56,9 @@ export const LAYOUT_EXPECTED =
 
 /** Returns the layout of a root from its file paths: as its description says, or guessed from folder names. */
 export function layoutFromPaths(paths: string[], description: Description | null): Result<DatasetLayout> {
-  const listing: DatasetListing = { images: [], truth: [], predictions: {}, confidence: {} };
-  const dirs: Record<string, string> = {};
-  const pair: Required<PairOptions> = { chosen: {}, patterns: {} };
+  const listing: DatasetListing = { images: [], truth: [], predictions: dictCreate(), confidence: dictCreate() };
+  const dirs: Record<string, string> = dictCreate();
+  const pair: Required<PairOptions> = { chosen: dictCreate(), patterns: dictCreate() };
   const classesPath = description?.classes ?? (paths.includes('classes.json') ? 'classes.json' : null);
   const place = (id: string, spec: FolderSpec): string[] => {
     dirs[id] = spec.folder.replace(/^\.\/?/, '').replace(/\/+$/, '');

@@ -1,5 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
 import type { ClassTable } from '../core/classTable.ts';
+import type { Opened } from '../data/opened.ts';
 import type { Pairing } from '../data/pairing.ts';
 import type { DatasetSource } from '../data/sources/source.ts';
 import type { AppState } from './store.ts';
@@ -15,6 +16,8 @@ export interface LoadedDataset {
   table: ClassTable | null;
   /** Why classes.json could not be used, or null. */
   tableError: string | null;
+  /** What was opened and how (pairing, groups, id maps, warnings), for the "opened" panel; absent for hand-made datasets. */
+  opened?: Opened & { how: string | null };
 }
 
 export interface DatasetSlice {

@@ -26,10 +26,12 @@ export function Readout({ viewer }: { viewer: Viewer }) {
         }
         const name = (id: number) => (id === table.ignore ? 'void' : (classTableFind(table, id)?.name ?? `not a class (${id})`));
         const i = p.y * f.width + p.x;
-        const parts = [`x ${p.x}  y ${p.y}`, `truth: ${name(f.truth.ids[i])}`];
+        // Where the class table maps stored ids, the file's own id is shown beside the class.
+        const label = (m: { ids: ArrayLike<number>; stored?: ArrayLike<number> }) => (m.stored ? `${name(m.ids[i])} (stored id ${m.stored[i]})` : name(m.ids[i]));
+        const parts = [`x ${p.x}  y ${p.y}`, `truth: ${label(f.truth)}`];
         for (const run of s.dataset.pairing.runs) {
           const m = f.preds[run];
-          if (m) parts.push(`${run}: ${name(m.ids[i])}`);
+          if (m) parts.push(`${run}: ${label(m)}`);
         }
         const d = truthBoundaryDistanceAt(f.truth, p.x, p.y);
         parts.push(d === null ? 'boundary > 64 px' : `boundary ${d.toFixed(2)} px`);

@@ -6,6 +6,7 @@ import { LeftPane } from './LeftPane.tsx';
 import { FlagDialog } from './FlagDialog.tsx';
 import { HelpOverlay } from './HelpOverlay.tsx';
 import { LayerBar } from './LayerBar.tsx';
+import { OpenedNotice } from './OpenedPanel.tsx';
 import { filesOpen } from './OpenFolder.tsx';
 import { droppedFiles } from './pickedFiles.ts';
 import { Scoreboard } from './Scoreboard.tsx';
@@ -23,7 +24,8 @@ function EmptyState() {
       {!loading && (
         <p>
           Drop a dataset folder here (<code>images/</code>, <code>truth/</code>, <code>predictions/&lt;run&gt;/</code>, optional{' '}
-          <code>classes.json</code>) or use <b>Open folder…</b>. Nothing leaves this machine.
+          <code>classes.json</code>; other layouts are recognised or described by a <code>hairline.json</code>, see the README
+          &ldquo;Your data&rdquo;) or use <b>Open folder…</b>. Nothing leaves this machine.
         </p>
       )}
     </div>
@@ -73,6 +75,7 @@ export function Workspace({ viewPool }: { viewPool: ViewPool }) {
           <button onClick={() => store.getState().datasetErrorSet(null)}>dismiss</button>
         </div>
       )}
+      <OpenedNotice />
       {hasDataset ? (
         <div className="panes">
           <aside className="left">

@@ -1,4 +1,5 @@
-import { listingFromPaths, type DatasetSource } from './source.ts';
+import type { DatasetSource } from './source.ts';
+import { layoutPath, sourceLayoutOpen } from './sourceLayout.ts';
 
 /** A file of a dropped or picked folder with its path relative to the folder that was chosen. */
 export interface PickedFile {
@@ -6,7 +7,7 @@ export interface PickedFile {
   file: Blob;
 }
 
-const LAYOUT_FOLDERS = new Set(['images', 'truth', 'predictions', 'confidence']);
+const LAYOUT_FOLDERS = new Set(['images', 'truth', 'predictions', 'confidence', 'hairline.json']);
 
 /**
  * Returns the paths with the chosen folder's own name removed when the files sit one level down
@@ -30,16 +31,19 @@ export async function folderSourceOpen(files: PickedFile[]): Promise<DatasetSour
     if (!f.path.startsWith(prefix)) continue;
     byPath.set(f.path.slice(prefix.length), f.file);
   }
-  const { listing, classesPath } = listingFromPaths([...byPath.keys()]);
-  const classesText = classesPath ? await byPath.get(classesPath)!.text() : null;
+  const layout = await sourceLayoutOpen([...byPath.keys()], (path) => byPath.get(path)!.text());
   return {
     kind: 'folder',
     title,
-    listing,
-    classesText,
+    listing: layout.listing,
+    classesText: layout.classesText,
+    pair: layout.pair,
+    listText: layout.listText,
+    how: layout.how,
     async read(folder, path) {
-      const blob = byPath.get(`${folder}/${path}`);
-      if (!blob) throw new Error(`${folder}/${path}: not in the dropped folder`);
+      const at = layoutPath(layout, folder, path);
+      const blob = byPath.get(at);
+      if (!blob) throw new Error(`${at}: not in the dropped folder`);
       return blob;
     },
   };

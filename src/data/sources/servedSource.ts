@@ -1,4 +1,5 @@
-import { listingFromPaths, type DatasetSource } from './source.ts';
+import type { DatasetSource } from './source.ts';
+import { layoutPath, sourceLayoutOpen } from './sourceLayout.ts';
 
 /** Returns the dataset folder that `npm start -- DIR` serves, or null when it serves none. */
 export async function servedSourceOpen(base = '/dataset/'): Promise<DatasetSource | null> {
@@ -7,22 +8,24 @@ export async function servedSourceOpen(base = '/dataset/'): Promise<DatasetSourc
   if (!res.ok) throw new Error(`the server could not list the dataset folder (HTTP ${res.status})`);
   const index = (await res.json()) as { title: string | null; files: string[] | null };
   if (index.files === null || index.title === null) return null;
-  const { listing, classesPath } = listingFromPaths(index.files);
   const url = (path: string) => `${base}file/${path.split('/').map(encodeURIComponent).join('/')}`;
-  let classesText: string | null = null;
-  if (classesPath) {
-    const r = await fetch(url(classesPath), { cache: 'no-store' });
-    if (!r.ok) throw new Error(`classes.json: could not be read (HTTP ${r.status})`);
-    classesText = await r.text();
-  }
+  const layout = await sourceLayoutOpen(index.files, async (path) => {
+    const r = await fetch(url(path), { cache: 'no-store' });
+    if (!r.ok) throw new Error(`${path}: could not be read (HTTP ${r.status})`);
+    return r.text();
+  });
   return {
     kind: 'served',
     title: index.title,
-    listing,
-    classesText,
+    listing: layout.listing,
+    classesText: layout.classesText,
+    pair: layout.pair,
+    listText: layout.listText,
+    how: layout.how,
     async read(folder, path) {
-      const r = await fetch(url(`${folder}/${path}`));
-      if (!r.ok) throw new Error(`${folder}/${path}: could not be read (HTTP ${r.status})`);
+      const at = layoutPath(layout, folder, path);
+      const r = await fetch(url(at));
+      if (!r.ok) throw new Error(`${at}: could not be read (HTTP ${r.status})`);
       return r.blob();
     },
   };

@@ -1,5 +1,5 @@
 import { dictCreate } from '../../core/dict.ts';
-import type { DatasetListing } from '../pairing.ts';
+import type { DatasetListing, PairOptions } from '../pairing.ts';
 
 /** Where a dataset's files come from: the built-in demo, a folder served by `npm start`, or a folder dropped on the page. */
 export interface DatasetSource {
@@ -9,6 +9,12 @@ export interface DatasetSource {
   listing: DatasetListing;
   /** Text of classes.json, or null when the dataset has none. */
   classesText: string | null;
+  /** Suffix groups and key patterns from hairline.json (served and dropped folders). */
+  pair?: PairOptions;
+  /** Text of the list file of frames to use, or null / absent for every frame. */
+  listText?: string | null;
+  /** How the folders were found ("hairline.json" or "folder names"), for the "opened" panel. */
+  how?: string;
   /** Returns the bytes of `path` inside `folder` (`images`, `truth`, `predictions/<run>`, `confidence/<run>`). */
   read(folder: string, path: string): Promise<Blob>;
   /** Frees what the source holds (workers, cached files) once another dataset replaces it. */

@@ -1,0 +1,40 @@
+import { DESCRIPTION_FILE, descriptionFromText } from '../description.ts';
+import { layoutFromPaths, type DatasetLayout } from '../layout.ts';
+
+/** A served or dropped root read as a dataset: its layout, and the texts of its class table and list file. */
+export interface SourceLayout extends DatasetLayout {
+  classesText: string | null;
+  listText: string | null;
+}
+
+/**
+ * Returns the layout of a root from its file paths and hairline.json (if there is one), with the class
+ * table and list file read; throws an Error whose message says what was expected and what was found
+ * when the root is no dataset, or names the key of a bad description file.
+ */
+export async function sourceLayoutOpen(paths: string[], readText: (path: string) => Promise<string>): Promise<SourceLayout> {
+  let description = null;
+  if (paths.includes(DESCRIPTION_FILE)) {
+    const d = descriptionFromText(await readText(DESCRIPTION_FILE));
+    if (!d.ok) throw new Error(d.error);
+    description = d.value;
+  }
+  const layout = layoutFromPaths(paths, description);
+  if (!layout.ok) throw new Error(layout.error);
+  const { classesPath, listPath } = layout.value;
+  const classesText = classesPath && paths.includes(classesPath) ? await readText(classesPath) : null;
+  if (classesPath && classesText === null && description?.classes) throw new Error(`${DESCRIPTION_FILE}: "classes": ${classesPath} is not in the folder`);
+  let listText: string | null = null;
+  if (listPath) {
+    if (!paths.includes(listPath)) throw new Error(`${DESCRIPTION_FILE}: "list": ${listPath} is not in the folder`);
+    listText = await readText(listPath);
+  }
+  return { ...layout.value, classesText, listText };
+}
+
+/** Returns the path under the root of `path` inside a layout folder (`truth`, `predictions/<run>`, …). */
+export function layoutPath(layout: Pick<DatasetLayout, 'dirs'>, folder: string, path: string): string {
+  const dir = layout.dirs[folder];
+  if (dir === undefined) throw new Error(`${folder}/${path}: no such folder in this dataset`);
+  return dir === '' ? path : `${dir}/${path}`;
+}
