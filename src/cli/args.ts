@@ -66,3 +66,20 @@ export function namedDirParse(value: string, option: string): { name: string; di
   if (!name) throw new UsageError(`--${option} "${value}": cannot name a run after this folder; use NAME=DIR`);
   return { name, dir: value };
 }
+
+/** Returns the runs of repeated `--pred [NAME=]DIR` in the order given; throws UsageError when two runs share a name. */
+export function runsParse(preds: string[] | undefined): { name: string; dir: string }[] {
+  const runs = (preds ?? []).map((p) => namedDirParse(p, 'pred'));
+  const names = new Set<string>();
+  for (const r of runs) {
+    if (names.has(r.name)) throw new UsageError(`two runs are named "${r.name}"; name them with --pred NAME=DIR`);
+    names.add(r.name);
+  }
+  return runs;
+}
+
+/** Returns `--ignore N` checked (an integer 0..65535), or null when it was not given; throws UsageError otherwise. */
+export function ignoreParse(ignore: number | undefined): number | null {
+  if (ignore !== undefined && (!Number.isInteger(ignore) || ignore < 0 || ignore > 65535)) throw new UsageError(`--ignore must be an integer 0..65535, got ${ignore}`);
+  return ignore ?? null;
+}

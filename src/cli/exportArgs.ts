@@ -1,4 +1,4 @@
-import { argsParse, namedDirParse, UsageError } from './args.ts';
+import { argsParse, ignoreParse, runsParse, UsageError } from './args.ts';
 import type { TileMode } from '../core/export/tileBoxes.ts';
 import { tileModeCheck } from '../core/export/tileBoxes.ts';
 
@@ -43,20 +43,14 @@ export function exportOptionsParse(argv: string[]): ExportOptions {
   if (typeof a.flags !== 'string') throw new UsageError('--flags FILE is required (a flags file saved from the app)');
   if (typeof a.truth !== 'string') throw new UsageError('--truth DIR is required');
   if (typeof a.out !== 'string' || a.out.trim() === '') throw new UsageError('--out FILE is required (the ZIP to write)');
-  const runs = ((a.pred as string[] | undefined) ?? []).map((p) => namedDirParse(p, 'pred'));
-  const names = new Set<string>();
-  for (const r of runs) {
-    if (names.has(r.name)) throw new UsageError(`two runs are named "${r.name}"; name them with --pred NAME=DIR`);
-    names.add(r.name);
-  }
-  const ignore = a.ignore as number | undefined;
-  if (ignore !== undefined && (!Number.isInteger(ignore) || ignore < 0 || ignore > 65535)) throw new UsageError(`--ignore must be an integer 0..65535, got ${ignore}`);
+  const runs = runsParse(a.pred as string[] | undefined);
+  const ignore = ignoreParse(a.ignore as number | undefined);
   if (a.padding !== undefined && a.tile !== undefined) throw new UsageError('give --padding N (crops) or --tile N (fixed tiles), not both');
   const mode: TileMode = a.tile !== undefined ? { kind: 'tile', size: a.tile as number } : { kind: 'crop', padding: (a.padding as number | undefined) ?? EXPORT_PADDING_DEFAULT };
   const checked = tileModeCheck(mode);
   if (!checked.ok) throw new UsageError(`--${mode.kind === 'tile' ? 'tile' : 'padding'}: ${checked.error}`);
   return {
     flags: a.flags, truth: a.truth, runs, images: (a.images as string | undefined) ?? null, classes: (a.classes as string | undefined) ?? null,
-    ignore: ignore ?? null, out: a.out, mode: checked.value, reasons: (a.reason as string[] | undefined) ?? [], frames: (a.frame as string[] | undefined) ?? [],
+    ignore, out: a.out, mode: checked.value, reasons: (a.reason as string[] | undefined) ?? [], frames: (a.frame as string[] | undefined) ?? [],
   };
 }

@@ -1,6 +1,6 @@
 import { availableParallelism } from 'node:os';
 import type { PairOptions } from '../data/pairing.ts';
-import { argsParse, namedDirParse, UsageError } from './args.ts';
+import { argsParse, ignoreParse, namedDirParse, runsParse, UsageError } from './args.ts';
 
 /** Options of `npm run score`, validated. */
 export interface ScoreOptions {
@@ -77,16 +77,11 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
   } else if (typeof a.truth !== 'string') throw new UsageError('--truth DIR is required (or --dataset DIR)');
   const preds = (a.pred as string[] | undefined) ?? [];
   if (preds.length === 0 && dataset === null) throw new UsageError('--pred DIR is required (give it once per prediction run)');
-  const runs = preds.map((p) => namedDirParse(p, 'pred'));
-  const names = new Set<string>();
-  for (const r of runs) {
-    if (names.has(r.name)) throw new UsageError(`two runs are named "${r.name}"; name them with --pred NAME=DIR`);
-    names.add(r.name);
-  }
+  const runs = runsParse(preds);
+  const names = new Set(runs.map((r) => r.name));
   const confidence = ((a.confidence as string[] | undefined) ?? []).map((c) => namedDirParse(c, 'confidence'));
   for (const c of confidence) if (!names.has(c.name)) throw new UsageError(`--confidence ${c.name}=…: no run named "${c.name}"`);
-  const ignore = a.ignore as number | undefined;
-  if (ignore !== undefined && (!Number.isInteger(ignore) || ignore < 0 || ignore > 65535)) throw new UsageError(`--ignore must be an integer 0..65535, got ${ignore}`);
+  const ignore = ignoreParse(a.ignore as number | undefined);
   const workers = (a.workers as number | undefined) ?? availableParallelism();
   if (!Number.isInteger(workers) || workers < 1 || workers > 256) throw new UsageError(`--workers must be an integer 1..256, got ${workers}`);
   const biouRatio = (a['biou-ratio'] as number | undefined) ?? 0.02;
@@ -102,7 +97,7 @@ export function scoreOptionsParse(argv: string[]): ScoreOptions {
     confidence,
     instances: (a.instances as string | undefined) ?? null,
     classes: (a.classes as string | undefined) ?? null,
-    ignore: ignore ?? null,
+    ignore,
     out: (a.out as string | undefined) ?? null,
     csv: (a.csv as string | undefined) ?? null,
     workers,
