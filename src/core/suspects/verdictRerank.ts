@@ -71,5 +71,6 @@ export function suspectsRerank(queue: readonly Suspect[], verdicts: ReadonlyMap<
     }
     return { ...s, score, contributions, contributionsText: contributionsText(contributions), learnedReason };
   });
-  return out.sort((a, b) => b.score - a.score || a.frameIndex - b.frameIndex);
+  // A stable sort: items whose scores tie keep the queue's own order (its tie-breaks: area, then frame).
+  return out.sort((a, b) => b.score - a.score);
 }
