@@ -1,4 +1,4 @@
-// Generates one demo frame and writes its four PNGs: the unit of work of the demo writer, run on the
+// Generates one demo frame and writes its five PNGs: the unit of work of the demo writer, run on the
 // main thread or on a worker thread.
 import { writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
@@ -19,6 +19,7 @@ export async function demoFrameFilesWrite(dir: string, index: number, o: DemoOpt
   await Promise.all([
     writeFile(join(dir, 'images', file), f.photoPng),
     writeFile(join(dir, 'truth', file), f.truthPng),
+    writeFile(join(dir, 'instances', file), f.instancesPng),
     ...DEMO_RUNS.map((r) => writeFile(join(dir, 'predictions', r, file), f.predPngs[r])),
   ]);
   return f.mistakes;

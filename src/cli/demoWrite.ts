@@ -1,4 +1,4 @@
-// Writes the Kestrel Quay demo as a normal dataset folder: images/, truth/, predictions/run-a/,
+// Writes the Kestrel Quay demo as a normal dataset folder: images/, truth/, instances/, predictions/run-a/,
 // predictions/run-b/, classes.json and answer-key.json. Frames are generated independently, on
 // worker threads when there are several cores.
 import { mkdir, readdir, stat, unlink, writeFile } from 'node:fs/promises';
@@ -21,11 +21,11 @@ export interface DemoWriteSummary {
   threads: number;
 }
 
-const FOLDERS = ['images', 'truth', ...DEMO_RUNS.map((r) => join('predictions', r))];
+const FOLDERS = ['images', 'truth', 'instances', ...DEMO_RUNS.map((r) => join('predictions', r))];
 const FRAME_FILE = /^kq-\d{4}\.png$/;
 
 /** What a demo folder holds at its top level; a folder holding anything else is not overwritten. */
-const TOP = new Set(['images', 'truth', 'predictions', 'classes.json', 'answer-key.json']);
+const TOP = new Set(['images', 'truth', 'instances', 'predictions', 'classes.json', 'answer-key.json']);
 
 // A folder may be reused only if it is new, empty or holds nothing but an earlier (maybe unfinished)
 // demo; stale frames of a longer earlier demo are removed so the folder pairs up exactly.

@@ -4,7 +4,7 @@ import { zlibSync } from 'fflate';
 import { labelMapToPng, type ZlibCompress } from '../core/png/encode.ts';
 import type { LabelMap } from '../core/labelMap.ts';
 import { demoCamera } from './camera.ts';
-import { demoPalette, DEMO_IGNORE } from './classes.ts';
+import { demoPalette, DEMO_CLASS, DEMO_IGNORE } from './classes.ts';
 import { photoFinish } from './finish.ts';
 import { demoMistakePlan } from './mistakePlan.ts';
 import { mistakesApply, type DemoMistake } from './mistakes.ts';
@@ -37,6 +37,8 @@ export interface DemoFrame {
   name: string;
   photoPng: Uint8Array;
   truthPng: Uint8Array;
+  /** 16-bit instance ids of the true scene (0 = ground, sky, water), for instance-weighted IoU. */
+  instancesPng: Uint8Array;
   predPngs: Record<DemoRunName, Uint8Array>;
   mistakes: DemoMistake[];
 }
@@ -104,12 +106,24 @@ export function demoFrame(index: number, o: DemoOptions, zlib: DemoZlib = {}): D
     name: r.name,
     photoPng: photoRgbToPng(r.width, r.height, r.photo, zlib.photo),
     truthPng: labelMapToPng(r.truth, { kind: 'gray', bitDepth: 8 }, labels),
+    instancesPng: labelMapToPng({ width: r.width, height: r.height, ids: thingInstances(r) }, { kind: 'gray', bitDepth: 16 }, labels),
     predPngs: {
       'run-a': labelMapToPng(r.preds['run-a'], { kind: 'gray', bitDepth: 8 }, labels),
       'run-b': labelMapToPng(r.preds['run-b'], { kind: 'palette', colors: demoPalette(PRED_PALETTE_ENTRIES) }, labels),
     },
     mistakes: r.mistakes,
   };
+}
+
+/** Classes whose objects are countable things with instances; sky, water, quay and rail are surfaces. */
+const DEMO_THING_CLASSES: ReadonlySet<number> = new Set([
+  DEMO_CLASS.container, DEMO_CLASS.crane, DEMO_CLASS.truck, DEMO_CLASS.person, DEMO_CLASS.bollard,
+  DEMO_CLASS.lightMast, DEMO_CLASS.building, DEMO_CLASS.vegetation,
+]);
+
+/** Returns the frame's instance ids where the ground truth says a thing class (0 elsewhere), as an instance map is written. */
+function thingInstances(r: DemoFrameRaster): Uint16Array {
+  return r.instances.map((v, i) => (DEMO_THING_CLASSES.has(r.truth.ids[i]) ? v : 0));
 }
 
 /** Returns every answer-key entry of the sequence, in frame order. */

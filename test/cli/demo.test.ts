@@ -22,7 +22,7 @@ afterAll(async () => {
 
 async function tree(dir: string): Promise<Record<string, string[]>> {
   const out: Record<string, string[]> = {};
-  for (const sub of ['.', 'images', 'truth', 'predictions/run-a', 'predictions/run-b']) out[sub] = (await readdir(join(dir, sub))).sort();
+  for (const sub of ['.', 'images', 'truth', 'instances', 'predictions/run-a', 'predictions/run-b']) out[sub] = (await readdir(join(dir, sub))).sort();
   return out;
 }
 
@@ -61,13 +61,14 @@ describe('demoDatasetWrite', () => {
     expect(b.value.threads).toBe(2);
     const names = ['kq-0001.png', 'kq-0002.png', 'kq-0003.png', 'kq-0004.png', 'kq-0005.png'];
     expect(await tree(one)).toEqual({
-      '.': ['answer-key.json', 'classes.json', 'images', 'predictions', 'truth'],
+      '.': ['answer-key.json', 'classes.json', 'images', 'instances', 'predictions', 'truth'],
       images: names,
       truth: names,
+      instances: names,
       'predictions/run-a': names,
       'predictions/run-b': names,
     });
-    for (const sub of ['images', 'truth', 'predictions/run-a', 'predictions/run-b']) {
+    for (const sub of ['images', 'truth', 'instances', 'predictions/run-a', 'predictions/run-b']) {
       for (const n of names) expect(Buffer.compare(await readFile(join(one, sub, n)), await readFile(join(two, sub, n))), `${sub}/${n}`).toBe(0);
     }
     expect(await readFile(join(one, 'answer-key.json'), 'utf8')).toBe(await readFile(join(two, 'answer-key.json'), 'utf8'));
