@@ -58,7 +58,7 @@ export const LAYOUT_EXPECTED =
 export function layoutFromPaths(paths: string[], description: Description | null): Result<DatasetLayout> {
   const listing: DatasetListing = { images: [], truth: [], predictions: dictCreate(), confidence: dictCreate() };
   const dirs: Record<string, string> = dictCreate();
-  const pair: Required<PairOptions> = { chosen: dictCreate(), patterns: dictCreate() };
+  const pair: Required<PairOptions> = { chosen: dictCreate(), patterns: dictCreate(), why: dictCreate() };
   const classesPath = description?.classes ?? (paths.includes('classes.json') ? 'classes.json' : null);
   const place = (id: string, spec: FolderSpec): string[] => {
     dirs[id] = spec.folder.replace(/^\.\/?/, '').replace(/\/+$/, '');

@@ -70,6 +70,8 @@ export interface PairOptions {
   chosen?: Record<string, string>;
   /** A regular expression over the path without extension whose first group is the frame key. */
   patterns?: Record<string, string>;
+  /** Why a folder's suffix group was chosen, when a probe (not the description file) chose it. */
+  why?: Record<string, string>;
 }
 
 const LABEL_EXT = ['.png'];
@@ -81,7 +83,7 @@ function isHidden(path: string): boolean {
 
 /** Returns key → file for one folder after choosing its suffix group, reporting wrong types and keys that occur twice. */
 function indexFolder(
-  folder: string, files: string[], exts: string[], out: { unpaired: UnpairedFile[]; groups: GroupChoice[] }, chosen?: string, pattern?: string,
+  folder: string, files: string[], exts: string[], out: { unpaired: UnpairedFile[]; groups: GroupChoice[] }, chosen?: string, pattern?: string, why?: string,
 ): Map<string, string> {
   const kept: string[] = [];
   for (const file of [...files].sort(naturalCompare)) {
@@ -103,7 +105,7 @@ function indexFolder(
       folder,
       groups: groups.map((g) => ({ tail: g.tail, files: g.files.length, sample: g.files[0].file })),
       chosen: pick.tail,
-      why: chosen === pick.tail ? 'chosen in the description file' : 'the largest group of files that can hold label ids',
+      why: chosen === pick.tail ? (why ?? 'chosen in the description file') : 'the largest group of files that can hold label ids',
     });
     keyed = keyed.filter((k) => !others.has(k.tail));
   }
@@ -200,14 +202,14 @@ export function datasetPair(listing: DatasetListing, options: PairOptions = {}):
   const out = { unpaired: [] as UnpairedFile[], ambiguous: [] as AmbiguousFile[], groups: [] as GroupChoice[] };
   const chosen = options.chosen ?? {};
   const pat = options.patterns ?? {};
-  const truth = indexFolder('truth', listing.truth, LABEL_EXT, out, chosen.truth, pat.truth);
+  const truth = indexFolder('truth', listing.truth, LABEL_EXT, out, chosen.truth, pat.truth, options.why?.truth);
   const truthFile = truth;
   const match = truthMatcher([...truth.keys()]);
   const images = folderMatch('images', indexFolder('images', listing.images, PHOTO_EXT, out, chosen.images, pat.images), match, truthFile, out);
   const runs = Object.keys(listing.predictions).sort(naturalCompare);
   const preds = new Map(runs.map((r) => {
     const folder = `predictions/${r}`;
-    return [r, folderMatch(folder, indexFolder(folder, listing.predictions[r], LABEL_EXT, out, chosen[folder], pat[folder]), match, truthFile, out)];
+    return [r, folderMatch(folder, indexFolder(folder, listing.predictions[r], LABEL_EXT, out, chosen[folder], pat[folder], options.why?.[folder]), match, truthFile, out)];
   }));
   const confRuns = Object.keys(listing.confidence ?? {}).sort(naturalCompare);
   const confs = new Map(confRuns.map((r) => {

@@ -68,7 +68,8 @@ describe('your data in the browser (npm start -- DIR)', () => {
       const text = (await panel.textContent()) ?? '';
       expect(text).toContain('truthIds: 9 stored ids → 5 classes, 3 to void');
       expect(text).toContain('predictionIds: 5 stored ids → 5 classes');
-      expect(text).toMatch(/truth: several encodings of each frame: .*"_gt_class"/);
+      // The probe passes over the colour map (colours not in the table), the 16-bit instance map (ids not in truthIds) and the JSON.
+      expect(text).toMatch(/truth: several encodings of each frame: .*using "_gt_class" \(8-bit ids up to 255, all in the class table\); "_gt_color": .*colours that are not in classes.json.*"_gt_inst": stored ids .*"_gt_shapes": a JSON of shapes/);
       expect(text).toContain('predictions/preds/stray_pred.png: no ground-truth file with this frame key');
       if (SHOTS) await page.screenshot({ path: join(SHOTS, 'opened-panel.png') });
       await panel.locator('button', { hasText: 'close' }).click();

@@ -31,7 +31,7 @@ export async function folderSourceOpen(files: PickedFile[]): Promise<DatasetSour
     if (!f.path.startsWith(prefix)) continue;
     byPath.set(f.path.slice(prefix.length), f.file);
   }
-  const layout = await sourceLayoutOpen([...byPath.keys()], (path) => byPath.get(path)!.text());
+  const layout = await sourceLayoutOpen([...byPath.keys()], (path) => byPath.get(path)!.text(), async (path) => new Uint8Array(await byPath.get(path)!.arrayBuffer()));
   return {
     kind: 'folder',
     title,

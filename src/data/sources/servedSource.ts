@@ -13,6 +13,10 @@ export async function servedSourceOpen(base = '/dataset/'): Promise<DatasetSourc
     const r = await fetch(url(path), { cache: 'no-store' });
     if (!r.ok) throw new Error(`${path}: could not be read (HTTP ${r.status})`);
     return r.text();
+  }, async (path) => {
+    const r = await fetch(url(path));
+    if (!r.ok) throw new Error(`${path}: could not be read (HTTP ${r.status})`);
+    return new Uint8Array(await r.arrayBuffer());
   });
   return {
     kind: 'served',

@@ -1,4 +1,7 @@
 import { DESCRIPTION_FILE, descriptionFromText } from '../description.ts';
+import { classTableFromText } from '../../core/classTable.ts';
+import { dictCreate } from '../../core/dict.ts';
+import { datasetPairProbed } from '../labelGroups.ts';
 import { layoutFromPaths, type DatasetLayout } from '../layout.ts';
 
 /** A served or dropped root read as a dataset: its layout, and the texts of its class table and list file. */
@@ -12,7 +15,9 @@ export interface SourceLayout extends DatasetLayout {
  * table and list file read; throws an Error whose message says what was expected and what was found
  * when the root is no dataset, or names the key of a bad description file.
  */
-export async function sourceLayoutOpen(paths: string[], readText: (path: string) => Promise<string>): Promise<SourceLayout> {
+export async function sourceLayoutOpen(
+  paths: string[], readText: (path: string) => Promise<string>, readBytes: (path: string) => Promise<Uint8Array>,
+): Promise<SourceLayout> {
   let description = null;
   if (paths.includes(DESCRIPTION_FILE)) {
     const d = descriptionFromText(await readText(DESCRIPTION_FILE));
@@ -29,7 +34,18 @@ export async function sourceLayoutOpen(paths: string[], readText: (path: string)
     if (!paths.includes(listPath)) throw new Error(`${DESCRIPTION_FILE}: "list": ${listPath} is not in the folder`);
     listText = await readText(listPath);
   }
-  return { ...layout.value, classesText, listText };
+  // Folders with several encodings per frame use the group whose first file decodes as label ids.
+  const parsed = classesText === null ? null : classTableFromText(classesText, 'classes.json');
+  const table = parsed?.ok ? parsed.value : null;
+  const lay = layout.value;
+  const probed = await datasetPairProbed(lay.listing, (folder, path) => readBytes(layoutPath(lay, folder, path)), table, table?.ignore ?? 255, lay.pair);
+  const why: Record<string, string> = dictCreate();
+  for (const g of probed.groups ?? []) {
+    if (lay.pair.chosen?.[g.folder] !== undefined) continue;
+    lay.pair.chosen = { ...lay.pair.chosen, [g.folder]: g.chosen };
+    why[g.folder] = g.why;
+  }
+  return { ...lay, pair: { ...lay.pair, why }, classesText, listText };
 }
 
 /** Returns the path under the root of `path` inside a layout folder (`truth`, `predictions/<run>`, …). */
