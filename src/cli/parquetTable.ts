@@ -23,7 +23,7 @@ export interface TableWriter<R> {
 
 /** Rows per row group, and values of list columns per row group, before the buffer is written out. */
 const GROUP_ROWS = 4096;
-const GROUP_LIST_VALUES = 1 << 20;
+const GROUP_LIST_VALUES = 1 << 17;
 /** The largest count an intList or int cell can hold (Parquet INT32). */
 const INT32_MAX = 2 ** 31 - 1;
 

@@ -17,6 +17,7 @@ import { frameGridsOf, suspectCandidates, type SuspectCandidate } from '../core/
 import type { Suspect } from '../core/suspects/suspectQueue.ts';
 import type { SuspectSettings } from '../core/suspects/suspectSettings.ts';
 import { UsageError } from './args.ts';
+import { heapTrim } from './heapTrim.ts';
 import { tableRowGroups, tableWriterCreate } from './parquetTable.ts';
 import { FRAME_COLUMNS, QUEUE_COLUMNS, REGION_COLUMNS, RESULTS_FILES, type QueueRow } from './resultsTables.ts';
 
@@ -74,6 +75,9 @@ export interface ResultsWriter {
   /** Removes the partial folder (after a failure). */
   abandon(): Promise<void>;
 }
+
+/** Frames between two full garbage collections (heapTrim.ts). */
+const TRIM_FRAMES = 200;
 
 /** Checks that `dir` can take a results folder: absent, empty, or an earlier results folder. */
 export async function resultsDirCheck(dir: string, what = '--results'): Promise<void> {
@@ -182,6 +186,7 @@ export async function resultsWriterCreate(start: ResultsStart): Promise<ResultsW
       regionRows++;
     }
     finished++;
+    if (finished % TRIM_FRAMES === 0) heapTrim();
   });
   return {
     add(index, result) {

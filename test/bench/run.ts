@@ -13,6 +13,7 @@ const ALL: [string, string, string[]][] = [
   ['tilesExport', 'test/bench/tilesExport.bench.ts', []],
   ['demo', 'test/bench/demo.bench.ts', []],
   ['largeDataset', 'test/bench/largeDataset.bench.ts', []],
+  ['resultsMemory', 'test/bench/resultsMemory.bench.ts', []],
 ];
 const wanted = process.argv.slice(2);
 let failed = 0;
