@@ -102,8 +102,12 @@ describe('npm run score -- --results DIR', () => {
     const report = JSON.parse(readFileSync(join(dir, 'report.json'), 'utf8'));
     expect(s.classes).toEqual(report.classes);
     expect(s.settings).toEqual(report.settings);
-    expectClose(s.dataset, report.dataset, 'dataset');
-    expectClose(s.runs, report.runs, 'runs');
+    // The report's flicker and object keys (src/core/metrics/extrasTotals.ts) are not in results folders yet (README "Large datasets").
+    const EXTRAS = ['flipBack', 'flipBackPerClass', 'flipBackVoid', 'objectsBySize', 'objectsBySizePerClass', 'smallObjectRecall'];
+    const core = (d: Record<string, unknown>) => Object.fromEntries(Object.entries(d).filter(([k]) => !EXTRAS.includes(k)));
+    expect(Object.keys(report.dataset).filter((k) => !(k in s.dataset)).sort()).toEqual(EXTRAS);
+    expectClose(s.dataset, core(report.dataset), 'dataset');
+    for (const r of ['a', 'b']) expectClose(s.runs[r], core(report.runs[r]), `runs.${r}`);
     expect(s.runNames).toEqual(['a', 'b']);
     expect(s.frames).toEqual({ total: 24, from: 0, to: 24, scored: 24, failed: 0 });
     expect(Object.keys(s.sums.confidence)).toEqual(['a']); // the confidence map was used
