@@ -1,5 +1,5 @@
 import { open } from 'node:fs/promises';
-import { PNG_HEAD_BYTES, pngFileBound } from '../core/png/fileBound.ts';
+import { PNG_HEAD_BYTES, pngFileBound, pngHeadPixels } from '../core/png/fileBound.ts';
 import { PNG_MAX_PIXELS_DEFAULT } from '../core/png/pixelsRead.ts';
 
 /**
@@ -22,6 +22,19 @@ export async function fileReadBounded(path: string, maxPixels = PNG_MAX_PIXELS_D
       at += bytesRead;
     }
     return at === size ? out : out.subarray(0, at);
+  } finally {
+    await fh.close();
+  }
+}
+
+/** Returns the pixels the PNG at `path` declares (its first 33 bytes), or null when it is not a PNG or cannot be read. */
+export async function filePngPixels(path: string): Promise<number | null> {
+  const fh = await open(path, 'r').catch(() => null);
+  if (!fh) return null;
+  try {
+    const head = new Uint8Array(PNG_HEAD_BYTES);
+    const { bytesRead } = await fh.read(head, 0, PNG_HEAD_BYTES, 0);
+    return pngHeadPixels(head.subarray(0, bytesRead));
   } finally {
     await fh.close();
   }

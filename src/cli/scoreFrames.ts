@@ -2,11 +2,12 @@
 // to `take` as it arrives (in any order). A frame whose worker fails gets a failed result naming it.
 import type { ClassTable } from '../core/classTable.ts';
 import type { FrameJobResult } from '../core/frameJob.ts';
-import { workerPoolCreate } from '../workers/pool.ts';
+import { SCORE_PIXEL_BUDGET, workerPoolCreate } from '../workers/pool.ts';
 import type { ScoreOptions } from './scoreArgs.ts';
 import { scoreJobOf, type ScoreDataset } from './scoreDataset.ts';
-import type { ScoreFileJobs } from './scoreFiles.ts';
+import type { FrameScorePaths, ScoreFileJobs } from './scoreFiles.ts';
 import { threadPortCreate } from './threadPort.ts';
+import { filePngPixels } from './fileReadBounded.ts';
 
 const THREAD = new URL('./scoreThread.ts', import.meta.url);
 
@@ -17,7 +18,11 @@ export async function framesScore(
   const n = to - from;
   if (n <= 0) return;
   const { pairing } = ds;
-  const pool = workerPoolCreate<ScoreFileJobs>(() => threadPortCreate(THREAD), Math.min(options.workers, n));
+  // A watchdog deadline and a memory budget from each frame's size (its ground truth's PNG header).
+  const pool = workerPoolCreate<ScoreFileJobs>(() => threadPortCreate(THREAD), Math.min(options.workers, n), {
+    jobPixels: (_cmd, input) => filePngPixels((input as FrameScorePaths).truth.path),
+    pixelBudget: SCORE_PIXEL_BUDGET,
+  });
   try {
     let next = from;
     // A bounded window keeps memory flat: at most two frames per thread are read or in flight.

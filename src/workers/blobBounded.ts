@@ -1,4 +1,4 @@
-import { PNG_HEAD_BYTES, pngFileBound } from '../core/png/fileBound.ts';
+import { PNG_HEAD_BYTES, pngFileBound, pngHeadPixels } from '../core/png/fileBound.ts';
 import { PNG_MAX_PIXELS_DEFAULT } from '../core/png/pixelsRead.ts';
 
 /**
@@ -10,4 +10,9 @@ export async function blobBytesBounded(blob: Blob, maxPixels = PNG_MAX_PIXELS_DE
   const bound = pngFileBound(head, blob.size, maxPixels);
   if (!bound.ok) throw new Error(bound.error);
   return new Uint8Array(await blob.arrayBuffer());
+}
+
+/** Returns the pixels the PNG in `blob` declares (its first 33 bytes), or null when it is not a PNG. */
+export async function blobPngPixels(blob: Blob): Promise<number | null> {
+  return pngHeadPixels(new Uint8Array(await blob.slice(0, PNG_HEAD_BYTES).arrayBuffer()));
 }

@@ -1,5 +1,6 @@
 import { browserPortCreate } from './browserPort.ts';
-import { workerPoolCreate, type WorkerPool } from './pool.ts';
+import { blobPngPixels } from './blobBounded.ts';
+import { SCORE_PIXEL_BUDGET, workerPoolCreate, type WorkerPool } from './pool.ts';
 import type { ScoreJobs } from './scoreJobs.ts';
 import type { ViewJobs } from './viewJobs.ts';
 
@@ -9,11 +10,21 @@ export type ScorePool = WorkerPool<ScoreJobs>;
 /** A pool of view workers (view.worker.ts). */
 export type ViewPool = WorkerPool<ViewJobs>;
 
-/** Returns a pool of scoring workers, one per logical core (`navigator.hardwareConcurrency`). */
+/**
+ * Returns a pool of scoring workers, one per logical core (`navigator.hardwareConcurrency`), with a
+ * watchdog deadline and a memory budget from each frame's size (its ground truth's PNG header).
+ */
 export function scorePoolCreate(size = Math.max(1, navigator.hardwareConcurrency || 2)): ScorePool {
   return workerPoolCreate<ScoreJobs>(
     () => browserPortCreate(() => new Worker(new URL('./score.worker.ts', import.meta.url), { type: 'module', name: 'hairline-score' })),
     size,
+    {
+      jobPixels: (_cmd, input) => {
+        const truth = (input as Parameters<ScoreJobs['frameScore']>[0]).truth.blob;
+        return truth ? blobPngPixels(truth) : null;
+      },
+      pixelBudget: SCORE_PIXEL_BUDGET,
+    },
   );
 }
 

@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { threadPortCreate } from '../../src/cli/threadPort.ts';
-import { JobCancelled, workerPoolCreate, type WorkerPool } from '../../src/workers/pool.ts';
+import { JobCancelled, jobDeadlineMs, workerPoolCreate, type WorkerPool } from '../../src/workers/pool.ts';
 import { buffersOf } from '../../src/workers/protocol.ts';
 import type { TestJobs } from './fixtures/testWorker.ts';
 
@@ -69,5 +69,51 @@ describe('workerPoolCreate over real Node worker threads', () => {
     await expect(pool.run('nope', {})).rejects.toThrow('unknown worker command "nope"');
     // @ts-expect-error: the wrong input for echo
     await expect(pool.run('echo', { message: 'x' })).resolves.toBeNaN();
+  });
+
+  it('watchdog: a worker stuck in a busy loop is stopped at its deadline, replaced, and the rest are scored', async () => {
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 2, { deadlineMs: () => 4000 });
+    const t0 = Date.now();
+    const jobs = [pool.run('spin', undefined), ...[1, 2, 3, 4].map((v) => pool!.run('echo', { value: v, delayMs: 10 }))];
+    const settled = await Promise.allSettled(jobs);
+    expect(settled.map((s) => s.status)).toEqual(['rejected', 'fulfilled', 'fulfilled', 'fulfilled', 'fulfilled']);
+    expect((settled[0] as PromiseRejectedResult).reason.message).toBe('the worker did not finish this job within 4 s (stuck, or it closed itself); it was stopped and replaced');
+    expect(Date.now() - t0).toBeGreaterThanOrEqual(4000);
+    expect(pool.restarts()).toBe(1);
+    // The replacement works.
+    await expect(pool.run('echo', { value: 5 })).resolves.toBe(10);
+  });
+
+  it('watchdog: a worker that stops answering (closed its port) and one that is killed both fail their job, the pool goes on', async () => {
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 1, { deadlineMs: () => 4000 });
+    const deaf = pool.run('deaf', undefined);
+    const killed = pool.run('die', undefined);
+    const after = pool.run('echo', { value: 7 });
+    await expect(deaf).rejects.toThrow(/did not finish this job within 4 s/);
+    await expect(killed).rejects.toThrow(/worker stopped while running this job \(exit code 7\)/);
+    await expect(after).resolves.toBe(14);
+    expect(pool.restarts()).toBe(2);
+  });
+
+  it('the deadline scales with the job\'s pixels: 30 s + 10 µs per pixel', async () => {
+    const seen: (number | null)[] = [];
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 1, {
+      jobPixels: (_cmd, input) => (input as { pixels: number }).pixels,
+      deadlineMs: (px) => (seen.push(px), jobDeadlineMs(px ?? 0)),
+    });
+    await expect(pool.run('sized', { pixels: 2048 * 1024, delayMs: 1 })).resolves.toBe(2048 * 1024);
+    expect(seen).toEqual([2048 * 1024]);
+    expect(jobDeadlineMs(2048 * 1024)).toBeCloseTo(30_000 + 20_971.52, 6);
+    expect(jobDeadlineMs(100e6)).toBe(1_030_000);
+  });
+
+  it('pixel budget: jobs wait until the running ones leave room; one job always runs however large', async () => {
+    pool = workerPoolCreate<TestJobs>(() => threadPortCreate(ENTRY), 3, { jobPixels: (_c, input) => (input as { pixels: number }).pixels, pixelBudget: 10 });
+    const jobs = [4, 4, 4].map((px) => pool!.run('sized', { pixels: px, delayMs: 300 }));
+    await new Promise((r) => setTimeout(r, 100));
+    expect(pool.running()).toBe(2); // 4 + 4 fit in 10, a third would not
+    await Promise.all(jobs);
+    const huge = pool.run('sized', { pixels: 50, delayMs: 1 });
+    await expect(huge).resolves.toBe(50);
   });
 });

@@ -15,6 +15,12 @@ const PNG_EXTRA_BYTES = 16 * 2 ** 20;
 /** Largest file that is not a PNG a reader takes whole (a JPEG or WebP photo); common practice, 256 MiB. */
 export const OTHER_FILE_BYTES_MAX = 256 * 2 ** 20;
 
+/** Returns the pixel count a PNG's first bytes declare, or null when they are not a valid PNG header. */
+export function pngHeadPixels(head: Uint8Array): number | null {
+  const h = pngHeaderRead(head, '');
+  return h.ok ? h.value.width * h.value.height : null;
+}
+
 /**
  * Returns the most bytes a PNG with this header can sensibly hold: its raw rows (filter bytes and
  * Adam7 passes included) stored without compression (deflate stored blocks add 5 bytes per 65,535),
