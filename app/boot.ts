@@ -6,7 +6,6 @@ import { layerSettingsSel } from '../src/state/selectors.ts';
 import type { ScoreReport } from '../src/core/metrics/report.ts';
 import { stateReport } from '../src/state/stateReport.ts';
 import { servedSourceOpen } from '../src/data/sources/servedSource.ts';
-import { datasetFromSource, datasetInstall } from '../src/state/datasetLoad.ts';
 import { scoringKeep } from '../src/state/scoringRun.ts';
 import { shownKeep } from '../src/state/shownKeep.ts';
 import { appStoreCreate, type AppStore } from '../src/state/store.ts';
@@ -14,6 +13,8 @@ import { reviewBackendIdb } from '../src/state/reviewBackendIdb.ts';
 import { reviewChannelOpen } from '../src/state/reviewChannel.ts';
 import { reviewKeep } from '../src/state/reviewKeep.ts';
 import { urlViewApply, urlViewDecode, urlViewKeep, type UrlView } from '../src/state/urlState.ts';
+import { APP_COMMANDS } from '../src/ui/commands/appCommands.ts';
+import { commandRun } from '../src/ui/commands/registry.ts';
 import { scorePoolCreate, viewPoolCreate, type ScorePool, type ViewPool } from '../src/workers/scorePool.ts';
 
 /** The running app: its store, worker pools, and the function that stops everything. */
@@ -58,7 +59,7 @@ async function datasetOpenInitial(store: AppStore, fromUrl: UrlView): Promise<vo
   try {
     const served = await servedSourceOpen();
     if (served) {
-      datasetInstall(store, datasetFromSource(served));
+      commandRun({ store, viewer: null }, APP_COMMANDS['dataset.open'], served);
       if (fromUrl.dataset === 'served') urlViewApply(store, fromUrl);
       return;
     }
@@ -67,7 +68,7 @@ async function datasetOpenInitial(store: AppStore, fromUrl: UrlView): Promise<vo
       s.datasetErrorSet(demo.error);
       return;
     }
-    datasetInstall(store, datasetFromSource(demoSourceOpen(demo.value)));
+    commandRun({ store, viewer: null }, APP_COMMANDS['dataset.open'], demoSourceOpen(demo.value));
     if (fromUrl.dataset === 'demo' || fromUrl.dataset === null) urlViewApply(store, fromUrl);
   } catch (e) {
     s.datasetErrorSet(`Could not open the served dataset: ${(e as Error).message}`);

@@ -1,6 +1,7 @@
 import { pct } from './format.ts';
 import type { ScopeScores } from '../state/scopeScores.ts';
-import { useAppStore } from './storeContext.tsx';
+import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
+import { useCommand } from './commands/useCommand.tsx';
 
 const W = 320;
 const H = 200;
@@ -9,7 +10,7 @@ const PAD = { l: 34, r: 8, t: 10, b: 24 };
 type Curve = ScopeScores['curve'];
 
 function path(curve: Curve, key: 'meanIoU' | 'pixelAccuracy', lo: number): string {
-  const x = (w: number) => PAD.l + (w / 64) * (W - PAD.l - PAD.r);
+  const x = (w: number) => PAD.l + (w / BAND_WIDTH_MAX) * (W - PAD.l - PAD.r);
   const y = (v: number) => PAD.t + (1 - (v - lo) / (1 - lo)) * (H - PAD.t - PAD.b);
   let d = '';
   let pen = false;
@@ -25,16 +26,16 @@ function path(curve: Curve, key: 'meanIoU' | 'pixelAccuracy', lo: number): strin
   return d;
 }
 
-/** IoU and pixel accuracy against boundary-band width 0..64 px; click to set the width everything uses. */
+/** IoU and pixel accuracy against boundary-band width 0..BAND_WIDTH_MAX px; click to set the width everything uses. */
 export function BandCurve({ runA, runB, a, aFrame, b, w }: { runA: string | null; runB: string | null; a: ScopeScores | null; aFrame: ScopeScores | null; b: ScopeScores | null; w: number }) {
-  const store = useAppStore();
+  const run = useCommand();
   const curves: { curve: Curve; key: 'meanIoU' | 'pixelAccuracy'; cls: string; label: string }[] = [];
   if (a) curves.push({ curve: a.curve, key: 'meanIoU', cls: 'c-a', label: `${runA} dataset mIoU` }, { curve: a.curve, key: 'pixelAccuracy', cls: 'c-a dashed', label: `${runA} dataset pixel acc.` });
   if (aFrame) curves.push({ curve: aFrame.curve, key: 'meanIoU', cls: 'c-frame', label: `${runA} this frame mIoU` });
   if (b && runB) curves.push({ curve: b.curve, key: 'meanIoU', cls: 'c-b', label: `${runB} dataset mIoU` });
   const values = curves.flatMap((c) => c.curve.map((p) => p[c.key]).filter((v): v is number => v !== null));
   const lo = values.length ? Math.max(0, Math.floor(Math.min(...values) * 10) / 10) : 0;
-  const xw = PAD.l + (w / 64) * (W - PAD.l - PAD.r);
+  const xw = PAD.l + (w / BAND_WIDTH_MAX) * (W - PAD.l - PAD.r);
   const at = (c: Curve, k: 'meanIoU' | 'pixelAccuracy') => c[w]?.[k] ?? null;
   return (
     <div className="band-curve">
@@ -44,8 +45,8 @@ export function BandCurve({ runA, runB, a, aFrame, b, w }: { runA: string | null
         onClick={(e) => {
           const r = e.currentTarget.getBoundingClientRect();
           const x = ((e.clientX - r.left) / r.width) * W;
-          const width = Math.round(((x - PAD.l) / (W - PAD.l - PAD.r)) * 64);
-          store.getState().bandWidthSet(Math.max(0, Math.min(64, width)));
+          const width = Math.round(((x - PAD.l) / (W - PAD.l - PAD.r)) * BAND_WIDTH_MAX);
+          run('band.width', width);
         }}
       >
         {[0, 0.25, 0.5, 0.75, 1].map((t) => {
@@ -60,8 +61,8 @@ export function BandCurve({ runA, runB, a, aFrame, b, w }: { runA: string | null
             </g>
           );
         })}
-        {[0, 16, 32, 48, 64].map((t) => (
-          <text key={t} x={PAD.l + (t / 64) * (W - PAD.l - PAD.r)} y={H - 8} className="axis" textAnchor="middle">
+        {[0, 0.25, 0.5, 0.75, 1].map((f) => f * BAND_WIDTH_MAX).map((t) => (
+          <text key={t} x={PAD.l + (t / BAND_WIDTH_MAX) * (W - PAD.l - PAD.r)} y={H - 8} className="axis" textAnchor="middle">
             {t}
           </text>
         ))}

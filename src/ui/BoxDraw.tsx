@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import type { Viewer } from '../view/viewer.ts';
 import { viewScreenToImage } from '../view/viewTransform.ts';
+import { useCommand } from './commands/useCommand.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
 
 /**
@@ -10,6 +11,7 @@ import { useApp, useAppStore } from './storeContext.tsx';
  */
 export function BoxDraw({ host, viewer }: { host: HTMLElement; viewer: Viewer }) {
   const store = useAppStore();
+  const run = useCommand();
   const armed = useApp((s) => s.boxDrawing);
   const [rect, setRect] = useState<{ x0: number; y0: number; x1: number; y1: number } | null>(null);
 
@@ -40,17 +42,13 @@ export function BoxDraw({ host, viewer }: { host: HTMLElement; viewer: Viewer })
       if (!start) return;
       e.stopPropagation();
       const p = toImage(e);
-      const s = store.getState();
-      const f = s.shown!;
+      const f = store.getState().shown!;
       const clamp = (v: number, hi: number) => Math.max(0, Math.min(hi, v));
       const x0 = clamp(Math.floor(Math.min(start.ix, p.x)), f.width), x1 = clamp(Math.ceil(Math.max(start.ix, p.x)), f.width);
       const y0 = clamp(Math.floor(Math.min(start.iy, p.y)), f.height), y1 = clamp(Math.ceil(Math.max(start.iy, p.y)), f.height);
       start = null;
       setRect(null);
-      s.boxDrawingSet(false);
-      if (x1 - x0 >= 2 && y1 - y0 >= 2) {
-        s.flagDraftSet({ frame: f.name, kind: 'rect', bbox: [x0, y0, x1, y1], reason: 'label-mistake', run: s.runA });
-      }
+      run('flag.boxDrawn', [x0, y0, x1, y1]);
     };
     host.addEventListener('pointerdown', down, { capture: true });
     host.addEventListener('pointermove', move, { capture: true });
@@ -60,7 +58,7 @@ export function BoxDraw({ host, viewer }: { host: HTMLElement; viewer: Viewer })
       host.removeEventListener('pointermove', move, { capture: true });
       host.removeEventListener('pointerup', up, { capture: true });
     };
-  }, [host, viewer, store]);
+  }, [host, viewer, store, run]);
 
   return (
     <>

@@ -1,7 +1,8 @@
 import type { ScopeScores } from '../state/scopeScores.ts';
 import { compareCountsSel, scopesASel, scopesBSel } from '../state/selectors.ts';
 import { count, pct } from './format.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
 function delta(a: number | null | undefined, b: number | null | undefined): string {
   if (a === null || a === undefined || b === null || b === undefined) return '';
@@ -49,7 +50,7 @@ function Side({ a, b, scope }: { a: ScopeScores | null; b: ScopeScores | null; s
 
 /** Runs A and B side by side: dataset and frame scores, and on this frame the pixels B fixed and broke. */
 export function CompareTab({ runA, runB }: { runA: string | null; runB: string | null }) {
-  const store = useAppStore();
+  const run = useCommand();
   const runs = useApp((s) => s.dataset?.pairing.runs);
   const A = useApp(scopesASel);
   const B = useApp(scopesBSel);
@@ -61,11 +62,7 @@ export function CompareTab({ runA, runB }: { runA: string | null; runB: string |
         <p className="dim">Choose a run to compare with run A in the bar at the top.</p>
         {other && (
           <button
-            onClick={() => {
-              const s = store.getState();
-              s.runsSet({ runB: other });
-              s.layersSet({ compare: { ...s.layers.compare, on: true } });
-            }}
+            onClick={() => run('run.b', other)}
           >
             compare {runA} with {other}
           </button>

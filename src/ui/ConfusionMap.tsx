@@ -3,7 +3,8 @@ import type { ClassInfo } from '../core/classTable.ts';
 import type { StoredFrame } from '../state/scoresSlice.ts';
 import { count } from './format.ts';
 import type { ScopeScores } from '../state/scopeScores.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
 /** Returns the frames with the most pixels of truth `g` predicted as column `p` (by id; -1 = invalid). */
 function framesWith(results: readonly (StoredFrame | undefined)[], run: string, gId: number, pId: number, names: string[]): { index: number; name: string; pixels: number }[] {
@@ -23,7 +24,7 @@ function framesWith(results: readonly (StoredFrame | undefined)[], run: string, 
 
 /** Confusion matrix as a row-normalised heat map; hover for counts, click a cell for the frames behind it. */
 export function ConfusionMap({ dataset, frame, classes, run }: { dataset: ScopeScores | null; frame: ScopeScores | null; classes: Map<number, ClassInfo>; run: string | null }) {
-  const store = useAppStore();
+  const command = useCommand();
   const [scope, setScope] = useState<'dataset' | 'frame'>('dataset');
   const [hover, setHover] = useState<string>('');
   const [picked, setPicked] = useState<{ g: number; p: number } | null>(null);
@@ -95,7 +96,7 @@ export function ConfusionMap({ dataset, frame, classes, run }: { dataset: ScopeS
           <ol>
             {list.map((f) => (
               <li key={f.index}>
-                <button className="link" onClick={() => store.getState().frameIndexSet(f.index)}>
+                <button className="link" onClick={() => command('frame.go', f.index)}>
                   {f.name}
                 </button>{' '}
                 <span className="dim">{count(f.pixels)} px</span>

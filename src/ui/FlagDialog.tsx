@@ -1,11 +1,12 @@
 import { useEffect, useRef, useState } from 'react';
-import { FLAG_REASONS } from '../core/review/flag.ts';
+import { FLAG_REASONS, isFlagBuiltinReason } from '../core/review/flag.ts';
+import { useCommand } from './commands/useCommand.tsx';
 import { VERDICT_NAMES } from './regionWords.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useApp } from './storeContext.tsx';
 
 /** The small form a new flag goes through: reason (built-in or a tag of the user's own) and a note. */
 export function FlagDialog() {
-  const store = useAppStore();
+  const run = useCommand();
   const draft = useApp((s) => s.flagDraft);
   const tags = useApp((s) => s.reviewFlags);
   const [reason, setReason] = useState<string>('label-mistake');
@@ -22,23 +23,22 @@ export function FlagDialog() {
     setTimeout(() => noteRef.current?.focus(), 0);
   }, [draft]);
   if (!draft) return null;
-  const userTags = [...new Set(tags.map((f) => f.reason).filter((r) => !(FLAG_REASONS as readonly string[]).includes(r)))];
+  const userTags = [...new Set(tags.map((f) => f.reason).filter((r) => !isFlagBuiltinReason(r)))];
   const save = () => {
     const chosen = reason === '__tag' ? tag.trim() : reason;
-    const r = store.getState().flagAdd({ ...draft, reason: chosen, note });
-    if (!r.ok) return setError(r.error);
-    store.getState().flagDraftSet(null);
+    const r = run('flag.save', { reason: chosen, note });
+    if (r && !r.ok) setError(r.error);
   };
   const what = draft.kind === 'frame' ? 'the whole frame' : draft.kind === 'rect' ? 'the box you drew' : 'this region';
   return (
-    <div className="help-backdrop" onClick={() => store.getState().flagDraftSet(null)}>
+    <div className="help-backdrop" onClick={() => run('flag.cancel')}>
       <div
         className="flag-dialog"
         role="dialog"
         aria-label="New flag"
         onClick={(e) => e.stopPropagation()}
         onKeyDown={(e) => {
-          if (e.key === 'Escape') store.getState().flagDraftSet(null);
+          if (e.key === 'Escape') run('flag.cancel');
           if (e.key === 'Enter' && (e.ctrlKey || e.metaKey)) save();
           e.stopPropagation();
         }}
@@ -66,7 +66,7 @@ export function FlagDialog() {
         <textarea ref={noteRef} value={note} placeholder="note for the annotators (optional)" rows={3} onChange={(e) => setNote(e.currentTarget.value)} />
         {error && <p className="bad small">{error}</p>}
         <div className="dialog-buttons">
-          <button onClick={() => store.getState().flagDraftSet(null)}>cancel</button>
+          <button onClick={() => run('flag.cancel')}>cancel</button>
           <button className="primary" onClick={save}>
             save flag (Ctrl+Enter)
           </button>

@@ -3,7 +3,8 @@ import { rowValue, type FrameRow } from '../state/frameRows.ts';
 import { frameOrderSel, frameRowsSel } from '../state/selectors.ts';
 import type { FrameScoreKey } from '../state/viewSlice.ts';
 import { countShort, pct } from './format.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
 const ROW_H = 24;
 
@@ -23,7 +24,7 @@ function cell(row: FrameRow, key: FrameScoreKey): string {
 
 /** The frame list: every frame with its scores for run A, sortable, virtualised for long datasets. */
 export function FrameList() {
-  const store = useAppStore();
+  const run = useCommand();
   const bandWidth = useApp((s) => s.bandWidth);
   const sortKey = useApp((s) => s.frameScore);
   const worstFirst = useApp((s) => s.sortWorstFirst);
@@ -56,21 +57,13 @@ export function FrameList() {
   const first = Math.max(0, Math.floor(scrollTop / ROW_H) - 5);
   const last = Math.min(order.length, Math.ceil((scrollTop + height) / ROW_H) + 5);
 
-  const sortBy = (key: FrameScoreKey) => {
-    const s = store.getState();
-    if (s.frameScore === key) s.sortWorstFirstSet(!s.sortWorstFirst);
-    else {
-      s.frameScoreSet(key);
-      s.sortWorstFirstSet(true);
-    }
-  };
 
   return (
     <div className="frame-list">
       <div className="fl-head">
         <span className="fl-name">frame</span>
         {COLUMNS.map((c) => (
-          <button key={c.key} className={c.key === sortKey ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => sortBy(c.key)}>
+          <button key={c.key} className={c.key === sortKey ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => run('frames.sortBy', c.key)}>
             {c.key === 'bandIoU' ? `${c.label} ${bandWidth}` : c.label}
             {c.key === sortKey ? (worstFirst ? ' ▲' : ' ▼') : ''}
           </button>
@@ -87,7 +80,7 @@ export function FrameList() {
                 style={{ top: (first + i) * ROW_H, height: ROW_H }}
                 title={row.error ?? row.name}
                 data-frame={row.name}
-                onClick={() => store.getState().frameIndexSet(index)}
+                onClick={() => run('frame.go', index)}
               >
                 <span className="fl-name">{row.name}</span>
                 {row.error ? (

@@ -1,14 +1,18 @@
-import { APP_COMMANDS } from './commands/appCommands.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { APP_COMMAND_LIST } from './commands/appCommands.ts';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
+
+/** The commands that have keys, in registry order. */
+const KEYED = APP_COMMAND_LIST.filter((c) => c.keys.length > 0);
 
 /** Lists every command with its keys, grouped, straight from the command registry. */
 export function HelpOverlay() {
   const open = useApp((s) => s.helpOpen);
-  const store = useAppStore();
+  const run = useCommand();
   if (!open) return null;
-  const groups = [...new Set(APP_COMMANDS.map((c) => c.group))];
+  const groups = [...new Set(KEYED.map((c) => c.group))];
   return (
-    <div className="help-backdrop" onClick={() => store.getState().helpOpenSet(false)}>
+    <div className="help-backdrop" onClick={() => run('help')}>
       <div className="help" role="dialog" aria-label="Keyboard commands" onClick={(e) => e.stopPropagation()}>
         <h2>Keys</h2>
         <div className="help-groups">
@@ -17,10 +21,10 @@ export function HelpOverlay() {
               <h3>{g}</h3>
               <table>
                 <tbody>
-                  {APP_COMMANDS.filter((c) => c.group === g).map((c) => (
+                  {KEYED.filter((c) => c.group === g).map((c) => (
                     <tr key={c.id}>
                       <td className="help-keys">
-                        {c.keys.map((k) => (
+                        {(c.keys as string[]).map((k) => (
                           <kbd key={k}>{k.replace('Arrow', '').replace('Space', 'space')}</kbd>
                         ))}
                       </td>

@@ -1,9 +1,11 @@
 import type { DisagreeMode, LayerKey } from '../core/composite/layerSettings.ts';
 import { scoringTableSel } from '../state/selectors.ts';
-import { APP_COMMANDS } from './commands/appCommands.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { commandKeys } from './commands/appCommands.ts';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
-const SHOWN: LayerKey[] = ['photo', 'truth', 'pred', 'disagree', 'void', 'band', 'compare'];
+type ShownLayer = Exclude<LayerKey, 'highlight'>;
+const SHOWN: ShownLayer[] = ['photo', 'truth', 'pred', 'disagree', 'void', 'band', 'compare'];
 const NAMES: Record<LayerKey, string> = {
   photo: 'photo',
   truth: 'ground truth',
@@ -15,12 +17,12 @@ const NAMES: Record<LayerKey, string> = {
   highlight: 'outline',
 };
 
-function LayerChip({ k }: { k: LayerKey }) {
-  const store = useAppStore();
+function LayerChip({ k }: { k: ShownLayer }) {
+  const run = useCommand();
   const layer = useApp((s) => s.layers[k]);
   const disabled = useApp((s) => k === 'compare' && s.runB === null);
-  const key = APP_COMMANDS.find((c) => c.id === `layer.${k}`)?.keys[0];
-  const set = (patch: object) => store.getState().layersSet({ [k]: { ...store.getState().layers[k], ...patch } });
+  const key = commandKeys(`layer.${k}`)[0];
+  const set = (patch: { on?: boolean; opacity?: number }) => run('layer.set', { layer: k, ...patch });
   return (
     <div className={`chip${layer.on ? ' on' : ''}${disabled ? ' disabled' : ''}`} data-layer={k}>
       <label title={disabled ? 'choose a run to compare with first' : `toggle (${key})`}>
@@ -43,11 +45,10 @@ function LayerChip({ k }: { k: LayerKey }) {
 
 /** The layer switches above the viewer, with per-layer opacity and the cross-layer modes. */
 export function LayerBar() {
-  const store = useAppStore();
+  const run = useCommand();
   const layers = useApp((s) => s.layers);
   const classes = useApp(scoringTableSel)?.classes ?? [];
   const width = useApp((s) => s.shown?.width ?? 0);
-  const set = store.getState().layersSet;
   return (
     <div className="layer-bar">
       {SHOWN.map((k) => (
@@ -55,7 +56,7 @@ export function LayerBar() {
       ))}
       <label className="mini">
         colour by
-        <select value={layers.disagree.mode} onChange={(e) => set({ disagree: { ...layers.disagree, mode: e.currentTarget.value as DisagreeMode } })}>
+        <select value={layers.disagree.mode} onChange={(e) => run('layer.colourBy', e.currentTarget.value as DisagreeMode)}>
           <option value="kind">kind of error</option>
           <option value="truth">true class</option>
           <option value="pred">predicted class</option>
@@ -65,10 +66,7 @@ export function LayerBar() {
         only
         <select
           value={layers.solo.on ? String(layers.solo.classId) : ''}
-          onChange={(e) => {
-            const v = e.currentTarget.value;
-            set({ solo: { ...layers.solo, on: v !== '', classId: v === '' ? layers.solo.classId : Number(v) } });
-          }}
+          onChange={(e) => run('layer.only', e.currentTarget.value === '' ? null : Number(e.currentTarget.value))}
         >
           <option value="">all classes</option>
           {classes.map((c) => (
@@ -82,14 +80,7 @@ export function LayerBar() {
         <input
           type="checkbox"
           checked={layers.curtain.on}
-          onChange={(e) => {
-            const on = e.currentTarget.checked;
-            set({
-              curtain: { on, x: layers.curtain.x || Math.round(width / 2) },
-              truth: { ...layers.truth, on: on || layers.truth.on },
-              pred: { ...layers.pred, on: on || layers.pred.on },
-            });
-          }}
+          onChange={(e) => run('curtain.set', { on: e.currentTarget.checked })}
         />
         curtain
         {layers.curtain.on && (
@@ -99,7 +90,7 @@ export function LayerBar() {
             max={width}
             value={layers.curtain.x}
             aria-label="curtain position"
-            onChange={(e) => set({ curtain: { ...layers.curtain, x: Number(e.currentTarget.value) } })}
+            onChange={(e) => run('curtain.set', { x: Number(e.currentTarget.value) })}
           />
         )}
       </label>

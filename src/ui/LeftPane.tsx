@@ -1,7 +1,8 @@
 import { FlagsPanel } from './FlagsPanel.tsx';
 import { FrameList } from './FrameList.tsx';
 import { QueuePanel } from './QueuePanel.tsx';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
 const TABS = [
   ['frames', 'Frames'],
@@ -11,13 +12,13 @@ const TABS = [
 
 /** The left pane: the frame list, or the dataset-wide queue of likely label mistakes. */
 export function LeftPane() {
-  const store = useAppStore();
+  const run = useCommand();
   const tab = useApp((s) => s.leftTab);
   return (
     <div className="left-pane">
       <div className="tabs" role="tablist">
         {TABS.map(([id, label]) => (
-          <button key={id} role="tab" aria-selected={tab === id} className={tab === id ? 'tab on' : 'tab'} onClick={() => store.getState().leftTabSet(id)}>
+          <button key={id} role="tab" aria-selected={tab === id} className={tab === id ? 'tab on' : 'tab'} onClick={() => run('pane.left', id)}>
             {label}
           </button>
         ))}

@@ -1,27 +1,29 @@
 import { useMemo, useState } from 'react';
 import { REGION_KINDS } from '../core/regions/regionTypes.ts';
-import { suspectKey, type SuspectVerdictKind } from '../core/review/verdict.ts';
-import type { Suspect } from '../core/suspects/suspectQueue.ts';
+import { REVIEW_JUDGEMENTS, suspectRefOf } from '../core/review/judgement.ts';
+import { suspectKey } from '../core/review/verdict.ts';
 import { classNameSel } from '../state/selectors.ts';
 import { suspectsRankedSel } from '../state/suspectsRanked.ts';
 import { KIND_NAMES, VERDICT_NAMES } from './regionWords.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { commandKeys } from './commands/appCommands.ts';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 import { Thumb } from './Thumb.tsx';
 
-/** Returns the verdict identity of a queue item (the same item keeps its key when the queue is rebuilt). */
-function suspectRefOf(s: Suspect) {
-  return { frame: s.frame, run: s.run, bbox: s.bbox, truthClass: s.truthClass, predictedClass: s.predictedClass };
-}
+/** Key hints read from the registry: "Q / Shift+Q step through; L, E, U judge." */
+const STEP_KEYS = `${commandKeys('queue.next')[0]} / ${commandKeys('queue.prev')[0]}`;
+const JUDGE_KEYS = REVIEW_JUDGEMENTS.map((v) => commandKeys(`verdict.${v}`)[0]).join(', ');
+const FLAG_KEY = commandKeys('flag.selected')[0];
 
 /** The dataset-wide "likely label mistakes" queue: filter, thumbnails, reasons, verdicts; click to inspect. */
 export function QueuePanel() {
-  const store = useAppStore();
+  const run = useCommand();
   const dataset = useApp((s) => s.dataset);
   const verdicts = useApp((s) => s.reviewVerdicts);
   const selected = useApp((s) => s.queueSelected);
   const [kind, setKind] = useState('');
   const [pair, setPair] = useState('');
-  const [run, setRun] = useState('');
+  const [runFilter, setRunFilter] = useState('');
   const [hideJudged, setHideJudged] = useState(false);
   const queue = useApp(suspectsRankedSel);
   const name = useApp(classNameSel);
@@ -30,15 +32,10 @@ export function QueuePanel() {
     (q) =>
       (!kind || q.kind === kind) &&
       (!pair || `${q.truthClass}>${q.predictedClass}` === pair) &&
-      (!run || q.run === run || q.alsoRuns.includes(run)) &&
+      (!runFilter || q.run === runFilter || q.alsoRuns.includes(runFilter)) &&
       (!hideJudged || !verdicts[suspectKey(suspectRefOf(q))]),
   );
   const frames = dataset?.pairing.frames ?? [];
-  const setVerdict = (q: Suspect, v: SuspectVerdictKind) => {
-    const key = suspectKey(suspectRefOf(q));
-    const cur = store.getState().reviewVerdicts[key]?.verdict;
-    store.getState().verdictSet(suspectRefOf(q), cur === v ? null : v);
-  };
   if (!dataset) return null;
   return (
     <div className="queue">
@@ -62,7 +59,7 @@ export function QueuePanel() {
             );
           })}
         </select>
-        <select value={run} onChange={(e) => setRun(e.currentTarget.value)} aria-label="filter by run">
+        <select value={runFilter} onChange={(e) => setRunFilter(e.currentTarget.value)} aria-label="filter by run">
           <option value="">every run</option>
           {dataset.pairing.runs.map((r) => (
             <option key={r} value={r}>
@@ -75,7 +72,7 @@ export function QueuePanel() {
         </label>
       </div>
       <p className="dim small">
-        {shown.length} of {queue.length} likely label mistakes, most likely first. Q / Shift+Q step through; L, E, U judge.
+        {shown.length} of {queue.length} likely label mistakes, most likely first. {STEP_KEYS} step through; {JUDGE_KEYS} judge.
       </p>
       <ol className="queue-list">
         {shown.slice(0, 200).map((q) => {
@@ -86,7 +83,7 @@ export function QueuePanel() {
               key={key}
               className={`queue-item${selected === key ? ' selected' : ''}`}
               data-frame={q.frame}
-              onClick={() => store.getState().queueSelect(key, q.frameIndex, q.bbox)}
+              onClick={() => run('queue.select', q)}
             >
               <Thumb source={dataset.source} image={frames[q.frameIndex]?.image ?? null} bbox={q.bbox} />
               <div className="qi-body">
@@ -107,19 +104,14 @@ export function QueuePanel() {
                   {q.contributionsText}
                 </div>
                 <div className="qi-verdicts" onClick={(e) => e.stopPropagation()}>
-                  {(['label-mistake', 'model-error', 'unsure'] as const).map((v) => (
-                    <button key={v} className={verdict === v ? `on v-${v}` : ''} onClick={() => setVerdict(q, v)}>
+                  {REVIEW_JUDGEMENTS.map((v) => (
+                    <button key={v} className={verdict === v ? `on v-${v}` : ''} title={`${VERDICT_NAMES[v]} (${commandKeys(`verdict.${v}`)[0]} on the selected item)`} onClick={() => run('verdict.toggle', { item: q, verdict: v })}>
                       {VERDICT_NAMES[v]}
                     </button>
                   ))}
                   <button
-                    title="Flag this region for relabelling (Shift+M)"
-                    onClick={() =>
-                      store.getState().flagDraftSet({
-                        frame: q.frame, kind: 'region', bbox: q.bbox, reason: verdict ?? 'label-mistake', run: q.run,
-                        region: { kind: q.kind, truthClass: q.truthClass, predictedClass: q.predictedClass, score: q.score, reasons: q.reasons },
-                      })
-                    }
+                    title={`Flag this region for relabelling (${FLAG_KEY})`}
+                    onClick={() => run('flag.item', q)}
                   >
                     flag…
                   </button>

@@ -2,11 +2,12 @@ import { REGION_KINDS } from '../core/regions/regionTypes.ts';
 import { classNameSel, shownRunSel } from '../state/selectors.ts';
 import { count } from './format.ts';
 import { KIND_NAMES } from './regionWords.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
 /** The current frame's error regions for run A: counts by kind, then the listed regions, worst first. */
 export function RegionsTab() {
-  const store = useAppStore();
+  const command = useCommand();
   const run = useApp(shownRunSel);
   const frameIndex = useApp((s) => s.frameIndex);
   const result = useApp((s) => s.results[s.frameIndex]);
@@ -57,7 +58,7 @@ export function RegionsTab() {
           const on = focus && focus.every((v, i) => v === r.bbox[i]);
           return (
             <li key={r.id} className={on ? 'selected' : ''}>
-              <button className="link" onClick={() => store.getState().focusOn(frameIndex, r.bbox)}>
+              <button className="link" onClick={() => command('region.focus', { frameIndex, bbox: r.bbox })}>
                 {KIND_NAMES[r.kind]}
               </button>{' '}
               {name(r.truthClass)} → {name(r.predictedClass)} <span className="dim">

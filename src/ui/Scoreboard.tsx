@@ -9,6 +9,8 @@ import { SettingsTab } from './SettingsTab.tsx';
 import { pct } from './format.ts';
 import type { ScopeScores } from '../state/scopeScores.ts';
 import { classInfoSel, scopesASel, scopesBSel, shownRunSel } from '../state/selectors.ts';
+import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
+import { useCommand } from './commands/useCommand.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
 
 const TABS = ['scores', 'regions', 'confusion', 'band', 'compare', 'settings'] as const;
@@ -94,6 +96,7 @@ function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: 
 /** The scoreboard: dataset and current frame side by side, for run A (and run B on the band curve). */
 export function Scoreboard() {
   const store = useAppStore();
+  const command = useCommand();
   const [tab, setTab] = useState<Tab>('scores');
   const run = useApp(shownRunSel);
   const runB = useApp((s) => s.runB);
@@ -116,10 +119,10 @@ export function Scoreboard() {
           <input
             type="range"
             min={0}
-            max={64}
+            max={BAND_WIDTH_MAX}
             value={w}
             aria-label="band width"
-            onChange={(e) => store.getState().bandWidthSet(Number(e.currentTarget.value))}
+            onChange={(e) => command('band.width', Number(e.currentTarget.value))}
           />
         </label>
         <button

@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import { classTableFromText } from '../core/classTable.ts';
-import { scoringTableBuild } from '../core/scoringTable.ts';
 import { boundaryFTolerance, boundaryIoUDilation } from '../core/metrics/settings.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
 function NumberField({ label, value, step, min, max, onCommit, note }: { label: string; value: number; step: number; min: number; max: number; onCommit: (v: number) => string | null; note: string }) {
   const [text, setText] = useState(String(value));
@@ -23,13 +23,12 @@ function NumberField({ label, value, step, min, max, onCommit, note }: { label: 
 
 /** Score settings (src/docs/metrics.md) and the class table; any change rescores every frame in the workers. */
 export function SettingsTab() {
-  const store = useAppStore();
+  const run = useCommand();
   const settings = useApp((s) => s.settings);
   const dataset = useApp((s) => s.dataset);
   const w = useApp((s) => s.shown?.width ?? 0);
   const h = useApp((s) => s.shown?.height ?? 0);
   const [tableMsg, setTableMsg] = useState<string | null>(null);
-  const set = store.getState().settingsSet;
   const size = w && h ? ` — ${boundaryIoUDilation(w, h, settings.biouDilationRatio)} px on this ${w}×${h} frame` : '';
   const tol = w && h ? ` — ${boundaryFTolerance(w, h, settings.bfTolerance).toFixed(2)} px on this frame` : '';
   return (
@@ -41,16 +40,10 @@ export function SettingsTab() {
         min={0}
         max={65535}
         note="ground-truth pixels with this id are left out of every score"
-        onCommit={(v) => {
-          if (!Number.isInteger(v)) return 'the void id is a whole number';
-          const table = scoringTableBuild(dataset?.table ?? null, v);
-          if (!table.ok) return table.error;
-          set({ ignore: v });
-          return null;
-        }}
+        onCommit={(v) => run('settings.set', { ignore: v }) ?? null}
       />
-      <NumberField label="Boundary IoU dilation ratio" value={settings.biouDilationRatio} step={0.005} min={0.0001} max={1} note={`of the image diagonal (0.02 is the published default)${size}`} onCommit={(v) => (set({ biouDilationRatio: v }), null)} />
-      <NumberField label="Boundary F tolerance" value={settings.bfTolerance} step={0.0025} min={0.0001} max={1} note={`of the image diagonal (0.0075 is the usual default)${tol}`} onCommit={(v) => (set({ bfTolerance: v }), null)} />
+      <NumberField label="Boundary IoU dilation ratio" value={settings.biouDilationRatio} step={0.005} min={0.0001} max={1} note={`of the image diagonal (0.02 is the published default)${size}`} onCommit={(v) => run('settings.set', { biouDilationRatio: v }) ?? null} />
+      <NumberField label="Boundary F tolerance" value={settings.bfTolerance} step={0.0025} min={0.0001} max={1} note={`of the image diagonal (0.0075 is the usual default)${tol}`} onCommit={(v) => run('settings.set', { bfTolerance: v }) ?? null} />
       <label className="setting">
         <span>class table</span>
         <input
@@ -58,13 +51,11 @@ export function SettingsTab() {
           accept=".json,application/json"
           onChange={async (e) => {
             const file = e.currentTarget.files?.[0];
-            const s = store.getState();
-            if (!file || !s.dataset) return;
+            if (!file) return;
             const r = classTableFromText(await file.text(), file.name);
             if (!r.ok) return setTableMsg(r.error);
             setTableMsg(`using ${file.name}: ${r.value.classes.length} classes`);
-            s.settingsSet({ ignore: r.value.ignore });
-            s.datasetSet({ ...s.dataset, table: r.value, tableError: null });
+            run('classes.use', r.value);
           }}
         />
         <span className={tableMsg && !tableMsg.startsWith('using') ? 'bad small' : 'dim small'}>

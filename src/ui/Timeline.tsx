@@ -2,7 +2,9 @@ import { useEffect, useMemo, useRef } from 'react';
 import { rowValue } from '../state/frameRows.ts';
 import { frameRowsSel } from '../state/selectors.ts';
 import { scoreColor } from './format.ts';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { commandKeys } from './commands/appCommands.ts';
+import { useCommand } from './commands/useCommand.tsx';
+import { useApp } from './storeContext.tsx';
 
 /**
  * Returns a colour per frame: its chosen score placed between the dataset's worst and best scored
@@ -23,7 +25,7 @@ function stripColors(values: (number | null)[], failed: boolean[], higherIsBette
 
 /** A strip of every frame coloured by the chosen score; click or drag to jump, with play controls. */
 export function Timeline() {
-  const store = useAppStore();
+  const run = useCommand();
   const key = useApp((s) => s.frameScore);
   const current = useApp((s) => s.frameIndex);
   const playing = useApp((s) => s.playing);
@@ -64,27 +66,22 @@ export function Timeline() {
 
   useEffect(() => {
     if (!playing) return;
-    const timer = setInterval(() => {
-      const s = store.getState();
-      const n = s.dataset?.pairing.frames.length ?? 0;
-      if (s.frameIndex >= n - 1) s.playingSet(false);
-      else s.frameIndexSet(s.frameIndex + 1);
-    }, 1000 / rate);
+    const timer = setInterval(() => run('play.step'), 1000 / rate);
     return () => clearInterval(timer);
-  }, [playing, rate, store]);
+  }, [playing, rate, run]);
 
   const jump = (e: React.PointerEvent<HTMLCanvasElement>) => {
     if (count === 0) return;
     const rect = e.currentTarget.getBoundingClientRect();
-    store.getState().frameIndexSet(Math.floor(((e.clientX - rect.left) / rect.width) * count));
+    run('frame.go', Math.floor(((e.clientX - rect.left) / rect.width) * count));
   };
 
   return (
     <div className="timeline">
-      <button className="tl-play" onClick={() => store.getState().playingSet(!playing)} title="Play / pause (Space)" aria-label={playing ? 'pause' : 'play'}>
+      <button className="tl-play" onClick={() => run('play.toggle')} title={`Play / pause (${commandKeys('play.toggle')[0].toLowerCase()})`} aria-label={playing ? 'pause' : 'play'}>
         {playing ? '❚❚' : '▶'}
       </button>
-      <select className="tl-rate" value={rate} onChange={(e) => store.getState().playRateSet(Number(e.currentTarget.value))} title="Frames per second">
+      <select className="tl-rate" value={rate} onChange={(e) => run('play.rate', Number(e.currentTarget.value))} title="Frames per second">
         {[1, 2, 4, 8, 15, 30].map((r) => (
           <option key={r} value={r}>
             {r} fps

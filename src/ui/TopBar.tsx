@@ -1,7 +1,7 @@
-import { useAppStore, useApp, useAppShallow } from './storeContext.tsx';
+import { commandKeys } from './commands/appCommands.ts';
+import { useCommand } from './commands/useCommand.tsx';
 import { OpenFolderButton } from './OpenFolder.tsx';
-import { demoSourceOpen } from '../data/sources/demoSource.ts';
-import { datasetFromSource, datasetInstall } from '../state/datasetLoad.ts';
+import { useApp, useAppShallow } from './storeContext.tsx';
 
 const NO_RUNS: string[] = [];
 
@@ -28,7 +28,7 @@ function ScoringProgress() {
 }
 
 function RunPicker({ which }: { which: 'runA' | 'runB' }) {
-  const store = useAppStore();
+  const run = useCommand();
   const runs = useApp((s) => s.dataset?.pairing.runs ?? NO_RUNS);
   const value = useApp((s) => s[which]);
   if (runs.length === 0) return null;
@@ -37,12 +37,7 @@ function RunPicker({ which }: { which: 'runA' | 'runB' }) {
       {which === 'runA' ? 'run A' : 'compare with'}
       <select
         value={value ?? ''}
-        onChange={(e) => {
-          const v = e.currentTarget.value || null;
-          const s = store.getState();
-          s.runsSet({ [which]: v });
-          if (which === 'runB') s.layersSet({ compare: { ...s.layers.compare, on: v !== null } });
-        }}
+        onChange={(e) => run(which === 'runA' ? 'run.a' : 'run.b', e.currentTarget.value || null)}
       >
         {which === 'runB' && <option value="">(none)</option>}
         {runs.map((r) => (
@@ -57,11 +52,11 @@ function RunPicker({ which }: { which: 'runA' | 'runB' }) {
 
 /** Goes back to the built-in demo from a folder the user opened. */
 function DemoButton() {
-  const store = useAppStore();
+  const run = useCommand();
   const isDemo = useApp((s) => s.dataset?.source.kind === 'demo');
   if (isDemo) return null;
   return (
-    <button title="Open the built-in Kestrel Quay demo" onClick={() => datasetInstall(store, datasetFromSource(demoSourceOpen()))}>
+    <button title="Open the built-in Kestrel Quay demo" onClick={() => run('dataset.openDemo')}>
       Demo
     </button>
   );
@@ -69,7 +64,7 @@ function DemoButton() {
 
 /** The bar across the top: dataset, runs, scoring progress, open and help. */
 export function TopBar() {
-  const store = useAppStore();
+  const run = useCommand();
   const title = useApp((s) => s.dataset?.title ?? 'no dataset');
   const tableError = useApp((s) => s.dataset?.tableError ?? null);
   return (
@@ -85,7 +80,7 @@ export function TopBar() {
       <ScoringProgress />
       <DemoButton />
       <OpenFolderButton />
-      <button onClick={() => store.getState().helpOpenSet(true)} title="Keys (?)">
+      <button onClick={() => run('help')} title={`Keys (${commandKeys('help')[0]})`}>
         ?
       </button>
     </header>

@@ -7,13 +7,12 @@ import { FlagDialog } from './FlagDialog.tsx';
 import { HelpOverlay } from './HelpOverlay.tsx';
 import { LayerBar } from './LayerBar.tsx';
 import { OpenedNotice } from './OpenedPanel.tsx';
-import { filesOpen } from './OpenFolder.tsx';
 import { droppedFiles } from './pickedFiles.ts';
 import { Scoreboard } from './Scoreboard.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
 import { Timeline } from './Timeline.tsx';
 import { TopBar } from './TopBar.tsx';
-import { useCommandKeys } from './useCommandKeys.ts';
+import { CommandProvider, useCommand, useCommandKeys } from './commands/useCommand.tsx';
 import { ViewerPane } from './ViewerPane.tsx';
 
 function EmptyState() {
@@ -36,9 +35,6 @@ function EmptyState() {
 export function Workspace({ viewPool }: { viewPool: ViewPool }) {
   const store = useAppStore();
   const viewer = useRef<Viewer | null>(null);
-  const hasDataset = useApp((s) => s.dataset !== null);
-  const datasetError = useApp((s) => s.datasetError);
-  const [dropping, setDropping] = useState(false);
   const onViewer = useCallback((v: Viewer | null) => (viewer.current = v), []);
   const context = useCallback(
     (): CommandContext => ({
@@ -51,8 +47,19 @@ export function Workspace({ viewPool }: { viewPool: ViewPool }) {
     }),
     [store],
   );
-  useCommandKeys(context);
+  return (
+    <CommandProvider context={context}>
+      <Panes viewPool={viewPool} onViewer={onViewer} />
+    </CommandProvider>
+  );
+}
 
+function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewer | null) => void }) {
+  const run = useCommand();
+  const hasDataset = useApp((s) => s.dataset !== null);
+  const datasetError = useApp((s) => s.datasetError);
+  const [dropping, setDropping] = useState(false);
+  useCommandKeys();
   return (
     <div
       className={dropping ? 'workspace dropping' : 'workspace'}
@@ -65,14 +72,15 @@ export function Workspace({ viewPool }: { viewPool: ViewPool }) {
       onDrop={async (e) => {
         e.preventDefault();
         setDropping(false);
-        await filesOpen(store, await droppedFiles(e.dataTransfer));
+        const items = e.dataTransfer;
+        await run('dataset.openFiles', () => droppedFiles(items));
       }}
     >
       <TopBar />
       {datasetError && (
         <div className="banner bad" role="alert">
           {datasetError}
-          <button onClick={() => store.getState().datasetErrorSet(null)}>dismiss</button>
+          <button onClick={() => run('dataset.dismissError')}>dismiss</button>
         </div>
       )}
       <OpenedNotice />

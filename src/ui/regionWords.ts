@@ -1,5 +1,5 @@
 import type { RegionKind } from '../core/regions/regionTypes.ts';
-import type { SuspectVerdictKind } from '../core/review/verdict.ts';
+import type { ReviewJudgement } from '../core/review/judgement.ts';
 
 /** Plain names of region kinds on screen. */
 export const KIND_NAMES: Record<RegionKind, string> = {
@@ -9,8 +9,8 @@ export const KIND_NAMES: Record<RegionKind, string> = {
   classConfusion: 'class confusion',
 };
 
-/** Plain names of reviewer verdicts on screen. */
-export const VERDICT_NAMES: Record<SuspectVerdictKind, string> = {
+/** Plain names of the review judgements (verdicts and built-in flag reasons) on screen. */
+export const VERDICT_NAMES: Record<ReviewJudgement, string> = {
   'label-mistake': 'label mistake',
   'model-error': 'model error',
   unsure: 'unsure',

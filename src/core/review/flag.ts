@@ -3,13 +3,15 @@
  * with why it was flagged. Plain data, so it persists, exports and crosses to a worker unchanged.
  */
 
+import { isReviewJudgement, REVIEW_JUDGEMENTS, type ReviewJudgement } from './judgement.ts';
+
 /** What a flag marks. */
 export const FLAG_KINDS = ['frame', 'region', 'rect'] as const;
 export type FlagKind = (typeof FLAG_KINDS)[number];
 
-/** The reasons every dataset offers; any other non-empty tag string is a user-defined reason. */
-export const FLAG_REASONS = ['label-mistake', 'model-error', 'unsure'] as const;
-export type FlagBuiltinReason = (typeof FLAG_REASONS)[number];
+/** The reasons every dataset offers (the review judgements); any other non-empty tag string is a user-defined reason. */
+export const FLAG_REASONS = REVIEW_JUDGEMENTS;
+export type FlagBuiltinReason = ReviewJudgement;
 /** A built-in reason or a user-defined tag (1..64 characters, no control characters). */
 export type FlagReason = FlagBuiltinReason | (string & {});
 
@@ -67,7 +69,7 @@ export interface Flag {
 
 /** Returns whether `r` is one of the built-in reasons. */
 export function isFlagBuiltinReason(r: string): r is FlagBuiltinReason {
-  return (FLAG_REASONS as readonly string[]).includes(r);
+  return isReviewJudgement(r);
 }
 
 /** Returns the box's width and height in pixels. */

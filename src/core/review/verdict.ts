@@ -1,10 +1,11 @@
 import { fail, ok, type Result } from '../result.ts';
 import type { FlagBox } from './flag.ts';
 import { flagBoxCheck, reviewTimeCheck } from './flagCheck.ts';
+import { isReviewJudgement, REVIEW_JUDGEMENTS, type ReviewJudgement } from './judgement.ts';
 
-/** What a reviewer decided about an item of the suspect queue. */
-export const SUSPECT_VERDICTS = ['label-mistake', 'model-error', 'unsure'] as const;
-export type SuspectVerdictKind = (typeof SUSPECT_VERDICTS)[number];
+/** What a reviewer decided about an item of the suspect queue: one of the review judgements. */
+export const SUSPECT_VERDICTS = REVIEW_JUDGEMENTS;
+export type SuspectVerdictKind = ReviewJudgement;
 
 /** The identity of a suspect-queue item: where it is, for which run, and which class pair it confuses. */
 export interface SuspectRef {
@@ -47,7 +48,7 @@ export function verdictFromJson(v: unknown, where: string, now?: number): Result
   if (!box.ok) return bad(`"bbox" ${box.error}`);
   const truthClass = o.truthClass ?? null, predictedClass = o.predictedClass ?? null;
   if (!classIdOrNull(truthClass) || !classIdOrNull(predictedClass)) return bad('"truthClass" and "predictedClass" must be class ids 0..65535 or null');
-  if (!(SUSPECT_VERDICTS as readonly unknown[]).includes(o.verdict)) return bad(`"verdict" must be one of ${SUSPECT_VERDICTS.join(', ')}, got ${JSON.stringify(o.verdict)}`);
+  if (!isReviewJudgement(o.verdict)) return bad(`"verdict" must be one of ${SUSPECT_VERDICTS.join(', ')}, got ${JSON.stringify(o.verdict)}`);
   const time = reviewTimeCheck(o.updatedAt, 'updatedAt', now);
   if (time) return bad(time);
   const ref: SuspectRef = { frame: o.frame, run: run as string | null, bbox: box.value, truthClass, predictedClass };

@@ -13,18 +13,50 @@ export interface CommandContext {
   viewer: ViewerControls | null;
 }
 
-/** One user command: defined once, read by buttons, the keyboard and the help overlay. */
-export interface Command {
+/**
+ * One user command, defined once: its words, its keys, when it can run, and what it does with its
+ * payload (a width, a verdict, a flag draft…), clamping and rules included. Buttons, sliders,
+ * checkboxes, keys and the help overlay all go through it. Only a command without a payload
+ * (`P = void`) has keys: a key press carries nothing else.
+ */
+export interface Command<P = void, R = void> {
   id: string;
   /** Short label for buttons and the help overlay. */
   label: string;
   /** Group heading in the help overlay. */
   group: string;
   /** Keys in `KeyboardEvent.key` terms, with optional `Shift+` / `Ctrl+` prefixes. */
-  keys: string[];
+  keys: [P] extends [void] ? string[] : [];
   /** Whether the command can run now. */
   enabled(ctx: CommandContext): boolean;
-  run(ctx: CommandContext): void;
+  /** Does the command; what it returns (a problem to show, say) goes back to the caller. */
+  run(ctx: CommandContext, payload: P): R;
+}
+
+/** A command of any payload, as lists of them hold it. */
+export type AnyCommand = Command<any, any>;
+
+/** Returns the payload type of a command. */
+export type PayloadOf<C> = C extends Command<infer P, infer _R> ? P : never;
+/** Returns what a command's run returns. */
+export type ReturnOf<C> = C extends Command<infer _P, infer R> ? R : never;
+
+/** Runs `cmd` with `payload` when it is enabled; returns what it returned, or undefined when it could not run. */
+export function commandRun<P, R>(ctx: CommandContext, cmd: Command<P, R>, payload: P): R | undefined {
+  if (!cmd.enabled(ctx)) return undefined;
+  return cmd.run(ctx, payload);
+}
+
+/** Returns the command written without its id, type-checked with its payload `P` and result `R`. */
+export function cmd<P = void, R = void>(c: Omit<Command<NoInfer<P>, R>, 'id'>): Omit<Command<P, R>, 'id'> {
+  return c;
+}
+
+/** Returns `table` with each command's id set to its key (so a table is written without repeating ids). */
+export function commandTable<T extends Record<string, { label: string; group: string; keys: readonly string[]; enabled(ctx: CommandContext): boolean }>>(table: T): { [K in keyof T]: T[K] & { id: K & string } } {
+  const out: Record<string, unknown> = {};
+  for (const [id, c] of Object.entries(table)) out[id] = { ...c, id };
+  return out as { [K in keyof T]: T[K] & { id: K & string } };
 }
 
 /** Returns the key chord of a keyboard event in the notation of `Command.keys` (e.g. `Shift+J`). */
@@ -39,11 +71,15 @@ export function keyChord(e: Pick<KeyboardEvent, 'key' | 'shiftKey' | 'ctrlKey' |
 }
 
 /** Returns the command bound to `chord`, if any. */
-export function commandForChord(commands: readonly Command[], chord: string): Command | undefined {
-  return commands.find((c) => c.keys.includes(chord));
+export function commandForChord(commands: readonly AnyCommand[], chord: string): Command | undefined {
+  return commands.find((c) => (c.keys as string[]).includes(chord)) as Command | undefined;
 }
 
-/** Returns true when keyboard focus is in a field that takes typed text (commands then stay out of the way). */
+/**
+ * Returns true when keyboard focus is in a field that takes typed text, where keys must type rather
+ * than run commands. A drop-down, checkbox, slider or button does not: once used, it keeps focus, and
+ * the keys must still work.
+ */
 export function isTypingTarget(target: EventTarget | null): boolean {
   if (!target || typeof (target as HTMLElement).tagName !== 'string') return false;
   const el = target as HTMLElement;
@@ -51,7 +87,7 @@ export function isTypingTarget(target: EventTarget | null): boolean {
   if (tag === 'TEXTAREA' || el.isContentEditable) return true;
   if (tag === 'INPUT') {
     const type = (el as HTMLInputElement).type;
-    return !['checkbox', 'radio', 'range', 'button', 'color'].includes(type);
+    return !['checkbox', 'radio', 'range', 'button', 'submit', 'reset', 'color', 'file'].includes(type);
   }
-  return tag === 'SELECT';
+  return false;
 }

@@ -1,0 +1,71 @@
+import type { FrameScoreKey } from '../../state/viewSlice.ts';
+import { frameOrderSel } from '../../state/selectors.ts';
+import type { AppState } from '../../state/store.ts';
+import { cmd, commandTable, type CommandContext } from './registry.ts';
+
+export const hasFrames = ({ store }: CommandContext) => frameCount(store.getState()) > 0;
+const frameCount = (s: AppState) => s.dataset?.pairing.frames.length ?? 0;
+
+/** Moves along the frame list's current order (the order the user sorted by) by `step`. */
+function frameStepInOrder(ctx: CommandContext, step: number): void {
+  const s = ctx.store.getState();
+  const order = frameOrderSel(s);
+  const at = order.indexOf(s.frameIndex);
+  const next = order[Math.max(0, Math.min(order.length - 1, (at < 0 ? -1 : at) + step))];
+  if (next !== undefined) s.frameIndexSet(next);
+}
+
+/** Frames: stepping, jumping, the list's order, playing through. */
+export const FRAME_COMMANDS = commandTable({
+  'frame.next': cmd({
+    label: 'Next frame', group: 'Frames', keys: ['ArrowRight', 'J'], enabled: hasFrames,
+    run: ({ store }) => store.getState().frameIndexSet(store.getState().frameIndex + 1),
+  }),
+  'frame.prev': cmd({
+    label: 'Previous frame', group: 'Frames', keys: ['ArrowLeft', 'K'], enabled: hasFrames,
+    run: ({ store }) => store.getState().frameIndexSet(store.getState().frameIndex - 1),
+  }),
+  'frame.first': cmd({ label: 'First frame', group: 'Frames', keys: ['Home'], enabled: hasFrames, run: ({ store }) => store.getState().frameIndexSet(0) }),
+  'frame.last': cmd({
+    label: 'Last frame', group: 'Frames', keys: ['End'], enabled: hasFrames,
+    run: ({ store }) => store.getState().frameIndexSet(frameCount(store.getState()) - 1),
+  }),
+  'frame.worse': cmd({
+    label: 'Next in list order (worst first when sorted so)', group: 'Frames', keys: ['W'], enabled: hasFrames,
+    run: (ctx) => frameStepInOrder(ctx, 1),
+  }),
+  'frame.better': cmd({ label: 'Previous in list order', group: 'Frames', keys: ['Shift+W'], enabled: hasFrames, run: (ctx) => frameStepInOrder(ctx, -1) }),
+  /** Goes to frame `index` (natural order), clamped to the dataset. */
+  'frame.go': cmd<number>({ label: 'Go to a frame', group: 'Frames', keys: [], enabled: hasFrames, run: ({ store }, index) => store.getState().frameIndexSet(index) }),
+  /** Centres the viewer on a box of a frame and outlines it. */
+  'region.focus': cmd<{ frameIndex: number; bbox: readonly [number, number, number, number] }>({
+    label: 'Show a region', group: 'Frames', keys: [], enabled: hasFrames,
+    run: ({ store }, { frameIndex, bbox }) => store.getState().focusOn(frameIndex, bbox),
+  }),
+  /** Sorts the frame list by a score, worst first; the same score again flips the order. */
+  'frames.sortBy': cmd<FrameScoreKey>({
+    label: 'Sort the frame list', group: 'Frames', keys: [], enabled: () => true,
+    run: ({ store }, key) => {
+      const s = store.getState();
+      if (s.frameScore === key) s.sortWorstFirstSet(!s.sortWorstFirst);
+      else {
+        s.frameScoreSet(key);
+        s.sortWorstFirstSet(true);
+      }
+    },
+  }),
+  'play.toggle': cmd({
+    label: 'Play / pause', group: 'Frames', keys: ['Space'], enabled: hasFrames,
+    run: ({ store }) => store.getState().playingSet(!store.getState().playing),
+  }),
+  /** One step of playing: the next frame, or stop at the last. */
+  'play.step': cmd({
+    label: 'Play: next frame', group: 'Frames', keys: [], enabled: hasFrames,
+    run: ({ store }) => {
+      const s = store.getState();
+      if (s.frameIndex >= frameCount(s) - 1) s.playingSet(false);
+      else s.frameIndexSet(s.frameIndex + 1);
+    },
+  }),
+  'play.rate': cmd<number>({ label: 'Frames per second while playing', group: 'Frames', keys: [], enabled: () => true, run: ({ store }, fps) => store.getState().playRateSet(fps) }),
+});

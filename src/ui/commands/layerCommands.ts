@@ -1,0 +1,117 @@
+import type { DisagreeMode, LayerBase, LayerKey } from '../../core/composite/layerSettings.ts';
+import { BAND_WIDTH_MAX } from '../../core/metrics/bandHistogram.ts';
+import { hasFrames } from './frameCommands.ts';
+import { cmd, commandTable, type CommandContext } from './registry.ts';
+
+/** A change to one layer: its switch and/or its opacity (0..255). */
+export interface LayerChange {
+  layer: LayerKey;
+  on?: boolean;
+  opacity?: number;
+}
+
+function layerSet({ store }: CommandContext, { layer, on, opacity }: LayerChange): void {
+  const cur: LayerBase = store.getState().layers[layer];
+  const next = { ...cur, on: on ?? cur.on, opacity: opacity === undefined ? cur.opacity : Math.max(0, Math.min(255, Math.round(opacity))) };
+  store.getState().layersSet({ [layer]: next });
+}
+
+/** Puts the curtain on or off, or moves it; putting it on shows truth left and prediction right of it, at mid-frame unless placed. */
+function curtainSet({ store }: CommandContext, change: { on?: boolean; x?: number }): void {
+  const s = store.getState();
+  const { curtain, truth, pred } = s.layers;
+  const on = change.on ?? curtain.on;
+  const width = s.shown?.width ?? s.results[s.frameIndex]?.width ?? 0;
+  const x = Math.max(0, Math.round(change.x ?? (curtain.x > 0 ? curtain.x : width / 2)));
+  const opening = on && !curtain.on;
+  s.layersSet({
+    curtain: { on, x },
+    ...(opening ? { truth: { ...truth, on: true }, pred: { ...pred, on: true } } : {}),
+  });
+}
+
+/** Sets the band width every band number and the band layer use, clamped to 0..BAND_WIDTH_MAX px. */
+function bandWidthSet({ store }: CommandContext, width: number): void {
+  store.getState().bandWidthSet(Math.max(0, Math.min(BAND_WIDTH_MAX, Math.round(width))));
+}
+
+/** Sets run B (null for none); the fixed / broke layer follows: on with a run to compare, off without. */
+function runBSet({ store }: CommandContext, run: string | null): void {
+  const s = store.getState();
+  s.runsSet({ runB: run });
+  s.layersSet({ compare: { ...s.layers.compare, on: run !== null } });
+}
+
+function layerToggle(key: LayerKey, label: string, keys: string[]) {
+  return cmd({
+    label, group: 'Layers', keys, enabled: hasFrames,
+    run: (ctx) => layerSet(ctx, { layer: key, on: !ctx.store.getState().layers[key].on }),
+  });
+}
+
+const hasRuns = (n: number) => ({ store }: CommandContext) => (store.getState().dataset?.pairing.runs.length ?? 0) >= n;
+
+/** Layers, the band width and the runs they show. */
+export const LAYER_COMMANDS = commandTable({
+  'layer.photo': layerToggle('photo', 'Photo', ['1']),
+  'layer.truth': layerToggle('truth', 'Ground truth', ['2']),
+  'layer.pred': layerToggle('pred', 'Prediction (run A)', ['3']),
+  'layer.disagree': layerToggle('disagree', 'Disagreement', ['4']),
+  'layer.void': layerToggle('void', 'Void', ['5']),
+  'layer.band': layerToggle('band', 'Boundary band', ['6']),
+  'layer.compare': layerToggle('compare', 'Fixed / broke (A → B)', ['7']),
+  'layer.set': cmd<LayerChange>({ label: 'Switch a layer or set its opacity', group: 'Layers', keys: [], enabled: () => true, run: layerSet }),
+  'layer.colourBy': cmd<DisagreeMode>({
+    label: 'Colour disagreement by kind, true or predicted class', group: 'Layers', keys: [], enabled: () => true,
+    run: ({ store }, mode) => store.getState().layersSet({ disagree: { ...store.getState().layers.disagree, mode } }),
+  }),
+  /** Shows one class only (dims the rest), or every class again with null. */
+  'layer.only': cmd<number | null>({
+    label: 'Show one class only', group: 'Layers', keys: [], enabled: () => true,
+    run: ({ store }, classId) => {
+      const { solo } = store.getState().layers;
+      store.getState().layersSet({ solo: { ...solo, on: classId !== null, classId: classId ?? solo.classId } });
+    },
+  }),
+  'curtain.toggle': cmd({
+    label: 'Curtain: truth left, prediction right', group: 'Layers', keys: ['C'], enabled: hasFrames,
+    run: (ctx) => curtainSet(ctx, { on: !ctx.store.getState().layers.curtain.on }),
+  }),
+  'curtain.set': cmd<{ on?: boolean; x?: number }>({ label: 'Curtain on, off or moved', group: 'Layers', keys: [], enabled: hasFrames, run: curtainSet }),
+  'band.wider': cmd({
+    label: 'Band width +1 px', group: 'Layers', keys: [']'], enabled: hasFrames,
+    run: (ctx) => bandWidthSet(ctx, ctx.store.getState().bandWidth + 1),
+  }),
+  'band.narrower': cmd({
+    label: 'Band width −1 px', group: 'Layers', keys: ['['], enabled: hasFrames,
+    run: (ctx) => bandWidthSet(ctx, ctx.store.getState().bandWidth - 1),
+  }),
+  'band.width': cmd<number>({ label: 'Set the band width', group: 'Layers', keys: [], enabled: () => true, run: bandWidthSet }),
+  'solo.off': cmd({
+    label: 'Stop box drawing, or stop showing one class only', group: 'Layers', keys: ['Escape'],
+    enabled: ({ store }) => store.getState().layers.solo.on || store.getState().boxDrawing,
+    run: ({ store }) => {
+      const s = store.getState();
+      if (s.boxDrawing) return s.boxDrawingSet(false);
+      s.layersSet({ solo: { ...s.layers.solo, on: false } });
+    },
+  }),
+  'run.next': cmd({
+    label: 'Next run as A', group: 'Runs', keys: ['R'], enabled: hasRuns(2),
+    run: ({ store }) => {
+      const s = store.getState();
+      const runs = s.dataset!.pairing.runs;
+      const at = runs.indexOf(s.runA ?? '');
+      s.runsSet({ runA: runs[(at + 1) % runs.length] });
+    },
+  }),
+  'run.swap': cmd({
+    label: 'Swap runs A and B', group: 'Runs', keys: ['X'], enabled: ({ store }) => store.getState().runB !== null,
+    run: ({ store }) => {
+      const { runA, runB } = store.getState();
+      store.getState().runsSet({ runA: runB, runB: runA });
+    },
+  }),
+  'run.a': cmd<string | null>({ label: 'Choose run A', group: 'Runs', keys: [], enabled: hasRuns(1), run: ({ store }, runA) => store.getState().runsSet({ runA }) }),
+  'run.b': cmd<string | null>({ label: 'Choose the run to compare with', group: 'Runs', keys: [], enabled: hasRuns(1), run: runBSet }),
+});
