@@ -92,8 +92,17 @@ export async function outputOpen(path: string, option: string): Promise<OutputFi
     await rm(partial, { force: true });
     untrack(partial);
   };
+  // Writes and the commit run one after another in call order: writes issued without waiting (a
+  // streaming ZIP hands over chunks faster than the disk takes them) would otherwise land interleaved.
+  let queue: Promise<unknown> = Promise.resolve();
+  const inOrder = <T>(step: () => Promise<T>): Promise<T> => {
+    const next = queue.then(step);
+    queue = next.catch(() => undefined);
+    return next;
+  };
   return {
-    async write(chunk) {
+    write: (chunk) => inOrder(async () => {
+      if (closed) throw fail(option, path, new Error('the file was closed after an earlier error'));
       try {
         // writeFile loops until every byte is written (a plain write may stop short on a filling disk).
         await fh.writeFile(chunk);
@@ -101,8 +110,8 @@ export async function outputOpen(path: string, option: string): Promise<OutputFi
         await abort();
         throw fail(option, path, e);
       }
-    },
-    async commit() {
+    }),
+    commit: () => inOrder(async () => {
       try {
         await fh.sync();
         await close();
@@ -112,7 +121,7 @@ export async function outputOpen(path: string, option: string): Promise<OutputFi
         await abort();
         throw fail(option, path, e);
       }
-    },
+    }),
     abort,
   };
 }

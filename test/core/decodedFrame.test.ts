@@ -90,7 +90,7 @@ describe('frameDecode (src/core/decodedFrame.ts)', () => {
       'run "none" has no prediction for this frame',
       'gone/f1.png: could not be read (ENOENT)',
       'locked/f1.png: could not be read (the file was moved)',
-      'small/f1.png: is 2×2 pixels but truth/f1.png is 4×3; all files of a frame must have the same size',
+      'small/f1.png: is 2×2 pixels but truth/f1.png is 4×3; a prediction must have the label\'s size or a whole fraction of it (1/2, 1/3, …, same in both directions)',
     ]);
   });
 
