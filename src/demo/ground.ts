@@ -54,10 +54,32 @@ export function groundClassAt(x: number, z: number, foot: number): number {
   return QUAY;
 }
 
+/** Per row: depth zc, pixel footprint dxc, world point (X0, Z0) of column 0 and its step (dX, dZ) per column. */
+type RowRay = Float64Array;
+const RAY_ZC = 0, RAY_DXC = 1, RAY_X0 = 2, RAY_Z0 = 3, RAY_DX = 4, RAY_DZ = 5;
+
+/**
+ * Writes into `ray` the ground hit of the row `below` pixels under the horizon: the world point of pixel x
+ * is P = P0 + x * dP (the camera looks along (sin, cos), right is (cos, -sin)); returns nothing.
+ */
+function rowRay(ray: RowRay, cam: DemoCamera, below: number): void {
+  const { f, cx } = cam;
+  const zc = (cam.y * f) / below;
+  const xc0 = ((0.5 - cx) * zc) / f;
+  const dxc = zc / f;
+  ray[RAY_ZC] = zc;
+  ray[RAY_DXC] = dxc;
+  ray[RAY_X0] = cam.x + xc0 * cam.cos + zc * cam.sin;
+  ray[RAY_Z0] = cam.z - xc0 * cam.sin + zc * cam.cos;
+  ray[RAY_DX] = dxc * cam.cos;
+  ray[RAY_DZ] = -dxc * cam.sin;
+}
+
 /** Sets class and depth of every pixel of `t` to the background seen by `cam` (no colour); returns nothing. */
 export function groundPass(t: RasterTarget, cam: DemoCamera): void {
   const { width, height, label, depth } = t;
-  const { f, cx, cy } = cam;
+  const { cy } = cam;
+  const ray: RowRay = new Float64Array(6);
   for (let y = 0; y < height; y++) {
     const row = y * width;
     const below = y + 0.5 - cy;
@@ -65,14 +87,8 @@ export function groundPass(t: RasterTarget, cam: DemoCamera): void {
       label.fill(SKY, row, row + width);
       continue;
     }
-    const zc = (cam.y * f) / below;
-    // world point of pixel x: P = P0 + x * dP (camera looks along (sin, cos), right is (cos, -sin))
-    const xc0 = ((0.5 - cx) * zc) / f;
-    const dxc = zc / f;
-    const X0 = cam.x + xc0 * cam.cos + zc * cam.sin;
-    const Z0 = cam.z - xc0 * cam.sin + zc * cam.cos;
-    const dX = dxc * cam.cos;
-    const dZ = -dxc * cam.sin;
+    rowRay(ray, cam, below);
+    const zc = ray[RAY_ZC], dxc = ray[RAY_DXC], X0 = ray[RAY_X0], Z0 = ray[RAY_Z0], dX = ray[RAY_DX], dZ = ray[RAY_DZ];
     depth.fill(zc, row, row + width);
     // groundClassAt, written out: a call per pixel with float arguments would box them (measured:
     // ~20 MB of short-lived numbers per 1024×512 frame when the call is not inlined)
@@ -98,7 +114,8 @@ export function backgroundShade(t: RasterTarget, cam: DemoCamera, seed: number):
   const rgb = t.rgb;
   if (!rgb) return;
   const { width, height, label, inst } = t;
-  const { f, cx, cy } = cam;
+  const { f, cy } = cam;
+  const ray: RowRay = new Float64Array(6);
   const sky = new Float32Array((Math.ceil(width / SKY_STEP) + 3) * 3);
   const tone = new Float32Array(Math.ceil(width / SKY_STEP) + 3);
   for (let y = 0; y < height; y++) {
@@ -120,13 +137,8 @@ export function backgroundShade(t: RasterTarget, cam: DemoCamera, seed: number):
       }
       continue;
     }
-    const zc = (cam.y * f) / below;
-    const xc0 = ((0.5 - cx) * zc) / f;
-    const dxc = zc / f;
-    const X0 = cam.x + xc0 * cam.cos + zc * cam.sin;
-    const Z0 = cam.z - xc0 * cam.sin + zc * cam.cos;
-    const dX = dxc * cam.cos;
-    const dZ = -dxc * cam.sin;
+    rowRay(ray, cam, below);
+    const zc = ray[RAY_ZC], dxc = ray[RAY_DXC], X0 = ray[RAY_X0], Z0 = ray[RAY_Z0], dX = ray[RAY_DX], dZ = ray[RAY_DZ];
     const footZ = (zc * zc) / (f * cam.y);
     const haze = 1 - Math.exp(-zc / HAZE_DISTANCE);
     for (let k = 0, x = 0; x <= width + SKY_STEP; k++, x += SKY_STEP) tone[k] = deckTone(X0 + dX * x, Z0 + dZ * x, zc, seed);

@@ -1,5 +1,5 @@
 import type { DatasetSource } from './source.ts';
-import { layoutPath, sourceLayoutOpen } from './sourceLayout.ts';
+import { layoutPath, sourceFieldsOf, sourceLayoutOpen } from './sourceLayout.ts';
 
 /** A file of a dropped or picked folder with its path relative to the folder that was chosen. */
 export interface PickedFile {
@@ -35,11 +35,7 @@ export async function folderSourceOpen(files: PickedFile[]): Promise<DatasetSour
   return {
     kind: 'folder',
     title,
-    listing: layout.listing,
-    classesText: layout.classesText,
-    pair: layout.pair,
-    listText: layout.listText,
-    how: layout.how,
+    ...sourceFieldsOf(layout),
     async read(folder, path) {
       const at = layoutPath(layout, folder, path);
       const blob = byPath.get(at);

@@ -1,5 +1,5 @@
 import type { DatasetSource } from './source.ts';
-import { layoutPath, sourceLayoutOpen } from './sourceLayout.ts';
+import { layoutPath, sourceFieldsOf, sourceLayoutOpen } from './sourceLayout.ts';
 
 /** Returns the dataset folder that `npm start -- DIR` serves, or null when it serves none. */
 export async function servedSourceOpen(base = '/dataset/'): Promise<DatasetSource | null> {
@@ -21,11 +21,7 @@ export async function servedSourceOpen(base = '/dataset/'): Promise<DatasetSourc
   return {
     kind: 'served',
     title: index.title,
-    listing: layout.listing,
-    classesText: layout.classesText,
-    pair: layout.pair,
-    listText: layout.listText,
-    how: layout.how,
+    ...sourceFieldsOf(layout),
     async read(folder, path) {
       const at = layoutPath(layout, folder, path);
       const r = await fetch(url(at));

@@ -3,6 +3,7 @@ import { classTableFromText } from '../../core/classTable.ts';
 import { dictCreate } from '../../core/dict.ts';
 import { datasetPairProbed } from '../labelGroups.ts';
 import { layoutFromPaths, type DatasetLayout } from '../layout.ts';
+import type { DatasetSource } from './source.ts';
 
 /** A served or dropped root read as a dataset: its layout, and the texts of its class table and list file. */
 export interface SourceLayout extends DatasetLayout {
@@ -53,4 +54,9 @@ export function layoutPath(layout: Pick<DatasetLayout, 'dirs'>, folder: string, 
   const dir = layout.dirs[folder];
   if (dir === undefined) throw new Error(`${folder}/${path}: no such folder in this dataset`);
   return dir === '' ? path : `${dir}/${path}`;
+}
+
+/** Returns the fields a served or dropped source takes from its layout. */
+export function sourceFieldsOf(layout: SourceLayout): Pick<DatasetSource, 'listing' | 'classesText' | 'pair' | 'listText' | 'how'> {
+  return { listing: layout.listing, classesText: layout.classesText, pair: layout.pair, listText: layout.listText, how: layout.how };
 }
