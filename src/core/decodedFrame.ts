@@ -1,10 +1,9 @@
 import { truthBandBins } from './bandBins.ts';
 import type { ClassTable } from './classTable.ts';
-import { frameSizesCheck } from './frameCheck.ts';
 import type { LabelMap } from './labelMap.ts';
 import { fileBytesRead, type FrameFileReader, type FrameFileRef } from './frameFiles.ts';
 import { labelMapRead, type ReadLabelMap } from './labelRead.ts';
-import { predictionFit } from './labelScale.ts';
+import { photoFit, predictionFit } from './labelScale.ts';
 import { ok, type Result } from './result.ts';
 
 /**
@@ -53,7 +52,6 @@ export async function frameDecode<F extends FrameFileRef>(input: FrameDecodeInpu
   if (!t.ok) return t;
   const truth = t.value;
   const { width, height } = truth;
-  const sizeCheck = (file: string, w: number, h: number) => frameSizesCheck([{ file: input.truth.file, width, height }, { file, width: w, height: h }]);
   const frame: DecodedFrame = { name: input.name, width, height, truth, preds: {}, photo: null, bandBins: null, notes: [] };
   for (const p of input.preds) {
     if (!p.file) {
@@ -71,9 +69,12 @@ export async function frameDecode<F extends FrameFileRef>(input: FrameDecodeInpu
   }
   if (input.photo) {
     const photo = await reader.photo(input.photo);
-    const sized = photo.ok ? sizeCheck(input.photo.file, photo.value.width, photo.value.height) : photo;
-    if (!sized.ok) frame.notes.push(sized.error);
-    else if (photo.ok) frame.photo = photo.value.rgba;
+    const fit = photo.ok ? photoFit({ file: input.truth.file, width, height }, { file: input.photo.file, ...photo.value }) : photo;
+    if (!fit.ok) frame.notes.push(fit.error);
+    else {
+      frame.photo = fit.value.rgba;
+      if (fit.value.note) frame.notes.push(fit.value.note);
+    }
   }
   if (input.bandBins) frame.bandBins = truthBandBins(truth);
   return ok(frame);

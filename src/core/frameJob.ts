@@ -9,8 +9,7 @@ import type { ScoreSettings } from './metrics/settings.ts';
 import { idCensusOf, type IdCensus } from './idCensus.ts';
 import { labelMapRead } from './labelRead.ts';
 import { labelMapFromPng } from './png/decodeLabel.ts';
-import { predictionFit } from './labelScale.ts';
-import { pngHeaderRead } from './png/header.ts';
+import { photoFit, predictionFit } from './labelScale.ts';
 import type { RgbaImage } from './png/decodePhoto.ts';
 import { confidenceFromPng, type ConfidenceMap } from './regions/confidenceMap.ts';
 import { frameRegionsCompute } from './regions/frameRegions.ts';
@@ -25,11 +24,10 @@ export interface FrameJobInput {
   truth: FileBytes;
   /** Per run: its prediction file, or null when the run has none for this frame. */
   preds: { run: string; file: FileBytes | null }[];
-  /** A photo whose size is checked against the label maps (PNG header only), or null. */
-  photo?: FileBytes | null;
   /**
    * The photo as RGBA pixels, for the image evidence of error regions (browser: from
-   * createImageBitmap; Node: photoFromPng). `file` names it in messages. Absent: no image evidence.
+   * createImageBitmap; Node: photoFromPng), at the label's size or a whole multiple or fraction of it
+   * (photoFit). `file` names it in messages. Absent: no image evidence.
    */
   photoRgba?: PhotoPixels | null;
   /** Per run: its confidence map (8/16-bit gray PNG, high = confident), or null / absent without one. */
@@ -114,18 +112,6 @@ export function frameJobScore(
   const ids = labelMapIdsCheck(truth.value, table, input.truth.file, 'truth');
   if (!ids.ok) return failAll(ids.error);
   const { width, height } = truth.value;
-  if (input.photo) {
-    const h = pngHeaderRead(input.photo.bytes, input.photo.file);
-    // Only PNG photos can be sized without a decoder here; other formats are checked where they are decoded.
-    if (h.ok) {
-      const sizes = frameSizesCheck([
-        { file: input.truth.file, width, height },
-        { file: input.photo.file, width: h.value.width, height: h.value.height },
-      ]);
-      if (!sizes.ok) return failAll(sizes.error);
-    }
-  }
-
   const warnings: string[] = [];
   const decoded: { run: string; map: LabelMap | null; error: string | null; factor?: number }[] = input.preds.map(({ run, file }) => {
     if (!file) return { run, map: null, error: `predictions/${run}: no prediction file for frame ${input.name}` };
@@ -157,10 +143,14 @@ export function frameJobScore(
   if (input.regions === false) return { ...base, width, height, error: null, runs, ...(warnings.length ? { warnings } : {}) };
   const regionSettings = regionSettingsCheck(input.regions);
   if (!regionSettings.ok) return failAll(regionSettings.error);
-  const photo = input.photoRgba ?? null;
+  // A photo of another size is brought to the label's (photoFit); one that cannot be only loses the
+  // image evidence, with a warning: the scores never depend on it.
+  let photo = input.photoRgba ?? null;
   if (photo) {
-    const sizes = frameSizesCheck([{ file: input.truth.file, width, height }, { file: photo.file, width: photo.width, height: photo.height }]);
-    if (!sizes.ok) return failAll(sizes.error);
+    const fit = photoFit({ file: input.truth.file, width, height }, photo);
+    if (!fit.ok) warnings.push(`${fit.error}; no image evidence on this frame`);
+    else if (fit.value.note) warnings.push(fit.value.note);
+    photo = fit.ok ? { file: photo.file, width, height, rgba: fit.value.rgba } : null;
   }
   const preds = decoded.map((d, i) => {
     if (!d.map || runs[i].error) return null;

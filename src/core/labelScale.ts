@@ -50,3 +50,65 @@ export function predictionFit<M extends LabelMap>(truth: { file: string; width: 
     `is ${map.width}×${map.height} pixels but ${truth.file} is ${truth.width}×${truth.height}; a prediction must have the label's size or a whole fraction of it (1/2, 1/3, …, same in both directions)`,
   );
 }
+
+/** A photo's pixels with the name used in messages. */
+interface PhotoIn {
+  file: string;
+  width: number;
+  height: number;
+  rgba: Uint8Array;
+}
+
+/**
+ * Returns a photo brought to the label's size, and what was done to it (null when nothing was):
+ * - the same size: as it is;
+ * - k times the label's size (2 ≤ k ≤ 16, both directions; photos kept at full resolution beside labels
+ *   made smaller is common practice): each k × k block averaged, rounded to nearest;
+ * - 1/k of the label's size: each pixel repeated k × k times (nearest neighbour);
+ * - anything else: the sizes-differ error naming both files.
+ * Hot loops: per block row, channel sums in one Uint32Array; no allocation per pixel.
+ */
+export function photoFit(truth: { file: string; width: number; height: number }, photo: PhotoIn): Result<{ rgba: Uint8Array; note: string | null }> {
+  const { width: tw, height: th } = truth;
+  const { width: pw, height: ph, rgba } = photo;
+  if (pw === tw && ph === th) return ok({ rgba, note: null });
+  const down = labelScaleFactor(pw, ph, tw, th);
+  if (down) {
+    const out = new Uint8Array(tw * th * 4);
+    const sums = new Uint32Array(tw * 4);
+    const half = (down * down) >> 1;
+    const area = down * down;
+    for (let y = 0; y < th; y++) {
+      sums.fill(0);
+      for (let r = 0; r < down; r++) {
+        const src = (y * down + r) * pw * 4;
+        for (let x = 0, i = src; x < pw; x++, i += 4) {
+          const s = ((x / down) | 0) * 4;
+          sums[s] += rgba[i];
+          sums[s + 1] += rgba[i + 1];
+          sums[s + 2] += rgba[i + 2];
+          sums[s + 3] += rgba[i + 3];
+        }
+      }
+      const o = y * tw * 4;
+      for (let j = 0; j < tw * 4; j++) out[o + j] = ((sums[j] + half) / area) | 0;
+    }
+    return ok({ rgba: out, note: `${photo.file}: averaged down ×${down} to the label's size` });
+  }
+  const up = labelScaleFactor(tw, th, pw, ph);
+  if (up) {
+    // Whole pixels as 32-bit words (the byte order does not matter: they are only copied).
+    const words = rgba.byteOffset % 4 === 0 ? new Uint32Array(rgba.buffer, rgba.byteOffset, pw * ph) : new Uint32Array(rgba.slice().buffer);
+    const big = new Uint32Array(tw * th);
+    for (let y = 0; y < ph; y++) {
+      const o = y * up * tw;
+      for (let x = 0; x < pw; x++) big.fill(words[y * pw + x], o + x * up, o + x * up + up);
+      for (let r = 1; r < up; r++) big.copyWithin(o + r * tw, o, o + tw);
+    }
+    return ok({ rgba: new Uint8Array(big.buffer), note: `${photo.file}: scaled up ×${up} to the label's size by nearest neighbour` });
+  }
+  return fail(
+    photo.file,
+    `is ${pw}×${ph} pixels but ${truth.file} is ${tw}×${th}; a photo must have the label's size, a whole multiple or a whole fraction of it (same in both directions)`,
+  );
+}

@@ -6,7 +6,7 @@ import type { RegionScratch } from '../core/regions/regionScratch.ts';
 import { buffersOf } from './protocol.ts';
 
 /** A frame-scoring job: FrameJobInput with the frame's files located by `F` (Blobs in the page, paths headless) instead of bytes. */
-export interface FrameScoreFiles<F extends FrameFileRef> extends Omit<FrameJobInput, 'truth' | 'preds' | 'photo' | 'photoRgba' | 'confidence' | 'neighbours' | 'instances'> {
+export interface FrameScoreFiles<F extends FrameFileRef> extends Omit<FrameJobInput, 'truth' | 'preds' | 'photoRgba' | 'confidence' | 'neighbours' | 'instances'> {
   truth: F;
   /** Per run: its prediction file, or null when the run has none for this frame. */
   preds: { run: string; file: F | null }[];
@@ -35,12 +35,10 @@ export async function frameScoreRun<F extends FrameFileRef>(
   }
   const warnings: string[] = [];
   const preds = await Promise.all(input.preds.map(async (p) => ({ run: p.run, read: p.file ? await fileBytesRead(reader, p.file) : null })));
-  let photo: FileBytes | null = null;
   let photoRgba: PhotoPixels | null = null;
   if (input.photo) {
     const bytes = await fileBytesRead(reader, input.photo);
     const pixels = bytes.ok ? await reader.photo(input.photo, bytes.value.bytes) : bytes;
-    if (bytes.ok) photo = bytes.value;
     if (pixels.ok) photoRgba = { file: input.photo.file, ...pixels.value };
     else warnings.push(`${pixels.error}; image evidence not used on this frame`);
   }
@@ -64,7 +62,7 @@ export async function frameScoreRun<F extends FrameFileRef>(
   const instances = await optional(input.instances, 'instance-weighted IoU');
   const value = frameJobScore(
     {
-      ...input, truth: truth.value, preds: preds.map((p) => ({ run: p.run, file: p.read?.ok ? p.read.value : null })), photo, photoRgba, confidence,
+      ...input, truth: truth.value, preds: preds.map((p) => ({ run: p.run, file: p.read?.ok ? p.read.value : null })), photoRgba, confidence,
       neighbours, instances,
     },
     scratch,

@@ -98,7 +98,9 @@ describe('frameDecode (src/core/decodedFrame.ts)', () => {
     const bad = await frameDecode(input({ photo: { file: 'images/f1.jpg', photo: 'bad' } }), reader);
     expect(bad.ok && [bad.value.photo, bad.value.notes]).toEqual([null, ['images/f1.jpg: not an image this reader decodes']]);
     const sized = await frameDecode(input({ photo: { file: 'images/f1.png', photo: { width: 5, height: 3 } } }), reader);
-    expect(sized.ok && sized.value.notes).toEqual(['images/f1.png: is 5×3 pixels but truth/f1.png is 4×3; all files of a frame must have the same size']);
+    expect(sized.ok && sized.value.notes).toEqual(["images/f1.png: is 5×3 pixels but truth/f1.png is 4×3; a photo must have the label's size, a whole multiple or a whole fraction of it (same in both directions)"]);
+    const double = await frameDecode(input({ photo: { file: 'images/f1.png', photo: { width: W * 2, height: H * 2 } } }), reader);
+    expect(double.ok && [double.value.photo?.length, double.value.notes]).toEqual([W * H * 4, ["images/f1.png: averaged down ×2 to the label's size"]]);
     const good = await frameDecode(input({ photo: { file: 'images/f1.png', photo: { width: W, height: H } } }), reader);
     expect(good.ok && good.value.photo?.length).toBe(W * H * 4);
   });

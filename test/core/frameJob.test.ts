@@ -88,9 +88,13 @@ describe('frameJobScore: error regions', () => {
     expect(r.runs.every((x) => x.regions && x.regions.confidence === null && x.stats)).toBe(true);
   });
 
-  it('a decoded photo of another size fails the frame with a message naming it', () => {
+  it('a decoded photo of a size that does not fit is left out with a warning; the scores stand; twice the size is averaged down', () => {
     const r = frameJobScore({ ...frame(), photoRgba: { file: 'images/x.jpg', width: W, height: H + 2, rgba: new Uint8Array(W * (H + 2) * 4) } });
-    expect(r.error).toMatch(/^images\/x\.jpg: is 40×32 pixels but truth\/x\.png is 40×30/);
+    expect(r.error).toBeNull();
+    expect(r.warnings).toEqual([`images/x.jpg: is 40×32 pixels but truth/x.png is 40×30; a photo must have the label's size, a whole multiple or a whole fraction of it (same in both directions); no image evidence on this frame`]);
+    expect(r.runs.every((x) => x.stats && x.regions)).toBe(true);
+    const twice = frameJobScore({ ...frame(), photoRgba: { file: 'images/x.jpg', width: W * 2, height: H * 2, rgba: new Uint8Array(W * H * 16).fill(90) } });
+    expect([twice.error, twice.warnings]).toEqual([null, ["images/x.jpg: averaged down ×2 to the label's size"]]);
   });
 
   it('a run whose prediction fails has no regions and is nobody\'s agreement evidence', () => {
