@@ -17,7 +17,7 @@ export const FRAME_COLUMNS = cols<FrameRow>({
   meanIoU: ['double'], pixelAccuracy: ['double'], bandIoU: ['double'], boundaryIoU: ['double'], boundaryF: ['double'],
   errorPixels: ['int'], validPixels: ['int'], classIds: ['intList'], confusion: ['intList'], bandClass: ['intList'],
   biouInter: ['intList'], biouUnion: ['intList'], bfPredMatched: ['intList'], bfPredTotal: ['intList'], bfTruthMatched: ['intList'], bfTruthTotal: ['intList'],
-  regions: ['int'], regionPixels: ['int'], voidSpillPixels: ['int'],
+  regions: ['int'], regionPixels: ['int'], voidSpillPixels: ['int'], flipBack: ['double'], flipBackVoid: ['double'], smallObjectRecall: ['double'],
 });
 
 export const REGION_COLUMNS = cols<RegionRow>({

@@ -30,7 +30,7 @@ function run(args: string[], cmd = 'src/cli/score.ts') {
 const merge = (args: string[]) => run(args, 'src/cli/merge.ts');
 const dataArgs = (root: string) => [
   '--truth', join(root, 'truth'), '--pred', `a=${join(root, 'predictions', 'run-a')}`, '--pred', `b=${join(root, 'predictions', 'run-b')}`,
-  '--confidence', `a=${join(root, 'confidence')}`, '--images', join(root, 'images'), '--classes', join(root, 'classes.json'), '--workers', '2',
+  '--confidence', `a=${join(root, 'confidence')}`, '--images', join(root, 'images'), '--instances', join(root, 'instances'), '--classes', join(root, 'classes.json'), '--workers', '2',
 ];
 function scoreOk(args: string[]) {
   const r = scoreCli(args, 600_000);
@@ -86,7 +86,7 @@ beforeAll(() => {
   confidenceWrite(kq);
   // A two-frame dataset, so that one of three shards is empty.
   tiny = join(dir, 'tiny');
-  for (const sub of ['truth', 'predictions/run-a', 'predictions/run-b', 'confidence', 'images']) {
+  for (const sub of ['truth', 'predictions/run-a', 'predictions/run-b', 'confidence', 'images', 'instances']) {
     mkdirSync(join(tiny, sub), { recursive: true });
     for (const f of ['kq-0005.png', 'kq-0006.png']) cpSync(join(kq, sub, f), join(tiny, sub, f));
   }
@@ -102,12 +102,9 @@ describe('npm run score -- --results DIR', () => {
     const report = JSON.parse(readFileSync(join(dir, 'report.json'), 'utf8'));
     expect(s.classes).toEqual(report.classes);
     expect(s.settings).toEqual(report.settings);
-    // The report's flicker and object keys (src/core/metrics/extrasTotals.ts) are not in results folders yet (README "Large datasets").
-    const EXTRAS = ['flipBack', 'flipBackPerClass', 'flipBackVoid', 'objectsBySize', 'objectsBySizePerClass', 'smallObjectRecall'];
-    const core = (d: Record<string, unknown>) => Object.fromEntries(Object.entries(d).filter(([k]) => !EXTRAS.includes(k)));
-    expect(Object.keys(report.dataset).filter((k) => !(k in s.dataset)).sort()).toEqual(EXTRAS);
-    expectClose(s.dataset, core(report.dataset), 'dataset');
-    for (const r of ['a', 'b']) expectClose(s.runs[r], core(report.runs[r]), `runs.${r}`);
+    expect(Object.keys(report.dataset)).toEqual(expect.arrayContaining(['flipBack', 'flipBackVoid', 'flipBackPerClass', 'objectsBySize', 'objectsBySizePerClass', 'smallObjectRecall', 'iIoU']));
+    expectClose(s.dataset, report.dataset, 'dataset');
+    for (const r of ['a', 'b']) expectClose(s.runs[r], report.runs[r], `runs.${r}`);
     expect(s.runNames).toEqual(['a', 'b']);
     expect(s.frames).toEqual({ total: 24, from: 0, to: 24, scored: 24, failed: 0 });
     expect(Object.keys(s.sums.confidence)).toEqual(['a']); // the confidence map was used
@@ -117,11 +114,14 @@ describe('npm run score -- --results DIR', () => {
     const report = JSON.parse(readFileSync(join(dir, 'report.json'), 'utf8'));
     const frames = await rows(join(dir, 'all', 'frames.parquet'));
     expect(frames.length).toBe(48);
+    // The demo's run-a flickers on odd frames: rates are there, and null only at the sequence ends.
+    expect(frames.filter((f) => f.run === 'a' && typeof f.flipBack === 'number' && f.flipBack > 0).length).toBeGreaterThan(5);
+    expect(frames.filter((f) => f.flipBack === null).map((f) => f.frameIndex).sort()).toEqual([0, 0, 23, 23]);
     const firstRun = frames.filter((f) => f.run === 'a');
     expect(firstRun.map((f) => f.frame)).toEqual(report.frames.map((f: { name: string }) => f.name));
     firstRun.forEach((f, i) => {
       const line = report.frames[i];
-      for (const k of ['meanIoU', 'pixelAccuracy', 'boundaryIoU', 'boundaryF'] as const) expectClose(f[k], line[k], `${line.name}.${k}`);
+      for (const k of ['meanIoU', 'pixelAccuracy', 'boundaryIoU', 'boundaryF', 'flipBack', 'flipBackVoid', 'smallObjectRecall'] as const) expectClose(f[k], line[k], `${line.name}.${k}`);
       expect(f.error).toBe(line.error);
     });
     const regions = (await rows(join(dir, 'all', 'regions.parquet'))).filter((r) => r.run === 'a');

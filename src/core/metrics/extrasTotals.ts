@@ -1,7 +1,8 @@
 import type { RunExtras } from '../frameExtras.ts';
 import { instanceIoU, instanceCountsCreate } from '../objects/instanceIoU.ts';
 import { objectTotalsAdd, objectTotalsCreate, objectTotalsMerge, objectTotalsReport, type ObjectClassBins, type ObjectTotals } from '../objects/objectTotals.ts';
-import type { ObjectSizeBin } from '../objects/objectsBySize.ts';
+import { OBJECT_SIZE_BINS, type ObjectSizeBin } from '../objects/objectsBySize.ts';
+import { exactOf, exactValue } from '../results/exactSum.ts';
 import { flipBackRate } from '../temporal/flipBack.ts';
 import { flickerTotalsAdd, flickerTotalsCreate, flickerTotalsMerge, flickerTotalsReport, type FlickerTotals } from '../temporal/flickerTotals.ts';
 
@@ -9,8 +10,8 @@ import { flickerTotalsAdd, flickerTotalsCreate, flickerTotalsMerge, flickerTotal
 export interface ExtrasTotals {
   objects: ObjectTotals;
   flicker: FlickerTotals;
-  /** Class id → instances, their pixels and their summed recall; empty without instance maps. */
-  instances: Map<number, { instances: number; pixels: number; recallSum: number }>;
+  /** Class id → instances, their pixels and their summed recall (exact sum terms); empty without instance maps. */
+  instances: Map<number, { instances: number; pixels: number; recallSum: bigint }>;
 }
 
 /** The report keys these totals add to a run's `dataset` block (src/docs/metrics.md). */
@@ -44,10 +45,10 @@ export function extrasTotalsAdd(t: ExtrasTotals, e: RunExtras, classIds: readonl
   if (e.instances) {
     classIds.forEach((id, c) => {
       if (e.instances!.instances[c] === 0) return;
-      const s = t.instances.get(id) ?? { instances: 0, pixels: 0, recallSum: 0 };
+      const s = t.instances.get(id) ?? { instances: 0, pixels: 0, recallSum: 0n };
       s.instances += e.instances!.instances[c];
       s.pixels += e.instances!.pixels[c];
-      s.recallSum += e.instances!.recallSum[c];
+      s.recallSum += exactOf(e.instances!.recallSum[c]);
       t.instances.set(id, s);
     });
   }
@@ -59,7 +60,7 @@ export function extrasTotalsMerge(a: ExtrasTotals, b: ExtrasTotals): ExtrasTotal
   objectTotalsMerge(a.objects, b.objects);
   flickerTotalsMerge(a.flicker, b.flicker);
   for (const [id, v] of b.instances) {
-    const s = a.instances.get(id) ?? { instances: 0, pixels: 0, recallSum: 0 };
+    const s = a.instances.get(id) ?? { instances: 0, pixels: 0, recallSum: 0n };
     s.instances += v.instances;
     s.pixels += v.pixels;
     s.recallSum += v.recallSum;
@@ -90,10 +91,47 @@ export function extrasTotalsReport(t: ExtrasTotals, classIds: readonly number[],
       if (!s) return;
       counts.instances[c] = s.instances;
       counts.pixels[c] = s.pixels;
-      counts.recallSum[c] = s.recallSum;
+      counts.recallSum[c] = exactValue(s.recallSum);
     });
     const r = instanceIoU(counts, falsePositives);
     out.iIoU = { mean: r.mean, perClass: classIds.map((id, c) => ({ id, value: r.perClass[c] })) };
   }
   return out;
+}
+
+/** The totals as summary.json stores them, by ascending class id; exact sums as decimal strings of 2^-60 units. */
+export interface ExtrasTotalsJson {
+  /** [class id, objects per bin, exact recall sum per bin, detected per bin]. */
+  objects: [number, number[], string[], number[]][];
+  flicker: { flips: number; pixels: number; flipsVoid: number; pixelsVoid: number; byClass: [number, number, number][] };
+  /** [class id, instances, pixels, exact recall sum]. */
+  instances: [number, number, number, string][];
+}
+
+const byId = <V>(m: Map<number, V>) => [...m].sort((a, b) => a[0] - b[0]);
+
+/** Returns the totals as JSON data (the same whatever order frames were added in). */
+export function extrasTotalsToJson(t: ExtrasTotals): ExtrasTotalsJson {
+  const f = t.flicker;
+  return {
+    objects: byId(t.objects.byClass).map(([id, s]) => [id, Array.from(s.objects), s.recallSum.map(String), Array.from(s.detected)]),
+    flicker: { flips: f.flips, pixels: f.pixels, flipsVoid: f.flipsVoid, pixelsVoid: f.pixelsVoid, byClass: byId(f.byClass).map(([id, s]) => [id, s.flips, s.pixels]) },
+    instances: byId(t.instances).map(([id, s]) => [id, s.instances, s.pixels, s.recallSum.toString()]),
+  };
+}
+
+/** Returns totals read back from JSON data; throws on malformed data (the caller names the file). */
+export function extrasTotalsFromJson(j: ExtrasTotalsJson): ExtrasTotals {
+  const t = extrasTotalsCreate();
+  for (const [id, objects, recallSum, detected] of j.objects) {
+    if (objects.length !== OBJECT_SIZE_BINS || recallSum.length !== OBJECT_SIZE_BINS || detected.length !== OBJECT_SIZE_BINS) {
+      throw new Error(`extras: class ${id} has object counts of ${objects.length}, ${recallSum.length}, ${detected.length} bins, expected ${OBJECT_SIZE_BINS}`);
+    }
+    t.objects.byClass.set(id, { objects: Float64Array.from(objects), recallSum: recallSum.map((v) => BigInt(v)), detected: Float64Array.from(detected) });
+  }
+  const f = j.flicker;
+  Object.assign(t.flicker, { flips: f.flips, pixels: f.pixels, flipsVoid: f.flipsVoid, pixelsVoid: f.pixelsVoid });
+  for (const [id, flips, pixels] of f.byClass) t.flicker.byClass.set(id, { flips, pixels });
+  for (const [id, instances, pixels, recallSum] of j.instances) t.instances.set(id, { instances, pixels, recallSum: BigInt(recallSum) });
+  return t;
 }

@@ -1,3 +1,4 @@
+import { exactOf, exactValue } from '../results/exactSum.ts';
 import {
   OBJECT_SIZE_BINS, objectSizeBins, objectSizeCountsCreate, SMALL_OBJECT_AREA, OBJECT_SIZE_EDGES,
   type ObjectSizeBin, type ObjectSizeCounts,
@@ -6,11 +7,12 @@ import {
 /**
  * Dataset sums of object counts by class id (src/docs/metrics.md "Objects"), for class lists that
  * may differ between frames (a generated table scores the ids present in each frame). Additive: two
- * totals merge by adding, so shards and merges are exact.
+ * totals merge by adding, and recall sums are exact sums (src/core/results/exactSum.ts), so the
+ * totals do not depend on the order frames finish in, and shards and merges are exact.
  */
 export interface ObjectTotals {
-  /** Class id → counts over the size bins (index = bin). */
-  byClass: Map<number, { objects: Float64Array; recallSum: Float64Array; detected: Float64Array }>;
+  /** Class id → counts over the size bins (index = bin); recallSum in exact sum terms. */
+  byClass: Map<number, { objects: Float64Array; recallSum: bigint[]; detected: Float64Array }>;
 }
 
 /** One class's bins in the report. */
@@ -27,7 +29,7 @@ export function objectTotalsCreate(): ObjectTotals {
 function slot(t: ObjectTotals, id: number) {
   let s = t.byClass.get(id);
   if (!s) {
-    s = { objects: new Float64Array(OBJECT_SIZE_BINS), recallSum: new Float64Array(OBJECT_SIZE_BINS), detected: new Float64Array(OBJECT_SIZE_BINS) };
+    s = { objects: new Float64Array(OBJECT_SIZE_BINS), recallSum: new Array<bigint>(OBJECT_SIZE_BINS).fill(0n), detected: new Float64Array(OBJECT_SIZE_BINS) };
     t.byClass.set(id, s);
   }
   return s;
@@ -43,7 +45,7 @@ export function objectTotalsAdd(t: ObjectTotals, counts: ObjectSizeCounts, class
     const s = slot(t, classIds[c]);
     for (let b = 0; b < OBJECT_SIZE_BINS; b++) {
       s.objects[b] += counts.objects[base + b];
-      s.recallSum[b] += counts.recallSum[base + b];
+      s.recallSum[b] += exactOf(counts.recallSum[base + b]);
       s.detected[b] += counts.detected[base + b];
     }
   }
@@ -71,7 +73,7 @@ function countsOf(t: ObjectTotals, classIds: readonly number[]): ObjectSizeCount
     if (!s) return;
     for (let b = 0; b < OBJECT_SIZE_BINS; b++) {
       out.objects[c * OBJECT_SIZE_BINS + b] = s.objects[b];
-      out.recallSum[c * OBJECT_SIZE_BINS + b] = s.recallSum[b];
+      out.recallSum[c * OBJECT_SIZE_BINS + b] = exactValue(s.recallSum[b]);
       out.detected[c * OBJECT_SIZE_BINS + b] = s.detected[b];
     }
   });

@@ -41,7 +41,7 @@ export function datasetSumsAdd(d: DatasetSums, result: FrameJobResult, widen: bo
   let anyFailed = false;
   for (const r of result.runs) {
     const error = result.error ?? r.error;
-    if (r.stats && !error) runSumsAdd(d.runs.get(r.run)!, r.stats, widen);
+    if (r.stats && !error) runSumsAdd(d.runs.get(r.run)!, r.stats, widen, r.extras);
     else anyFailed = true;
     const c = error ? null : r.regions?.confidence;
     if (!c) continue;

@@ -4,6 +4,7 @@
 // the label-mistake queue is ranked from.
 import type { FrameJobResult } from '../frameJob.ts';
 import { digestBandScores, frameDigestOf } from '../metrics/frameDigest.ts';
+import { extrasFrameLine } from '../metrics/extrasTotals.ts';
 import { frameSummaryOf } from '../metrics/frameSummary.ts';
 import type { SuspectCandidate } from '../suspects/suspectCandidates.ts';
 import type { TemporalFlip } from '../suspects/temporalFlip.ts';
@@ -41,6 +42,10 @@ export interface FrameRow {
   regions: number | null;
   regionPixels: number | null;
   voidSpillPixels: number | null;
+  /** Flip-back rates over non-void and void truth, and small-object recall (src/docs/metrics.md "Flicker", "Objects"); null where the report has null. */
+  flipBack: number | null;
+  flipBackVoid: number | null;
+  smallObjectRecall: number | null;
 }
 
 /** One row of regions.parquet: a listed error region of one run on one frame, or a void-spill area. */
@@ -107,6 +112,7 @@ export function frameRowsOf(frameIndex: number, result: FrameJobResult): FrameRo
       bfTruthMatched: digest ? list(digest.bfTruthMatched) : null, bfTruthTotal: digest ? list(digest.bfTruthTotal) : null,
       regions: regions ? regions.counts.all.regions : null, regionPixels: regions ? regions.counts.all.pixels : null,
       voidSpillPixels: regions ? regions.voidSpill.pixels : null,
+      ...extrasFrameLine(error ? null : r.extras),
     };
   });
 }

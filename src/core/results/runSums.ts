@@ -2,7 +2,11 @@
 // the sums of one pass over every frame, number for number: pixel counts are whole numbers in
 // Float64, and the per-frame means (frame-mean IoU, dataset BF) are exact sums (exactSum.ts).
 import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsMerge, datasetTotalsWiden, type DatasetTotals } from '../metrics/datasetTotals.ts';
+import {
+  extrasTotalsAdd, extrasTotalsCreate, extrasTotalsFromJson, extrasTotalsMerge, extrasTotalsReport, extrasTotalsToJson, type ExtrasTotals, type ExtrasTotalsJson,
+} from '../metrics/extrasTotals.ts';
 import type { FrameStats } from '../metrics/frameScore.ts';
+import type { RunExtras } from '../frameExtras.ts';
 import { boundaryFOfClass, frameBoundaryF } from '../metrics/frameSummary.ts';
 import { iouFamily } from '../metrics/iouFamily.ts';
 import { scoreReport, type ScoreReport } from '../metrics/report.ts';
@@ -17,6 +21,8 @@ export interface RunSums {
   boundaryF: bigint;
   /** Per class of totals.classIds: exact sum of the frames' BF of that class. */
   bfClass: bigint[];
+  /** Flicker, object and instance sums (src/core/metrics/extrasTotals.ts). */
+  extras: ExtrasTotals;
 }
 
 /** The sums as summary.json stores them: arrays of numbers, exact sums as decimal strings of 2^-60 units. */
@@ -33,15 +39,19 @@ export interface RunSumsJson {
   frameBoundaryF: { sum: string; count: number };
   /** Exact bfClassSum, per class. */
   bfClassExact: string[];
+  extras: ExtrasTotalsJson;
 }
 
 /** Returns empty sums over `classIds`. */
 export function runSumsCreate(classIds: readonly number[]): RunSums {
-  return { totals: datasetTotalsCreate(classIds), meanIoU: 0n, boundaryF: 0n, bfClass: classIds.map(() => 0n) };
+  return { totals: datasetTotalsCreate(classIds), meanIoU: 0n, boundaryF: 0n, bfClass: classIds.map(() => 0n), extras: extrasTotalsCreate() };
 }
 
-/** Adds one scored frame; with `widen` (no class table) ids not seen before are added first (throws past the class limit). */
-export function runSumsAdd(s: RunSums, stats: FrameStats, widen: boolean): void {
+/**
+ * Adds one scored frame and its extras (flicker, objects, instances; absent for a result without
+ * them); with `widen` (no class table) ids not seen before are added first (throws past the class limit).
+ */
+export function runSumsAdd(s: RunSums, stats: FrameStats, widen: boolean, extras?: RunExtras | null): void {
   if (widen) {
     const w = runSumsWiden(s, stats.classIds);
     if (!w.ok) throw new Error(w.error);
@@ -57,6 +67,7 @@ export function runSumsAdd(s: RunSums, stats: FrameStats, widen: boolean): void 
   const f = frameBoundaryF(stats);
   if (m !== null) s.meanIoU += exactOf(m);
   if (f !== null) s.boundaryF += exactOf(f);
+  if (extras) extrasTotalsAdd(s.extras, extras, stats.classIds);
 }
 
 /** Widens the sums to the ascending union of their class ids and `ids` (a dataset without a class table). */
@@ -83,13 +94,14 @@ export function runSumsMerge(into: RunSums, from: RunSums, widen: boolean): Resu
   if (!merged.ok) return merged;
   const bfClass = into.bfClass.map((v, i) => v + from.bfClass[i]);
   merged.value.bfClassSum.set(bfClass.map(exactValue));
-  return ok({ totals: merged.value, meanIoU: into.meanIoU + from.meanIoU, boundaryF: into.boundaryF + from.boundaryF, bfClass });
+  return ok({ totals: merged.value, meanIoU: into.meanIoU + from.meanIoU, boundaryF: into.boundaryF + from.boundaryF, bfClass, extras: extrasTotalsMerge(into.extras, from.extras) });
 }
 
 /** Returns the report's `dataset` block of these sums (src/docs/metrics.md "What the scorer prints"). */
 export function runSumsDataset(s: RunSums, settings: ScoreSettings): ScoreReport['dataset'] {
   const t = { ...s.totals, frameMeanIoUSum: exactValue(s.meanIoU), frameBFSum: exactValue(s.boundaryF) };
-  return scoreReport([], settings, t, []).dataset;
+  const dataset = scoreReport([], settings, t, []).dataset;
+  return Object.assign(dataset, extrasTotalsReport(s.extras, t.classIds, dataset.perClass.map((c) => c.fp)));
 }
 
 /** Returns the sums as JSON data. */
@@ -101,6 +113,7 @@ export function runSumsToJson(s: RunSums): RunSumsJson {
     frameMeanIoU: { sum: s.meanIoU.toString(), count: t.frameMeanIoUCount },
     frameBoundaryF: { sum: s.boundaryF.toString(), count: t.frameBFCount },
     bfClassExact: s.bfClass.map((v) => v.toString()),
+    extras: extrasTotalsToJson(s.extras),
   };
 }
 
@@ -123,7 +136,8 @@ export function runSumsFromJson(j: RunSumsJson, where: string): Result<RunSums> 
     totals.frameBFSum = exactValue(boundaryF);
     if (!Array.isArray(j.bfClassExact) || j.bfClassExact.length !== j.classIds.length) return fail(where, 'sums "bfClassExact" missing or of the wrong length');
     const bfClass = j.bfClassExact.map((v) => BigInt(v));
-    return ok({ totals, meanIoU, boundaryF, bfClass });
+    if (!j.extras) return fail(where, 'sums "extras" missing (a results folder written before flicker and object scores; score it again)');
+    return ok({ totals, meanIoU, boundaryF, bfClass, extras: extrasTotalsFromJson(j.extras) });
   } catch (e) {
     return fail(where, `unreadable sums (${(e as Error).message})`);
   }
