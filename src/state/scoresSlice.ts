@@ -2,6 +2,7 @@ import type { StateCreator } from 'zustand/vanilla';
 import type { FrameJobResult, FrameRunResult } from '../core/frameJob.ts';
 import { dictCreate, dictFrom } from '../core/dict.ts';
 import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';
+import { extrasTotalsAdd, extrasTotalsCreate, type ExtrasTotals } from '../core/metrics/extrasTotals.ts';
 import { frameDigestOf, type FrameDigest } from '../core/metrics/frameDigest.ts';
 import type { AppState } from './store.ts';
 
@@ -36,6 +37,8 @@ export interface ScoresSlice {
   totals: Record<string, DatasetTotals>;
   /** Class ids totals are kept over, or null when there is no class table (ids join as they appear). */
   totalsClassIds: number[] | null;
+  /** Per run: flicker, object and instance sums over the frames scored so far (as totals, mutated in place). */
+  extrasTotals: Record<string, ExtrasTotals>;
   scoringStart(generation: number, total: number, classIds: number[] | null): void;
   /** Takes finished frames of pass `generation` (frames of an older pass are dropped). */
   scoringFramesDone(generation: number, done: { index: number; result: FrameJobResult }[]): void;
@@ -53,6 +56,7 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
   resultsVersion: 0,
   totals: dictCreate(),
   totalsClassIds: null,
+  extrasTotals: dictCreate(),
   scoringStart: (generation, total, classIds) =>
     set({
       scoring: { generation, total, done: 0, failed: 0, startedAt: Date.now(), finishedAt: total === 0 ? Date.now() : null },
@@ -60,9 +64,10 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
       resultsVersion: get().resultsVersion + 1,
       totals: dictCreate(),
       totalsClassIds: classIds,
+      extrasTotals: dictCreate(),
     }),
   scoringFramesDone: (generation, batch) => {
-    const { scoring, results, totals, totalsClassIds } = get();
+    const { scoring, results, totals, totalsClassIds, extrasTotals } = get();
     if (generation !== scoring.generation) return;
     const next = results.slice();
     const nextTotals = dictFrom(totals);
@@ -80,6 +85,7 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
         }
         datasetTotalsAdd(t, r.stats);
         nextTotals[r.run] = t;
+        if (r.extras) extrasTotalsAdd((extrasTotals[r.run] ??= extrasTotalsCreate()), r.extras, r.stats.classIds);
         return { ...r, stats: frameDigestOf(r.stats) };
       });
       next[index] = { ...result, runs };

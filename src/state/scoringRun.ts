@@ -4,6 +4,7 @@ import type { Result } from '../core/result.ts';
 import { scoringTableBuild } from '../core/scoringTable.ts';
 import type { FrameJobResult } from '../core/frameJob.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
+import { sequencePlaces, type SequencePlace } from '../core/temporal/sequences.ts';
 import type { FrameFiles } from '../data/pairing.ts';
 import type { DatasetSource } from '../data/sources/source.ts';
 import { JobCancelled } from '../workers/pool.ts';
@@ -35,18 +36,24 @@ export function frameBlobOf(source: DatasetSource, folder: string, path: string 
   return path === null ? Promise.resolve(null) : fileBlobOf(`${folder}/${path}`, () => source.read(folder, path));
 }
 
-/** Returns the worker request for one frame, reading its files from the source. */
+/**
+ * Returns the worker request for one frame, reading its files from the source: with each run's
+ * predictions at the frame's neighbours in its sequence (`place`, for flicker) and its instance map.
+ */
 export async function frameScoreRequest(
-  dataset: LoadedDataset, frame: FrameFiles, table: ClassTable, settings: ScoreSettings,
+  dataset: LoadedDataset, frame: FrameFiles, table: ClassTable, settings: ScoreSettings, place: SequencePlace,
 ): Promise<FrameScoreRequest> {
   const { source, pairing } = dataset;
+  const predAt = (run: string, i: number | null) => (i === null ? Promise.resolve(null) : frameBlobOf(source, `predictions/${run}`, pairing.frames[i].predictions[run]));
+  const neighbours = await Promise.all(pairing.runs.map(async (run) => ({ run, prev: await predAt(run, place.prev), next: await predAt(run, place.next) })));
+  const instances = await frameBlobOf(source, 'instances', frame.instance ?? null);
   const truth = (await frameBlobOf(source, 'truth', frame.truth))!;
   const preds = await Promise.all(pairing.runs.map(async (run) => ({ run, file: await frameBlobOf(source, `predictions/${run}`, frame.predictions[run]) })));
   const photo = await frameBlobOf(source, 'images', frame.image);
   const confidence = await Promise.all(
     Object.entries(frame.confidence).map(async ([run, path]) => ({ run, file: await frameBlobOf(source, `confidence/${run}`, path) })),
   );
-  return { name: frame.name, truth, preds, photo, confidence, table, settings };
+  return { name: frame.name, truth, preds, photo, confidence, neighbours, instances, table, settings };
 }
 
 function failedResult(frame: FrameFiles, runs: string[], error: string): FrameJobResult {
@@ -93,6 +100,7 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     if (!dataset || !built || frames.length === 0) return;
     // A refused void id fails every frame with the refusal, as the command line refuses to start.
     if (!built.ok) return frames.forEach((f, i) => deliver(gen, i, failedResult(f, dataset.pairing.runs, built.error)));
+    const places = sequencePlaces(frames.map((f) => f.name));
     const order = frames.map((_, i) => i);
     const first = Math.min(frameIndex, frames.length - 1);
     order.splice(first, 1);
@@ -104,7 +112,7 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
       const frame = frames[index];
       let result: FrameJobResult;
       try {
-        const req = await frameScoreRequest(dataset, frame, built.value, settings);
+        const req = await frameScoreRequest(dataset, frame, built.value, settings, places[index]);
         if (gen !== generation) return;
         result = await pool.run(SCORE_COMMANDS.frameScore, req);
       } catch (e) {

@@ -6,7 +6,7 @@ import { buffersOf, type JobOutput } from './protocol.ts';
 export const demoJobs = {
   demoFrame(input: { index: number; options: DemoOptions }): JobOutput<DemoFrame> {
     const f = demoFrame(input.index, input.options);
-    return { value: f, transfer: buffersOf(f.photoPng, f.truthPng, f.predPngs['run-a'], f.predPngs['run-b']) };
+    return { value: f, transfer: buffersOf(f.photoPng, f.truthPng, f.instancesPng, f.predPngs['run-a'], f.predPngs['run-b']) };
   },
 };
 

@@ -5,6 +5,7 @@ import { labelMapToPng } from '../../src/core/png/encode.ts';
 import type { DatasetSource } from '../../src/data/sources/source.ts';
 import { datasetFromSource, datasetInstall } from '../../src/state/datasetLoad.ts';
 import { scoringKeep } from '../../src/state/scoringRun.ts';
+import { stateReport } from '../../src/state/stateReport.ts';
 import { appStoreCreate, type AppStore } from '../../src/state/store.ts';
 import { workerPoolCreate } from '../../src/workers/pool.ts';
 import type { ScorePool } from '../../src/workers/scorePool.ts';
@@ -102,5 +103,34 @@ describe('scoringKeep: the pipeline that keeps scores in step with the dataset a
     const s = store.getState();
     expect(s.scoring.failed).toBe(3);
     for (const r of s.results) expect(r!.error).toBe('void id 1 is the id of class "b" in classes.json; choose another void id');
+  });
+
+  it('passes each run\'s neighbouring predictions and the instance map to the frame jobs: the page\'s report has flicker, objects and iIoU', async () => {
+    // Hand-worked (src/docs/metrics.md "Flicker"): truth 0 0 1 1 / 0 0 1 1 on three frames of one
+    // sequence; the prediction of s2 differs from s1 and s3 (which agree) at one pixel of truth 0, so
+    // s2 flips back 1 of its 8 non-void pixels and the sequence ends have no value. Instances: ids 1
+    // on the class-1 pixels (one instance of 4 pixels, all predicted right: iIoU of class 1 = its IoU
+    // without false positives, 4 / (4 + fp)).
+    pool = workerPoolCreate<ScoreJobs>(() => threadPortCreate(ENTRY), 1);
+    const store = appStoreCreate();
+    stop = scoringKeep(store, pool);
+    const steady = png([0, 0, 1, 1, 0, 0, 1, 1], 4), flipped = png([0, 1, 1, 1, 0, 0, 1, 1], 4);
+    const inst = new Blob([labelMapToPng({ width: 4, height: 2, ids: Uint16Array.from([0, 0, 1, 1, 0, 0, 1, 1]) }, { kind: 'gray', bitDepth: 16 }) as BlobPart]);
+    const base = sourceMake(['s1', 's2', 's3']);
+    const source: DatasetSource = {
+      ...base,
+      listing: { ...base.listing, instances: ['s1.png', 's2.png', 's3.png'] },
+      read: async (folder, path) => (folder === 'truth' ? steady : folder === 'instances' ? inst : path === 's2.png' ? flipped : steady),
+    };
+    datasetInstall(store, datasetFromSource(source));
+    await settled(store);
+    const report = stateReport(store.getState(), 'r')!;
+    expect(report.frames.map((f) => f.flipBack)).toEqual([null, 1 / 8, null]);
+    expect(report.frames.map((f) => f.flipBackVoid)).toEqual([null, null, null]);
+    expect(report.dataset.flipBack).toBe(1 / 8);
+    // Class 1 over three frames: 12 truth pixels all predicted right, 1 false positive (s2) → 12 / 13.
+    expect(report.dataset.iIoU!.perClass.find((c) => c.id === 1)!.value).toBeCloseTo(12 / 13, 12);
+    // Objects: per frame one class-0 object of 4 pixels and one class-1 object of 4; s2 misses 1 of class 0's.
+    expect(report.dataset.objectsBySize![0]).toEqual({ minArea: 1, maxArea: 16, objects: 6, meanRecall: (6 - 0.25) / 6, detected: 1 });
   });
 });

@@ -34,7 +34,7 @@ export function demoSourceOpen(options: DemoOptions = { ...DEMO_DEFAULTS }, work
       p = pool.run('demoFrame', { index, options }).then((f) => {
         done++;
         const png = (b: Uint8Array) => new Blob([b as BlobPart], { type: 'image/png' });
-        const files: Record<string, Blob> = { images: png(f.photoPng), truth: png(f.truthPng) };
+        const files: Record<string, Blob> = { images: png(f.photoPng), truth: png(f.truthPng), instances: png(f.instancesPng) };
         for (const run of DEMO_RUNS) files[`predictions/${run}`] = png(f.predPngs[run]);
         return files;
       });
@@ -51,7 +51,7 @@ export function demoSourceOpen(options: DemoOptions = { ...DEMO_DEFAULTS }, work
     kind: 'demo',
     title: 'Kestrel Quay demo',
     options,
-    listing: { images: names.map(file), truth: names.map(file), predictions, confidence: {} },
+    listing: { images: names.map(file), truth: names.map(file), instances: names.map(file), predictions, confidence: {} },
     classesText: JSON.stringify(demoClassesJson()),
     generated: () => done,
     close() {
