@@ -4,6 +4,7 @@
 import { spawnSync } from 'node:child_process';
 
 const ALL: [string, string, string[]][] = [
+  ['endToEnd', 'test/bench/endToEnd.bench.ts', []],
   ['metrics', 'test/bench/metrics.bench.ts', []],
   ['pngDecode', 'test/bench/pngDecode.bench.ts', []],
   ['scoreCli', 'test/bench/scoreCli.bench.ts', []],
