@@ -10,6 +10,7 @@ import { flagsSelect } from '../core/review/flagsFilter.ts';
 import { flagsFileParse } from '../core/review/flagsFile.ts';
 import { UsageError } from './args.ts';
 import { EXPORT_USAGE, exportOptionsParse, type ExportOptions } from './exportArgs.ts';
+import './nodeInflate.ts'; // zlib's inflate for every PNG the exporter reads
 import { exportDatasetOpen, exportSourceFromFolders } from './exportFrames.ts';
 import { outputOpen, type OutputFile } from './outputFile.ts';
 import { termText } from './termText.ts';

@@ -4,6 +4,7 @@ import { regionScratchCreate } from '../core/regions/regionScratch.ts';
 import { frameResultBuffers, frameScoreRun, type FrameScoreFiles } from '../workers/frameScoreRun.ts';
 import type { JobOutput } from '../workers/protocol.ts';
 import { diskFileReader, type FilePath } from './diskFiles.ts';
+import './nodeInflate.ts'; // zlib's inflate for every PNG this thread reads
 
 /** Input of the scoring thread's `frameScore`: the frame's files as paths (PNG and JPEG photos decoded). */
 export type FrameScorePaths = FrameScoreFiles<FilePath>;

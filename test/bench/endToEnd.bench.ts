@@ -26,6 +26,7 @@ import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
 import { regionScratchCreate } from '../../src/core/regions/regionScratch.ts';
 import { harbourPrediction, harbourTruth, HARBOUR_CLASSES, HARBOUR_VOID } from '../support/harbourScene.ts';
+import '../../src/cli/nodeInflate.ts'; // decode as the command line's threads do
 
 const W = 2048, H = 1024, N = W * H, DISTINCT = 4;
 const args = process.argv.slice(2).filter((a) => !a.startsWith('--'));

@@ -10,6 +10,8 @@ import { DEFAULT_SCORE_SETTINGS } from '../../../src/core/metrics/settings.ts';
 import { labelMapFromPng, type DecodedLabelMap } from '../../../src/core/png/decodeLabel.ts';
 import { photoFromPng } from '../../../src/core/png/decodePhoto.ts';
 import { referenceDecode } from './pngReference.ts';
+import { pngPlatformInflateUse } from '../../../src/core/png/inflate.ts';
+import { nodeInflate } from '../../../src/cli/nodeInflate.ts';
 
 const DIR = join(import.meta.dirname, 'corpus');
 
@@ -67,6 +69,11 @@ describe('malformed PNG corpus', () => {
       const bytes = new Uint8Array(readFileSync(join(DIR, name)));
       const file = `truth/${name}`;
       const r = labelMapFromPng(bytes, { file });
+      // With node:zlib's inflate first (the command line's threads): the same outcome, byte for byte.
+      pngPlatformInflateUse(nodeInflate);
+      const native = labelMapFromPng(bytes, { file });
+      pngPlatformInflateUse(null);
+      expect(native.ok ? Array.from(native.value.ids) : native.error).toEqual(r.ok ? Array.from(r.value.ids) : r.error);
       const want = EXPECTED[name];
       if (want instanceof RegExp) {
         expect(r.ok ? 'decoded' : r.error).toMatch(new RegExp(`^truth/${name.replace('.', '\\.')}: `));

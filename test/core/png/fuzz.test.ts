@@ -12,7 +12,8 @@ import { photoFromPng } from '../../../src/core/png/decodePhoto.ts';
 import { pngRawSize } from '../../../src/core/png/adam7.ts';
 import { labelMapToPng } from '../../../src/core/png/encode.ts';
 import { pngBitsPerPixel, pngHeaderRead } from '../../../src/core/png/header.ts';
-import { pngInflate } from '../../../src/core/png/inflate.ts';
+import { pngInflate, pngPlatformInflateUse } from '../../../src/core/png/inflate.ts';
+import { nodeInflate } from '../../../src/cli/nodeInflate.ts';
 import { type Result } from '../../../src/core/result.ts';
 import { FUZZ_RGB_TABLE, fuzzBases, type FuzzBase } from './fuzzBases.ts';
 import { testChunksOf, testDeflateBomb } from './pngChunks.ts';
@@ -119,7 +120,7 @@ describe(`fuzz: ${MUTANTS} mutants of ${bases.length} valid label PNGs (seed ${S
     expect(problems).toEqual([]);
   });
 
-  it('the one-call and the stepped inflate give the same answer for every mutant stream', () => {
+  it('the one-call (fflate and node:zlib) and the stepped inflate give the same answer for every mutant stream', () => {
     const problems: string[] = [];
     let compared = 0;
     mutants.forEach(({ m }, i) => {
@@ -137,9 +138,15 @@ describe(`fuzz: ${MUTANTS} mutants of ${bases.length} valid label PNGs (seed ${S
       const total = parts.reduce((n, p) => n + p.length, 0);
       const whole = pngInflate(parts, total, expected, 'f', true);
       const stepped = pngInflate(parts, total, expected, 'f', false);
+      // The platform's inflate (node:zlib, as the command line's threads use) first: the same answer again.
+      pngPlatformInflateUse(nodeInflate);
+      const native = pngInflate(parts, total, expected, 'f', true);
+      pngPlatformInflateUse(null);
       compared++;
-      const same = whole.ok && stepped.ok ? whole.value.every((v, k) => v === stepped.value[k]) && whole.value.length === stepped.value.length : !whole.ok && !stepped.ok && whole.error === stepped.error;
-      if (!same) problems.push(`#${i} ${m.ops}: whole ${whole.ok ? 'ok' : whole.error} / stepped ${stepped.ok ? 'ok' : stepped.error}`);
+      const agree = (a: typeof whole) => a.ok && stepped.ok ? a.value.length === stepped.value.length && a.value.every((v, k) => v === stepped.value[k]) : !a.ok && !stepped.ok && a.error === stepped.error;
+      if (!agree(whole) || !agree(native)) {
+        problems.push(`#${i} ${m.ops}: whole ${whole.ok ? 'ok' : whole.error} / node:zlib ${native.ok ? 'ok' : native.error} / stepped ${stepped.ok ? 'ok' : stepped.error}`);
+      }
     });
     expect(problems).toEqual([]);
     expect(compared).toBeGreaterThan(MUTANTS / 2);
