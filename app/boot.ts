@@ -5,6 +5,7 @@ import type { LayerSettings } from '../src/core/composite/layerSettings.ts';
 import { layerSettingsSel } from '../src/state/selectors.ts';
 import type { ScoreReport } from '../src/core/metrics/report.ts';
 import { stateReport } from '../src/state/stateReport.ts';
+import { servedResultsFiles } from '../src/data/results/resultsRead.ts';
 import { servedSourceOpen } from '../src/data/sources/servedSource.ts';
 import { scoringKeep } from '../src/state/scoringRun.ts';
 import { shownKeep } from '../src/state/shownKeep.ts';
@@ -59,8 +60,12 @@ async function datasetOpenInitial(store: AppStore, fromUrl: UrlView): Promise<vo
   try {
     const served = await servedSourceOpen();
     if (served) {
+      // npm start -- DATASET --results DIR: its tables are shown at once instead of scoring again.
+      const results = await servedResultsFiles();
+      if (results) s.storedLoadingSet(`Reading results ${results.title}…`);
       commandRun({ store, viewer: null }, APP_COMMANDS['dataset.open'], served);
       if (fromUrl.dataset === 'served') urlViewApply(store, fromUrl);
+      if (results) await commandRun({ store, viewer: null }, APP_COMMANDS['results.open'], results);
       return;
     }
     const demo = demoOptionsFromQuery(new URLSearchParams(location.search));

@@ -1,6 +1,6 @@
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
-import { realpath } from 'node:fs/promises';
-import { join } from 'node:path';
+import { readdir, realpath, stat } from 'node:fs/promises';
+import { basename, join } from 'node:path';
 import { datasetIndexCache, type DatasetIndex } from './datasetIndex.ts';
 import { DATASET_HEADERS, datasetFileHeaders, pathResolveInside, sendError, sendFile } from './serveFiles.ts';
 
@@ -23,6 +23,8 @@ export interface AppServerOptions {
   appDir: string;
   /** Dataset folder to serve read-only under /dataset/, or null. */
   datasetDir: string | null;
+  /** Results folder (npm run score --results) to serve read-only under /results/, or null. */
+  resultsDir?: string | null;
   port: number;
 }
 
@@ -30,6 +32,7 @@ export interface AppServerOptions {
 interface Served {
   appReal: string;
   dataReal: string | null;
+  resultsReal: string | null;
   /** Host header values this server answers (lower case); any other is refused (DNS rebinding). */
   hosts: Set<string>;
   index: (() => Promise<DatasetIndex>) | null;
@@ -44,7 +47,8 @@ export async function appServerStart(
 ): Promise<{ server: Server; url: string; skipped: () => Promise<DatasetIndex['skipped']> }> {
   const appReal = await realpath(options.appDir);
   const dataReal = options.datasetDir ? await realpath(options.datasetDir) : null;
-  const served: Served = { appReal, dataReal, hosts: new Set(), index: dataReal ? datasetIndexCache(dataReal) : null };
+  const resultsReal = options.resultsDir ? await realpath(options.resultsDir) : null;
+  const served: Served = { appReal, dataReal, resultsReal, hosts: new Set(), index: dataReal ? datasetIndexCache(dataReal) : null };
   const server = createServer((req, res) => {
     handle(req, res, served).catch((e) => {
       if (!res.headersSent) sendError(res, 500, `server error: ${(e as Error).message}`);
@@ -100,10 +104,38 @@ async function handle(req: IncomingMessage, res: ServerResponse, served: Served)
     return sendFile(res, r.path, head, 'no-cache', datasetFileHeaders(r.path));
   }
   if (path.startsWith('/dataset')) return sendError(res, 404, 'not found');
+  if (path.startsWith('/results/')) return resultsHandle(req, res, served.resultsReal, path.slice('/results/'.length), head);
 
   const r = await pathResolveInside(appReal, path);
   if (!r.ok && r.status !== 404) return sendError(res, r.status, r.reason);
   if (r.ok && r.path !== appReal) return sendFile(res, r.path, head, path.startsWith('/assets/') ? 'public, max-age=31536000, immutable' : 'no-cache');
   if (/\.[a-z0-9]+$/i.test(path)) return sendError(res, 404, 'not found');
   return sendFile(res, join(appReal, 'index.html'), head, 'no-cache');
+}
+
+/**
+ * The results folder: `index.json` names it and gives each file's size (title and files null when
+ * none is served); `file/NAME` sends one file of the folder itself, with byte ranges.
+ */
+async function resultsHandle(req: IncomingMessage, res: ServerResponse, dir: string | null, rest: string, head: boolean): Promise<void> {
+  for (const [k, v] of Object.entries(DATASET_HEADERS)) res.setHeader(k, v);
+  if (rest === 'index.json') {
+    const files: Record<string, number> = {};
+    if (dir) {
+      for (const name of await readdir(dir)) {
+        const info = await stat(join(dir, name)).catch(() => null);
+        if (info?.isFile()) files[name] = info.size;
+      }
+    }
+    res.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
+    return void res.end(head ? undefined : JSON.stringify(dir ? { title: basename(dir), files } : { title: null, files: null }));
+  }
+  if (!dir) return sendError(res, 404, 'no results folder was given to npm start (--results DIR)');
+  if (!rest.startsWith('file/')) return sendError(res, 404, 'not found');
+  const name = rest.slice('file/'.length);
+  // One file of the folder itself: no sub-folders, and nothing a link leads to outside it.
+  if (!name || name.includes('/') || name.includes('%2F') || name.includes('%2f')) return sendError(res, 404, 'not found');
+  const r = await pathResolveInside(dir, name);
+  if (!r.ok) return sendError(res, r.status, r.reason);
+  return sendFile(res, r.path, head, 'no-cache', {}, req.headers.range);
 }

@@ -15,7 +15,7 @@ import { shardParse, shardRange } from './shard.ts';
 const SHOWN = 20;
 
 /** Returns the dataset's identity: a digest of its runs and every frame name in order (the same for every shard). */
-export function datasetIdOf(ds: ScoreDataset): string {
+export function datasetIdOf(ds: { pairing: { runs: readonly string[]; frames: readonly { name: string }[] } }): string {
   const h = createHash('sha256');
   h.update(JSON.stringify(ds.pairing.runs));
   for (const f of ds.pairing.frames) h.update(`\n${f.name}`);

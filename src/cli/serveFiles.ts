@@ -94,6 +94,7 @@ export async function sendFile(
   head: boolean,
   cache: string,
   headers: Record<string, string> = {},
+  range: string | undefined = undefined,
 ): Promise<void> {
   let info;
   try {
@@ -102,12 +103,23 @@ export async function sendFile(
     return sendError(res, 404, 'not found');
   }
   if (!info.isFile()) return sendError(res, 404, 'not found');
-  res.writeHead(200, {
-    'content-type': TYPES[extname(path).toLowerCase()] ?? 'application/octet-stream',
-    'content-length': String(info.size),
-    'cache-control': cache,
-    ...headers,
-  });
+  const base = { 'content-type': TYPES[extname(path).toLowerCase()] ?? 'application/octet-stream', 'cache-control': cache, 'accept-ranges': 'bytes', ...headers };
+  // One byte range (`bytes=a-b`, `bytes=a-`, `bytes=-n`) when asked: a reader of large tables fetches only the parts it needs.
+  const m = range ? /^bytes=(\d*)-(\d*)$/.exec(range.trim()) : null;
+  if (range && (!m || (m[1] === '' && m[2] === ''))) return sendError(res, 416, 'only one byte range of the form bytes=a-b is served');
+  if (m) {
+    const size = info.size;
+    const start = m[1] === '' ? Math.max(0, size - Number(m[2])) : Number(m[1]);
+    const end = m[1] === '' || m[2] === '' ? size - 1 : Math.min(size - 1, Number(m[2]));
+    if (start > end || start >= size) {
+      res.writeHead(416, { 'content-range': `bytes */${size}` });
+      return void res.end();
+    }
+    res.writeHead(206, { ...base, 'content-length': String(end - start + 1), 'content-range': `bytes ${start}-${end}/${size}` });
+    if (head) return void res.end();
+    return void createReadStream(path, { start, end }).on('error', () => res.destroy()).pipe(res);
+  }
+  res.writeHead(200, { ...base, 'content-length': String(info.size) });
   if (head) return void res.end();
   createReadStream(path).on('error', () => res.destroy()).pipe(res);
 }

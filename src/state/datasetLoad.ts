@@ -50,6 +50,7 @@ export function datasetInstall(store: AppStore, dataset: LoadedDataset, frameInd
   store.setState({ frameIndex: 0, place: null });
   s.runsSet({ runA: runs[0] ?? null, runB: null });
   s.layersSet({ curtain: { on: false, x: 0 } });
+  s.storedSet(null);
   s.datasetSet(dataset);
   store.getState().frameIndexSet(frameIndex);
 }

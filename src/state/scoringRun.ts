@@ -88,8 +88,44 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     flushTimer ??= setTimeout(flush, 60);
   };
 
+  /** Scores frame `index` in the pool and delivers it (a failure as a failed frame) unless pass `gen` is over. */
+  let placesOf: { dataset: LoadedDataset; places: ReturnType<typeof sequencePlaces> } | null = null;
+  const scoreOne = async (gen: number, dataset: LoadedDataset, table: ClassTable, settings: ScoreSettings, index: number): Promise<void> => {
+    const frame = dataset.pairing.frames[index];
+    if (placesOf?.dataset !== dataset) placesOf = { dataset, places: sequencePlaces(dataset.pairing.frames.map((f) => f.name)) };
+    let result: FrameJobResult;
+    try {
+      const req = await frameScoreRequest(dataset, frame, table, settings, placesOf.places[index]);
+      if (gen !== generation) return;
+      result = await pool.run(SCORE_COMMANDS.frameScore, req);
+    } catch (e) {
+      if (e instanceof JobCancelled || gen !== generation) return;
+      result = failedResult(frame, dataset.pairing.runs, `${frame.name}: ${(e as Error).message}`);
+    }
+    if (gen === generation) deliver(gen, index, result);
+  };
+
+  // With a results folder open only the frame on screen is scored (to check it against its stored
+  // row); one job at a time, the latest frame asked for next.
+  let liveBusy = false;
+  let liveWanted = -1;
+  const live = (gen: number, index: number, run: (index: number) => Promise<void>) => {
+    liveWanted = index;
+    if (liveBusy) return;
+    const next = async (): Promise<void> => {
+      while (gen === generation && liveWanted >= 0) {
+        const i = liveWanted;
+        liveWanted = -1;
+        if (store.getState().results[i] || (pendingGen === gen && pending.some((p) => p.index === i))) continue;
+        await run(i);
+      }
+    };
+    liveBusy = true;
+    void next().finally(() => (liveBusy = false));
+  };
+
   function restart(): void {
-    const { dataset, settings, frameIndex } = store.getState();
+    const { dataset, settings, frameIndex, stored, storedLoading } = store.getState();
     pool.cancelAll();
     generation++;
     const gen = generation;
@@ -97,10 +133,15 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     const built = dataset ? scoringTableResult(dataset, settings) : null;
     const table = built?.ok ? built.value : null;
     store.getState().scoringStart(gen, frames.length, table && !table.generated ? table.classes.map((c) => c.id) : null);
-    if (!dataset || !built || frames.length === 0) return;
+    // While a results folder opens nothing is scored: its tables are about to give every score.
+    if (!dataset || !built || frames.length === 0 || storedLoading) return;
     // A refused void id fails every frame with the refusal, as the command line refuses to start.
     if (!built.ok) return frames.forEach((f, i) => deliver(gen, i, failedResult(f, dataset.pairing.runs, built.error)));
-    const places = sequencePlaces(frames.map((f) => f.name));
+    const runOne = (index: number) => scoreOne(gen, dataset, built.value, settings, index);
+    if (stored) {
+      liveBusy = false;
+      return live(gen, Math.min(frameIndex, frames.length - 1), runOne);
+    }
     const order = frames.map((_, i) => i);
     const first = Math.min(frameIndex, frames.length - 1);
     order.splice(first, 1);
@@ -108,29 +149,24 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     let next = 0;
     const window = Math.max(1, pool.size * 2);
 
-    const runOne = async (index: number): Promise<void> => {
-      const frame = frames[index];
-      let result: FrameJobResult;
-      try {
-        const req = await frameScoreRequest(dataset, frame, built.value, settings, places[index]);
-        if (gen !== generation) return;
-        result = await pool.run(SCORE_COMMANDS.frameScore, req);
-      } catch (e) {
-        if (e instanceof JobCancelled || gen !== generation) return;
-        result = failedResult(frame, dataset.pairing.runs, `${frame.name}: ${(e as Error).message}`);
-      }
-      if (gen === generation) deliver(gen, index, result);
-    };
     const lane = async (): Promise<void> => {
       while (gen === generation && next < order.length) await runOne(order[next++]);
     };
     for (let i = 0; i < window; i++) void lane();
   }
 
-  const unsubscribe = store.subscribe((s) => [s.dataset, s.settings] as const, restart, { equalityFn: shallow });
+  const unsubscribe = store.subscribe((s) => [s.dataset, s.settings, s.stored, s.storedLoading] as const, restart, { equalityFn: shallow });
+  const unsubscribeFrame = store.subscribe((s) => s.frameIndex, (index) => {
+    const { dataset, stored, settings } = store.getState();
+    const built = dataset && stored ? scoringTableResult(dataset, settings) : null;
+    if (!dataset || !built?.ok || index >= dataset.pairing.frames.length) return;
+    const gen = generation;
+    live(gen, index, (i) => scoreOne(gen, dataset, built.value, settings, i));
+  });
   if (store.getState().dataset) restart();
   return () => {
     unsubscribe();
+    unsubscribeFrame();
     generation++;
     pool.cancelAll();
   };

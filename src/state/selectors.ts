@@ -12,6 +12,7 @@ import { frameOrderOf, frameRowOf, type FrameRow } from './frameRows.ts';
 import { datasetScope, frameScope, type ScopeScores } from './scopeScores.ts';
 import type { StoredFrame } from './scoresSlice.ts';
 import { scoringTableOf } from './scoringRun.ts';
+import { liveCheckOf, storedRowOf, storedStaleOf, type LiveCheck } from './storedResults.ts';
 import type { AppState } from './store.ts';
 
 type Sel<T> = (s: AppState) => T;
@@ -55,18 +56,25 @@ export const shownRunSel: Sel<string | null> = (s) => s.runA ?? s.dataset?.pairi
  * frame whose result is unchanged keeps its row, so a batch of finished frames costs only its own rows.
  */
 export const frameRowsSel: Sel<FrameRow[]> = (() => {
-  let last: { dataset: AppState['dataset']; results: AppState['results']; run: string | null; w: number; rows: FrameRow[] } | null = null;
+  let last: { dataset: AppState['dataset']; results: AppState['results']; stored: AppState['stored']; run: string | null; w: number; rows: FrameRow[] } | null = null;
   return (s: AppState) => {
-    const { dataset, results, bandWidth: w } = s;
+    const { dataset, results, stored, bandWidth: w } = s;
     const run = shownRunSel(s);
-    if (last && last.dataset === dataset && last.results === results && last.run === run && last.w === w) return last.rows;
-    const reuse = last && last.dataset === dataset && last.run === run && last.w === w ? last : null;
+    // Stored results give every row from their columns; the band column is the table's width then.
+    if (stored) {
+      if (last && last.dataset === dataset && last.stored === stored && last.run === run) return last.rows;
+      const rows = (dataset?.pairing.frames ?? []).map((f, i) => storedRowOf(stored, run, i, f.name));
+      last = { dataset, results, stored, run, w, rows };
+      return rows;
+    }
+    if (last && last.dataset === dataset && !last.stored && last.results === results && last.run === run && last.w === w) return last.rows;
+    const reuse = last && last.dataset === dataset && !last.stored && last.run === run && last.w === w ? last : null;
     const frames = dataset?.pairing.frames ?? [];
     const rows = frames.map((f, i) => {
       const r: StoredFrame | undefined = results[i];
       return reuse && reuse.results[i] === r && reuse.rows[i] ? reuse.rows[i] : frameRowOf(i, f.name, r, run, w);
     });
-    last = { dataset, results, run, w, rows };
+    last = { dataset, results, stored: null, run, w, rows };
     return rows;
   };
 })();
@@ -81,8 +89,19 @@ export const frameOrderSel: Sel<number[]> = selectorOf(
  * Returns the likely-label-mistake queue over the frames scored so far (most likely first), the same
  * pass the headless scorer runs; rebuilt only when frames land or the class names change.
  */
-export const suspectsSel: Sel<Suspect[]> = selectorOf([datasetIn, resultsIn, classNameSel], (dataset, results, name) =>
-  dataset ? suspectQueueOfResults(results, name, SUSPECT_DEFAULTS) : [],
+export const suspectsSel: Sel<Suspect[]> = selectorOf([datasetIn, resultsIn, (s: AppState) => s.stored, classNameSel], (dataset, results, stored, name) =>
+  !dataset ? [] : stored ? stored.queue : suspectQueueOfResults(results, name, SUSPECT_DEFAULTS),
+);
+
+/** Returns how the settings differ from those of the opened results folder (empty while its scores hold, or without one). */
+export const storedStaleSel: Sel<string[]> = selectorOf([(s: AppState) => s.stored, (s: AppState) => s.settings], (stored, settings) =>
+  stored ? storedStaleOf(stored, settings) : [],
+);
+
+/** Returns the live score of the frame on screen checked against its stored row (null without a results folder). */
+export const liveCheckSel: Sel<LiveCheck | null> = selectorOf(
+  [(s: AppState) => s.stored, shownRunSel, (s: AppState) => s.frameIndex, (s: AppState) => s.results[s.frameIndex]],
+  (stored, run, index, live) => (stored ? liveCheckOf(stored, run, index, live) : null),
 );
 
 /** Dataset and current-frame scores of one run at the band width. */
@@ -94,9 +113,9 @@ export interface RunScopes {
 function runScopesSelOf(runOf: Sel<string | null>): Sel<RunScopes> {
   // Totals are summed in place as frames land (large arrays kept by reference); resultsVersion says when.
   const datasetSel = selectorOf(
-    [runOf, (s: AppState) => s.totals, (s: AppState) => s.resultsVersion, classInfoSel, bandWidthIn],
-    (run, totals, _version, classes, w) => {
-      const t = run ? totals[run] : undefined;
+    [runOf, (s: AppState) => s.totals, (s: AppState) => s.resultsVersion, (s: AppState) => s.stored, classInfoSel, bandWidthIn],
+    (run, totals, _version, stored, classes, w) => {
+      const t = run ? (stored ? stored.totals : totals)[run] : undefined;
       return t && t.frames > 0 ? datasetScope(t, classes, w) : null;
     },
   );

@@ -5,10 +5,11 @@ import { reviewSlice, type ReviewSlice } from './reviewSlice.ts';
 import { scoresSlice, type ScoresSlice } from './scoresSlice.ts';
 import { settingsSlice, type SettingsSlice } from './settingsSlice.ts';
 import { shownSlice, type ShownSlice } from './shownSlice.ts';
+import { storedSlice, type StoredSlice } from './storedSlice.ts';
 import { viewSlice, type ViewSlice } from './viewSlice.ts';
 
 /** Everything the app holds: the dataset, score settings, per-frame scores, the view and the review (flags). */
-export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice & ShownSlice & ReviewSlice;
+export type AppState = DatasetSlice & SettingsSlice & ScoresSlice & ViewSlice & ShownSlice & ReviewSlice & StoredSlice;
 /**
  * The app store: `subscribe(listener)`, and `subscribe(selector, listener, { equalityFn })` to hear
  * only when a selected value changes (zustand's subscribeWithSelector).
@@ -25,6 +26,7 @@ export function appStoreCreate(): AppStore {
       ...viewSlice(...a),
       ...shownSlice(...a),
       ...reviewSlice(...a),
+      ...storedSlice(...a),
     })),
   );
 }

@@ -25,7 +25,8 @@ function cell(row: FrameRow, key: FrameScoreKey): string {
 /** The frame list: every frame with its scores for run A, sortable, virtualised for long datasets. */
 export function FrameList() {
   const run = useCommand();
-  const bandWidth = useApp((s) => s.bandWidth);
+  // Stored results hold the band column at one width; the header says which.
+  const bandWidth = useApp((s) => s.stored?.bandWidth ?? s.bandWidth);
   const sortKey = useApp((s) => s.frameScore);
   const worstFirst = useApp((s) => s.sortWorstFirst);
   const current = useApp((s) => s.frameIndex);

@@ -2,8 +2,8 @@ import { useRef } from 'react';
 import { useCommand } from './commands/useCommand.tsx';
 import { directoryPick, hasDirectoryPicker, inputFiles } from './pickedFiles.ts';
 
-/** "Open folder": the directory picker where the browser has one, a folder input otherwise. */
-export function OpenFolderButton() {
+/** A button that picks a folder (the directory picker where the browser has one, a folder input otherwise) and runs `command` on its files. */
+function FolderPickButton({ command, label, title }: { command: 'dataset.openFiles' | 'results.openFiles'; label: string; title: string }) {
   const run = useCommand();
   const input = useRef<HTMLInputElement>(null);
   return (
@@ -11,11 +11,11 @@ export function OpenFolderButton() {
       <button
         onClick={async () => {
           if (!hasDirectoryPicker()) return input.current?.click();
-          await run('dataset.openFiles', directoryPick);
+          await run(command, directoryPick);
         }}
-        title="Open a dataset folder (images/, truth/, predictions/<run>/), or drop one on the page"
+        title={title}
       >
-        Open folder…
+        {label}
       </button>
       <input
         ref={input}
@@ -25,9 +25,25 @@ export function OpenFolderButton() {
         multiple
         onChange={(e) => {
           const files = e.currentTarget.files;
-          if (files) void run('dataset.openFiles', async () => inputFiles(files));
+          if (files) void run(command, async () => inputFiles(files));
         }}
       />
     </>
+  );
+}
+
+/** "Open folder": a dataset folder. */
+export function OpenFolderButton() {
+  return <FolderPickButton command="dataset.openFiles" label="Open folder…" title="Open a dataset folder (images/, truth/, predictions/<run>/), or drop one on the page" />;
+}
+
+/** "Open results…": a results folder of the dataset on screen (summary.json and its tables); also by dropping it on the page. */
+export function OpenResultsButton() {
+  return (
+    <FolderPickButton
+      command="results.openFiles"
+      label="Open results…"
+      title="Open a results folder of this dataset (npm run score -- --results DIR), or drop one on the page: its scores show at once, without scoring again"
+    />
   );
 }

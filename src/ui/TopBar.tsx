@@ -1,6 +1,6 @@
 import { commandKeys } from './commands/appCommands.ts';
 import { useCommand } from './commands/useCommand.tsx';
-import { OpenFolderButton } from './OpenFolder.tsx';
+import { OpenFolderButton, OpenResultsButton } from './OpenFolder.tsx';
 import { useApp, useAppShallow } from './storeContext.tsx';
 
 const NO_RUNS: string[] = [];
@@ -12,6 +12,22 @@ function ScoringProgress() {
     failed: s.scoring.failed,
     finishedAt: s.scoring.finishedAt,
   }));
+  const stored = useApp((s) => s.stored?.frames ?? null);
+  const reading = useApp((s) => s.storedLoading);
+  if (reading) {
+    return (
+      <div className="progress running" role="status" aria-live="polite">
+        <span>{reading}</span>
+      </div>
+    );
+  }
+  if (stored !== null) {
+    return (
+      <div className="progress" role="status" aria-live="polite" data-done={stored} data-total={stored} data-results="">
+        <span>{stored.toLocaleString('en')} frames from results</span>
+      </div>
+    );
+  }
   if (total === 0) return null;
   const running = finishedAt === null;
   return (
@@ -67,6 +83,7 @@ export function TopBar() {
   const run = useCommand();
   const title = useApp((s) => s.dataset?.title ?? 'no dataset');
   const tableError = useApp((s) => s.dataset?.tableError ?? null);
+  const hasDataset = useApp((s) => s.dataset !== null);
   return (
     <header className="top">
       <h1>Hairline</h1>
@@ -80,6 +97,7 @@ export function TopBar() {
       <ScoringProgress />
       <DemoButton />
       <OpenFolderButton />
+      {hasDataset && <OpenResultsButton />}
       <button onClick={() => run('help')} title={`Keys (${commandKeys('help')[0]})`}>
         ?
       </button>

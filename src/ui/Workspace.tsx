@@ -7,6 +7,7 @@ import { FlagDialog } from './FlagDialog.tsx';
 import { HelpOverlay } from './HelpOverlay.tsx';
 import { LayerBar } from './LayerBar.tsx';
 import { OpenedNotice } from './OpenedPanel.tsx';
+import { ResultsBar } from './ResultsBar.tsx';
 import { droppedFiles } from './pickedFiles.ts';
 import { Scoreboard } from './Scoreboard.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
@@ -84,6 +85,7 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
         </div>
       )}
       <OpenedNotice />
+      <ResultsBar />
       {hasDataset ? (
         <div className="panes">
           <aside className="left">

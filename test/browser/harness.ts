@@ -48,8 +48,8 @@ export function pageErrors(page: Page): string[] {
   return errors;
 }
 
-/** Serves the app built by buildOnce.ts (dist-test/) with the real app server, optionally with a dataset. */
-export async function appServeBuilt(datasetDir: string | null = null): Promise<{ url: string; close: () => Promise<void> }> {
-  const { server, url } = await appServerStart({ appDir: 'dist-test', datasetDir, port: 0 });
+/** Serves the app built by buildOnce.ts (dist-test/) with the real app server, optionally with a dataset and its results folder. */
+export async function appServeBuilt(datasetDir: string | null = null, resultsDir: string | null = null): Promise<{ url: string; close: () => Promise<void> }> {
+  const { server, url } = await appServerStart({ appDir: 'dist-test', datasetDir, resultsDir, port: 0 });
   return { url, close: () => new Promise<void>((r) => (server as Server).close(() => r())) };
 }

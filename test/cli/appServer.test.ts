@@ -1,31 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtemp, mkdir, symlink, writeFile } from 'node:fs/promises';
-import { request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Server } from 'node:http';
 import { appServerStart } from '../../src/cli/appServer.ts';
+import { httpGet } from '../support/httpGet.ts';
 
 let server: Server;
 let port: number;
 let root: string;
 
-/** Sends a raw request target (not normalised by a URL parser, so `..` reaches the server as typed). */
-function get(
-  target: string,
-  method = 'GET',
-  headers: Record<string, string> = {},
-): Promise<{ status: number; body: string; headers: Record<string, unknown> }> {
-  return new Promise((resolve, reject) => {
-    const req = request({ host: '127.0.0.1', port, method, path: target, headers }, (res) => {
-      let body = '';
-      res.on('data', (c) => (body += c));
-      res.on('end', () => resolve({ status: res.statusCode!, body, headers: res.headers }));
-    });
-    req.on('error', reject);
-    req.end();
-  });
-}
+/** Sends a raw request target to the server under test. */
+const get = (target: string, method = 'GET', headers: Record<string, string> = {}) => httpGet(port, target, method, headers);
 
 beforeAll(async () => {
   root = await mkdtemp(join(tmpdir(), 'hairline-serve-'));

@@ -4,7 +4,9 @@ import { scoringTableBuild } from '../../core/scoringTable.ts';
 import { demoSourceOpen } from '../../data/sources/demoSource.ts';
 import { folderSourceOpen, type PickedFile } from '../../data/sources/folderSource.ts';
 import type { DatasetSource } from '../../data/sources/source.ts';
+import { pickedResultsFiles, resultsRead, type ResultsFiles } from '../../data/results/resultsRead.ts';
 import { datasetFromSource, datasetInstall } from '../../state/datasetLoad.ts';
+import { storedInstall } from '../../state/storedResults.ts';
 import { cmd, commandTable, type CommandContext } from './registry.ts';
 
 /** Opens `source` as the dataset (frame 0, its void id, a fitted view); scoring starts by itself. */
@@ -26,6 +28,9 @@ async function filesOpen(ctx: CommandContext, read: () => Promise<PickedFile[] |
   }
   if (files === null) return;
   if (files.length === 0) return s.datasetErrorSet('The folder is empty.');
+  // A results folder (summary.json at its top) opens as the results of the dataset on screen.
+  const results = s.dataset ? pickedResultsFiles(files) : null;
+  if (results) return resultsOpen(ctx, results);
   s.datasetLoadingSet(`Reading ${files.length} files…`);
   try {
     const source = await folderSourceOpen(files);
@@ -37,6 +42,27 @@ async function filesOpen(ctx: CommandContext, read: () => Promise<PickedFile[] |
     datasetInstall(ctx.store, dataset);
   } catch (e) {
     s.datasetErrorSet(`Could not open the folder: ${(e as Error).message}`);
+  }
+}
+
+/**
+ * Opens a results folder of the dataset on screen: the frame list, timeline, scoreboard, band curve
+ * and queue show its tables, nothing is scored again but the frame on screen. A folder of another
+ * dataset, or one that cannot be read, leaves everything as it was and says why.
+ */
+async function resultsOpen({ store }: CommandContext, files: ResultsFiles): Promise<void> {
+  const s = store.getState();
+  const dataset = s.dataset;
+  if (!dataset) return s.storedErrorSet('Open the dataset first, then its results folder.');
+  s.storedLoadingSet(`Reading results ${files.title}…`);
+  try {
+    const stored = await resultsRead(files, { runs: dataset.pairing.runs, frameNames: dataset.pairing.frames.map((f) => f.name) });
+    if (store.getState().dataset !== dataset) return;
+    storedInstall(store, stored);
+  } catch (e) {
+    store.getState().storedErrorSet(`Could not open the results: ${(e as Error).message}`);
+  } finally {
+    store.getState().storedLoadingSet(null);
   }
 }
 
@@ -63,6 +89,20 @@ export const DATASET_COMMANDS = commandTable({
   'dataset.openDemo': cmd({ label: 'Open the built-in demo', group: 'Dataset', keys: [], enabled: () => true, run: (ctx) => datasetOpen(ctx, demoSourceOpen()) }),
   'dataset.openFiles': cmd<() => Promise<PickedFile[] | null>, Promise<void>>({ label: 'Open a dataset folder', group: 'Dataset', keys: [], enabled: () => true, run: filesOpen }),
   'dataset.dismissError': cmd({ label: 'Dismiss the message', group: 'Dataset', keys: [], enabled: () => true, run: ({ store }) => store.getState().datasetErrorSet(null) }),
+  'results.open': cmd<ResultsFiles, Promise<void>>({ label: 'Open a results folder of the dataset', group: 'Dataset', keys: [], enabled: hasDataset, run: resultsOpen }),
+  'results.openFiles': cmd<() => Promise<PickedFile[] | null>, Promise<void>>({
+    label: 'Open a results folder of the dataset', group: 'Dataset', keys: [], enabled: hasDataset,
+    run: async (ctx, read) => {
+      const files = await read().catch((e: Error) => (ctx.store.getState().storedErrorSet(`Could not read the folder: ${e.message}`), null));
+      if (files === null) return;
+      const results = pickedResultsFiles(files);
+      if (!results) return ctx.store.getState().storedErrorSet('That folder is no results folder: it has no summary.json (write one with npm run score -- --results DIR).');
+      await resultsOpen(ctx, results);
+    },
+  }),
+  /** Leaves the results folder: every frame is scored in the page with the settings on screen. */
+  'results.rescore': cmd({ label: 'Score every frame in the page instead of the results folder', group: 'Dataset', keys: [], enabled: ({ store }) => store.getState().stored !== null, run: ({ store }) => store.getState().storedSet(null) }),
+  'results.dismissError': cmd({ label: 'Dismiss the message', group: 'Dataset', keys: [], enabled: () => true, run: ({ store }) => store.getState().storedErrorSet(null) }),
   'settings.set': cmd<Partial<ScoreSettings>, string | null>({ label: 'Change score settings', group: 'Dataset', keys: [], enabled: () => true, run: settingsSet }),
   /** Uses `table` as the dataset's class table (its void id too). */
   'classes.use': cmd<ClassTable>({
