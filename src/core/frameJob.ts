@@ -132,9 +132,11 @@ export function frameJobScore(
         `at most ${CLASSES_MAX} classes are scored (give a classes.json naming the classes)`,
     );
   }
+  let scored = false; // after a first run is scored, the truth's distance transform is in `scratch`
   const runs = decoded.map(({ run, map, error, factor }): FrameRunResult => {
     if (!map) return { run, stats: null, error };
-    const s = frameScore(truth.value, map, classIds, settings, scratch);
+    const s = frameScore(truth.value, map, classIds, settings, scratch, scored);
+    scored = true;
     if (!s.ok) return { run, stats: null, error: `${input.truth.file}: ${s.error}` };
     const scaled = factor && factor > 1 ? { scaledBy: factor } : {};
     return { run, stats: s.value, error: null, census: idCensusOf(truth.value, map, settings.ignore), ...scaled };

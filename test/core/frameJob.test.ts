@@ -6,6 +6,9 @@ import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
 import { PNG } from 'pngjs';
 import { paintRect } from '../support/paint.ts';
+import { harbourPrediction, harbourTruth } from '../support/harbourScene.ts';
+import { frameScore } from '../../src/core/metrics/frameScore.ts';
+import { scoreScratchCreate } from '../../src/core/metrics/scratch.ts';
 
 // The scoring job's error-region part: regions beside the scores for every run, confidence maps read
 // like label maps (encoded here by our encoder and by pngjs, a second PNG implementation), unusable
@@ -104,5 +107,29 @@ describe('frameJobScore: error regions', () => {
     expect(r.runs[1].error).toMatch(/^b\/x\.png: /);
     expect(r.runs[1].regions).toBeNull();
     expect(r.runs[0].regions!.regions.every((x) => x.evidence.agreement.length === 0)).toBe(true);
+  });
+});
+
+describe('frameJobScore: the truth made once per frame', () => {
+  it('every run of a many-run frame (distance transform shared) scores as frameScore does alone with fresh buffers', () => {
+    const truth = harbourTruth(160, 96, 5);
+    const preds = [11, 12, 13].map((seed) => harbourPrediction(truth, seed, 4));
+    const input: FrameJobInput = {
+      name: 'h', truth: { file: 'truth/h.png', bytes: png(truth) },
+      preds: preds.map((p, i) => ({ run: `r${i}`, file: { file: `r${i}/h.png`, bytes: png(p) } })),
+      table, settings: DEFAULT_SCORE_SETTINGS, regions: false,
+    };
+    const job = frameJobScore(input);
+    const classIds = job.runs[0].stats!.classIds;
+    job.runs.forEach((r, i) => {
+      const alone = frameScore(truth, preds[i], classIds, DEFAULT_SCORE_SETTINGS);
+      if (!alone.ok) throw new Error(alone.error);
+      expect(r.stats).toEqual(alone.value);
+    });
+    // And a reused truth is only trusted for the same ids array: another frame's truth in the same buffers is recomputed.
+    const other = harbourTruth(160, 96, 6);
+    const shared = scoreScratchCreate();
+    frameScore(truth, preds[0], classIds, DEFAULT_SCORE_SETTINGS, shared);
+    expect(frameScore(other, preds[1], classIds, DEFAULT_SCORE_SETTINGS, shared, true)).toEqual(frameScore(other, preds[1], classIds, DEFAULT_SCORE_SETTINGS));
   });
 });

@@ -34,13 +34,16 @@ function bandAdd(
  * `fwd` (bottom row first, completing each column from below), then fills the band histogram in
  * one pass (kept apart: inlined into the row loop it ran markedly slower). Writes `dist2`
  * (pixels², values above limit² as limit² + 1) and adds every class-truth pixel to `band` (see
- * bandHistogram.ts for the layout).
+ * bandHistogram.ts for the layout). `dist2Known`: `dist2` already holds this truth's distances (an
+ * earlier run of the same frame), so only the histogram is filled.
  */
 export function distanceBandRows(
   fwd: Uint8Array, truth: Uint16Array, pred: Uint16Array, width: number, height: number, k: number,
-  limit: number, binOffsets: Int32Array, band: Uint32Array, dist2: Uint16Array, work: DistanceWork,
+  limit: number, binOffsets: Int32Array, band: Uint32Array, dist2: Uint16Array, work: DistanceWork, dist2Known = false,
 ): void {
-  work.below.fill(limit + 1, 0, width);
-  for (let y = height - 1; y >= 0; y--) distanceRow(fwd, y * width, width, limit, dist2, work);
+  if (!dist2Known) {
+    work.below.fill(limit + 1, 0, width);
+    for (let y = height - 1; y >= 0; y--) distanceRow(fwd, y * width, width, limit, dist2, work);
+  }
   bandAdd(dist2, truth, pred, 0, width * height, k, binOffsets, band);
 }

@@ -59,11 +59,13 @@ function frameInputCheck(truth: LabelMap, pred: LabelMap): Result<true> {
 /**
  * Returns the additive counts of every src/docs/metrics.md score for one frame, or the problem with its input
  * (sizes that differ, a bad class list or settings). Truth ids outside the table are scored as void.
- * Pass one `scratch` per thread to reuse buffers across frames.
+ * Pass one `scratch` per thread to reuse buffers across frames. `sameTruth`: the caller scores
+ * another run against the truth (same ids array, unchanged) it scored last with this scratch, so the
+ * truth-boundary distance transform is reused when class list, limit and size also match.
  */
 export function frameScore(
   truth: LabelMap, pred: LabelMap, classIds: readonly number[], settings: ScoreSettings,
-  scratch: ScoreScratch = scoreScratchCreate(),
+  scratch: ScoreScratch = scoreScratchCreate(), sameTruth = false,
 ): Result<FrameStats> {
   const input = frameInputCheck(truth, pred);
   if (!input.ok) return input;
@@ -107,7 +109,12 @@ export function frameScore(
 
   const band = new Uint32Array(BAND_BINS * k * (k + 1));
   const binOffsets = scoreScratchBinOffsets(s, limit, k);
-  distanceBandRows(edges.fwd, tc, pc, width, height, k, limit, binOffsets, band, s.dist2, s.distance);
+  // The distances depend on the truth alone: made once per frame, reused by its other runs.
+  const distanceKey = `${s.codeKey}|${limit}|${width}x${height}`;
+  const dist2Known = sameTruth && s.distanceIds === truth.ids && s.distanceKey === distanceKey;
+  distanceBandRows(edges.fwd, tc, pc, width, height, k, limit, binOffsets, band, s.dist2, s.distance, dist2Known);
+  s.distanceIds = truth.ids;
+  s.distanceKey = distanceKey;
   const confusion = new Uint32Array(k * (k + 1));
   bandConfusionTotal(band, k, confusion);
 

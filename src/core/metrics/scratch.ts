@@ -25,6 +25,13 @@ export interface ScoreScratch {
   codeKey: string;
   binOffsets: Int32Array;
   binKey: string;
+  /**
+   * Whose truth-boundary distances `dist2` holds: the truth's ids array and the code table, limit and
+   * size they were made with. Every run of a frame is scored against the same truth, so the distance
+   * transform is made once per frame, not once per run (the ids must not change in between).
+   */
+  distanceIds: unknown;
+  distanceKey: string;
 }
 
 /** Returns an empty scratch (buffers are sized by the first frame). */
@@ -43,6 +50,8 @@ export function scoreScratchCreate(): ScoreScratch {
     codeKey: '',
     binOffsets: new Int32Array(0),
     binKey: '',
+    distanceIds: null,
+    distanceKey: '',
   };
 }
 
@@ -55,6 +64,7 @@ export function scoreScratchFit(s: ScoreScratch, width: number, height: number):
     s.predCodes = new Uint16Array(size);
     s.edges = edgeScanCreate(size, Math.max(height, s.edges.rowT.length - 1));
     s.dist2 = new Uint16Array(size);
+    s.distanceIds = null;
     s.pixels = size;
   }
   if (s.width < width) {
