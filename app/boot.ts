@@ -8,6 +8,7 @@ import { stateReport } from '../src/state/stateReport.ts';
 import { servedResultsFiles } from '../src/data/results/resultsRead.ts';
 import { servedSourceOpen } from '../src/data/sources/servedSource.ts';
 import { scoringKeep } from '../src/state/scoringRun.ts';
+import { paneKeep } from '../src/state/paneKeep.ts';
 import { shownKeep } from '../src/state/shownKeep.ts';
 import { appStoreCreate, type AppStore } from '../src/state/store.ts';
 import { reviewBackendIdb } from '../src/state/reviewBackendIdb.ts';
@@ -38,7 +39,7 @@ export function appStart(): AppRuntime {
   const fromUrl = urlViewDecode(location.hash);
   // Flags and verdicts are saved in IndexedDB per dataset as they change, and shared with other tabs.
   const keeper = reviewKeep(store, { backend: reviewBackendIdb(), channel: reviewChannelOpen(), page: window });
-  const stops = [scoringKeep(store, scorePool), shownKeep(store, viewPool), urlViewKeep(store), () => keeper.stop()];
+  const stops = [scoringKeep(store, scorePool), shownKeep(store, viewPool), urlViewKeep(store), paneKeep(store, localStorage), () => keeper.stop()];
   void datasetOpenInitial(store, fromUrl);
   return {
     store,

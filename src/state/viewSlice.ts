@@ -2,10 +2,22 @@ import type { StateCreator } from 'zustand/vanilla';
 import { layerLooksDefault, type LayerLooks } from '../core/composite/layerSettings.ts';
 import type { AppState } from './store.ts';
 import type { FlagInput } from './reviewSlice.ts';
+import { QUEUE_VIEW_DEFAULT, type QueueView } from './queueView.ts';
 
 /** Per-frame scores the frame list and timeline can sort and colour by. */
 export const FRAME_SCORE_KEYS = ['meanIoU', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels'] as const;
 export type FrameScoreKey = (typeof FRAME_SCORE_KEYS)[number];
+
+/** Widths of the side panes, CSS pixels. */
+export interface PaneWidths {
+  left: number;
+  right: number;
+}
+
+/** Pane widths of a first visit, and the range a pane can be dragged to (CSS pixels). */
+export const PANE_WIDTHS_DEFAULT: PaneWidths = { left: 320, right: 420 };
+export const PANE_WIDTH_MIN = 180;
+export const PANE_WIDTH_MAX = 900;
 
 /** Where the viewer looks: image point at the centre of the canvas and screen pixels per image pixel. */
 export interface ViewPlace {
@@ -47,6 +59,10 @@ export interface ViewSlice {
   flagDraft: FlagInput | null;
   /** Drawing a box on the viewer to flag (also with Shift held while dragging). */
   boxDrawing: boolean;
+  /** Widths of the left and right panes, CSS pixels (the viewer takes the rest). */
+  paneWidths: PaneWidths;
+  /** The queue list's filter and order (Q steps through the queue as shown). */
+  queueView: QueueView;
   frameIndexSet(index: number): void;
   layersSet(patch: Partial<LayerLooks>): void;
   runsSet(patch: { runA?: string | null; runB?: string | null }): void;
@@ -66,6 +82,8 @@ export interface ViewSlice {
   leftTabSet(tab: 'frames' | 'queue' | 'flags'): void;
   flagDraftSet(draft: FlagInput | null): void;
   boxDrawingSet(on: boolean): void;
+  paneWidthsSet(patch: Partial<PaneWidths>): void;
+  queueViewSet(patch: Partial<QueueView>): void;
 }
 
 /** Returns the view slice of the app store (what is on screen and how). */
@@ -88,6 +106,8 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   leftTab: 'frames',
   flagDraft: null,
   boxDrawing: false,
+  paneWidths: PANE_WIDTHS_DEFAULT,
+  queueView: QUEUE_VIEW_DEFAULT,
   frameIndexSet: (index) => {
     const count = get().dataset?.pairing.frames.length ?? 0;
     const clamped = count === 0 ? 0 : Math.max(0, Math.min(count - 1, Math.round(index)));
@@ -117,5 +137,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   leftTabSet: (leftTab) => set({ leftTab }),
   flagDraftSet: (flagDraft) => set({ flagDraft }),
   boxDrawingSet: (boxDrawing) => set({ boxDrawing }),
+  paneWidthsSet: (patch) => set({ paneWidths: { ...get().paneWidths, ...patch } }),
+  queueViewSet: (patch) => set({ queueView: { ...get().queueView, ...patch } }),
   focusClear: () => set({ focusBox: null }),
 });

@@ -15,6 +15,7 @@ import { Timeline } from './Timeline.tsx';
 import { TopBar } from './TopBar.tsx';
 import { CommandProvider, useCommand, useCommandKeys } from './commands/useCommand.tsx';
 import { ViewerPane } from './ViewerPane.tsx';
+import { PaneSplitter } from './PaneSplitter.tsx';
 
 function EmptyState() {
   const loading = useApp((s) => s.datasetLoading);
@@ -60,6 +61,7 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
   const hasDataset = useApp((s) => s.dataset !== null);
   const datasetError = useApp((s) => s.datasetError);
   const [dropping, setDropping] = useState(false);
+  const widths = useApp((s) => s.paneWidths);
   useCommandKeys();
   return (
     <div
@@ -87,14 +89,16 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
       <OpenedNotice />
       <ResultsBar />
       {hasDataset ? (
-        <div className="panes">
+        <div className="panes" style={{ gridTemplateColumns: `${widths.left}px 0 minmax(0, 1fr) 0 ${widths.right}px` }}>
           <aside className="left">
             <LeftPane />
           </aside>
+          <PaneSplitter pane="left" />
           <section className="center">
             <LayerBar />
             <ViewerPane pool={viewPool} onViewer={onViewer} />
           </section>
+          <PaneSplitter pane="right" />
           <aside className="right">
             <Scoreboard />
           </aside>

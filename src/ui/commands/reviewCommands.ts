@@ -4,6 +4,8 @@ import { suspectRefOf, type ReviewJudgement } from '../../core/review/judgement.
 import { suspectKey } from '../../core/review/verdict.ts';
 import type { Suspect } from '../../core/suspects/suspectQueue.ts';
 import type { FlagInput } from '../../state/reviewSlice.ts';
+import { queueShownSel } from '../../state/queueShown.ts';
+import type { QueueView } from '../../state/queueView.ts';
 import { suspectsRankedSel } from '../../state/suspectsRanked.ts';
 import type { AppState } from '../../state/store.ts';
 import { VERDICT_NAMES } from '../regionWords.ts';
@@ -40,10 +42,10 @@ function queueSelect({ store }: CommandContext, item: Suspect): void {
   s.queueSelect(suspectKey(suspectRefOf(item)), item.frameIndex, item.bbox);
 }
 
-/** Moves the queue selection by `step` (selecting the first item when none is selected). */
+/** Moves the queue selection by `step` through the queue as the list shows it (selecting the first item when none shown is selected). */
 function queueStep(ctx: CommandContext, step: number): void {
   const s = ctx.store.getState();
-  const queue = suspectsRankedSel(s);
+  const queue = queueShownSel(s);
   if (queue.length === 0) return;
   const at = s.queueSelected ? queue.findIndex((q) => suspectKey(suspectRefOf(q)) === s.queueSelected) : -1;
   queueSelect(ctx, queue[at < 0 ? 0 : Math.max(0, Math.min(queue.length - 1, at + step))]);
@@ -62,13 +64,17 @@ function verdictKeyed(verdict: ReviewJudgement) {
   });
 }
 
-const hasQueue = ({ store }: CommandContext) => suspectsRankedSel(store.getState()).length > 0;
+const hasQueue = ({ store }: CommandContext) => queueShownSel(store.getState()).length > 0;
 
 /** The likely-label-mistake queue, verdicts and flags. */
 export const REVIEW_COMMANDS = commandTable({
   'queue.next': cmd({ label: 'Next likely label mistake', group: 'Likely label mistakes', keys: ['Q'], enabled: hasQueue, run: (ctx) => queueStep(ctx, 1) }),
   'queue.prev': cmd({ label: 'Previous likely label mistake', group: 'Likely label mistakes', keys: ['Shift+Q'], enabled: hasQueue, run: (ctx) => queueStep(ctx, -1) }),
   'queue.select': cmd<Suspect>({ label: 'Inspect a likely label mistake', group: 'Likely label mistakes', keys: [], enabled: () => true, run: queueSelect }),
+  'queue.view': cmd<Partial<QueueView>>({
+    label: 'Filter or sort the queue', group: 'Likely label mistakes', keys: [], enabled: () => true,
+    run: ({ store }, patch) => store.getState().queueViewSet(patch),
+  }),
   'verdict.label-mistake': verdictKeyed('label-mistake'),
   'verdict.model-error': verdictKeyed('model-error'),
   'verdict.unsure': verdictKeyed('unsure'),

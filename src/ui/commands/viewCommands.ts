@@ -1,4 +1,5 @@
 import { cmd, commandTable, type CommandContext } from './registry.ts';
+import { PANE_WIDTH_MAX, PANE_WIDTH_MIN } from '../../state/viewSlice.ts';
 import { hasFrames } from './frameCommands.ts';
 
 const hasViewer = (ctx: CommandContext) => ctx.viewer !== null && hasFrames(ctx);
@@ -14,5 +15,13 @@ export const VIEW_COMMANDS = commandTable({
     run: ({ store }) => store.getState().pixelGridSet(!store.getState().pixelGrid),
   }),
   'pane.left': cmd<'frames' | 'queue' | 'flags'>({ label: 'Show a list in the left pane', group: 'View', keys: [], enabled: () => true, run: ({ store }, tab) => store.getState().leftTabSet(tab) }),
+  /** Sets a side pane's width, kept between PANE_WIDTH_MIN and PANE_WIDTH_MAX (remembered for the next visit). */
+  'pane.resize': cmd<{ pane: 'left' | 'right'; width: number }>({
+    label: 'Resize a side pane', group: 'View', keys: [], enabled: () => true,
+    run: ({ store }, { pane, width }) => {
+      if (!Number.isFinite(width)) return;
+      store.getState().paneWidthsSet({ [pane]: Math.round(Math.max(PANE_WIDTH_MIN, Math.min(PANE_WIDTH_MAX, width))) });
+    },
+  }),
   help: cmd({ label: 'Show / hide this help', group: 'Help', keys: ['?'], enabled: () => true, run: ({ store }) => store.getState().helpOpenSet(!store.getState().helpOpen) }),
 });

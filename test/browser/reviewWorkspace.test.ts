@@ -1,0 +1,116 @@
+// The review workspace in real Chromium on the built app with the Kestrel Quay demo: side panes
+// resize by their handles and keep their width after a reload; queue items show their score, reasons
+// and every action whatever the pane's width (checked by element geometry); stepping with Q keeps
+// the selected item in view; the progress line counts verdicts; the list filters by verdict and
+// sorts by score.
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
+
+const FRAMES = 8;
+const QUERY = `?demo-frames=${FRAMES}&demo-size=320x160`;
+let url = '';
+let close: () => Promise<void>;
+let browser: Browser;
+
+beforeAll(async () => {
+  ({ url, close } = await appServeBuilt());
+  browser = await browserLaunch();
+}, 120_000);
+afterAll(async () => {
+  await browser?.close();
+  await close?.();
+});
+
+async function openQueue(page: Page): Promise<void> {
+  await page.goto(`${url}${QUERY}`);
+  await page.locator(`[role=status][data-done="${FRAMES}"][data-total="${FRAMES}"]`).waitFor({ timeout: 180_000 });
+  await page.locator('.left-pane .tab', { hasText: /^Label check$|mistake/i }).first().click();
+  await page.locator('.queue-item').first().waitFor();
+}
+
+/** Drags the left pane's handle so the pane is `width` CSS pixels wide. */
+async function leftPaneDrag(page: Page, width: number): Promise<void> {
+  const handle = (await page.locator('.splitter-left').boundingBox())!;
+  const pane = (await page.locator('aside.left').boundingBox())!;
+  const x = handle.x + handle.width / 2;
+  const y = handle.y + 200;
+  await page.mouse.move(x, y);
+  await page.mouse.down();
+  await page.mouse.move(x + (width - pane.width) / 2, y, { steps: 3 });
+  await page.mouse.move(x + (width - pane.width), y, { steps: 3 });
+  await page.mouse.up();
+}
+
+/** For each of the first queue items: whether the score, every button and the reasons lie inside the list horizontally and nothing overflows. */
+function itemsFit(page: Page) {
+  return page.$$eval('.queue-item', (els) => {
+    const list = els[0].closest('aside')!.getBoundingClientRect();
+    const inside = (e: Element | null) => {
+      if (!e) return false;
+      const r = e.getBoundingClientRect();
+      return r.width > 0 && r.left >= list.left - 0.5 && r.right <= list.right + 0.5;
+    };
+    return els.slice(0, 6).map((el) => ({
+      score: inside(el.querySelector('.qi-score')),
+      buttons: [...el.querySelectorAll('.qi-verdicts button')].length >= 4 && [...el.querySelectorAll('.qi-verdicts button')].every(inside),
+      reasons: [...el.querySelectorAll('.qi-reasons li')].every((r) => inside(r) && r.scrollWidth <= r.clientWidth + 1),
+      noOverflow: el.scrollWidth <= el.clientWidth + 1,
+    }));
+  });
+}
+
+describe('review workspace layout (real Chromium)', () => {
+  it('resizes panes by dragging, fits queue items at narrow and wide widths, remembers the width', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 860 } });
+    const errors = pageErrors(page);
+    await openQueue(page);
+    const all = { score: true, buttons: true, reasons: true, noOverflow: true };
+    for (const width of [190, 260, 600]) {
+      await leftPaneDrag(page, width);
+      const w = (await page.locator('aside.left').boundingBox())!.width;
+      expect(Math.abs(w - width)).toBeLessThanOrEqual(2);
+      const fit = await itemsFit(page);
+      expect(fit.length).toBeGreaterThan(0);
+      for (const f of fit) expect(f).toEqual(all);
+    }
+    await page.reload();
+    await page.locator(`[role=status][data-done="${FRAMES}"]`).waitFor({ timeout: 180_000 });
+    expect(Math.abs((await page.locator('aside.left').boundingBox())!.width - 600)).toBeLessThanOrEqual(2);
+    expect(errors.filter((e) => !e.includes('GPU stall'))).toEqual([]);
+    await page.close();
+  });
+
+  it('keeps the item Q selects in view, counts verdicts, filters by verdict and sorts by score', async () => {
+    const page = await browser.newPage({ viewport: { width: 1300, height: 700 } });
+    await openQueue(page);
+    const total = await page.locator('.queue-item').count();
+    expect(total).toBeGreaterThan(5);
+    const steps = Math.min(total, 12);
+    for (let i = 0; i < steps; i++) await page.keyboard.press('q');
+    const seen = await page.$eval('.queue-item.selected', (el) => {
+      const r = el.getBoundingClientRect();
+      const list = el.closest('.queue')!.getBoundingClientRect();
+      return r.top >= list.top - 0.5 && r.bottom <= list.bottom + 0.5;
+    });
+    expect(seen).toBe(true);
+    // The list is ranked, not by raw score; L judges the selected item and the progress line counts it.
+    await page.keyboard.press('l');
+    const progress = () => page.$eval('[data-testid=review-progress]', (el) => [...el.childNodes].map((n) => n.textContent!.trim()).join(' '));
+    await expect.poll(progress).toBe(`judged 1 of ${total} label mistake 1 model error 0 unsure 0`);
+    await page.selectOption('select[aria-label="filter by verdict"]', 'label-mistake');
+    expect(await page.locator('.queue-item').count()).toBe(1);
+    await page.selectOption('select[aria-label="filter by verdict"]', 'all');
+    await page.selectOption('select[aria-label="order"]', 'score-high');
+    const scores = await page.$$eval('.queue-item .qi-score', (els) => els.map((e) => Number(e.textContent)));
+    expect(scores.length).toBe(total);
+    for (let i = 1; i < scores.length; i++) expect(scores[i]).toBeLessThanOrEqual(scores[i - 1]);
+    // Keys still work after a drop-down was used: Q steps the list in its new order.
+    const at = () => page.$$eval('.queue-item', (els) => els.findIndex((e) => e.classList.contains('selected')));
+    const before = await at();
+    expect(before).toBeGreaterThanOrEqual(0);
+    await page.keyboard.press(before < total - 1 ? 'q' : 'Shift+Q');
+    await expect.poll(at).toBe(before < total - 1 ? before + 1 : before - 1);
+    await page.close();
+  });
+});
