@@ -8,6 +8,9 @@ import { QUEUE_VIEW_DEFAULT, type QueueView } from './queueView.ts';
 export const FRAME_SCORE_KEYS = ['meanIoU', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels'] as const;
 export type FrameScoreKey = (typeof FRAME_SCORE_KEYS)[number];
 
+/** Dialogs and panels that open over the workspace (the flag form and help have their own state). */
+export type WorkspaceDialog = 'export' | 'opened';
+
 /** Widths of the side panes, CSS pixels. */
 export interface PaneWidths {
   left: number;
@@ -59,6 +62,8 @@ export interface ViewSlice {
   flagDraft: FlagInput | null;
   /** Drawing a box on the viewer to flag (also with Shift held while dragging). */
   boxDrawing: boolean;
+  /** The dialog or panel open over the workspace (the tile export, what was opened), or null. */
+  dialog: WorkspaceDialog | null;
   /** Widths of the left and right panes, CSS pixels (the viewer takes the rest). */
   paneWidths: PaneWidths;
   /** The queue list's filter and order (Q steps through the queue as shown). */
@@ -83,6 +88,7 @@ export interface ViewSlice {
   flagDraftSet(draft: FlagInput | null): void;
   boxDrawingSet(on: boolean): void;
   paneWidthsSet(patch: Partial<PaneWidths>): void;
+  dialogSet(dialog: WorkspaceDialog | null): void;
   queueViewSet(patch: Partial<QueueView>): void;
 }
 
@@ -107,6 +113,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   flagDraft: null,
   boxDrawing: false,
   paneWidths: PANE_WIDTHS_DEFAULT,
+  dialog: null,
   queueView: QUEUE_VIEW_DEFAULT,
   frameIndexSet: (index) => {
     const count = get().dataset?.pairing.frames.length ?? 0;
@@ -137,6 +144,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   leftTabSet: (leftTab) => set({ leftTab }),
   flagDraftSet: (flagDraft) => set({ flagDraft }),
   boxDrawingSet: (boxDrawing) => set({ boxDrawing }),
+  dialogSet: (dialog) => set({ dialog }),
   paneWidthsSet: (patch) => set({ paneWidths: { ...get().paneWidths, ...patch } }),
   queueViewSet: (patch) => set({ queueView: { ...get().queueView, ...patch } }),
   focusClear: () => set({ focusBox: null }),

@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import type { TileMode } from '../core/export/tileBoxes.ts';
 import type { TilesExportProgress } from '../core/export/tilesExport.ts';
 import { flagReasonCounts, flagsSelect } from '../core/review/flagsFilter.ts';
@@ -21,6 +21,8 @@ export function ExportDialog({ onClose }: { onClose: () => void }) {
   const [progress, setProgress] = useState<TilesExportProgress | null>(null);
   const [result, setResult] = useState<string | null>(null);
   const abort = useRef<AbortController | null>(null);
+  // Closing the dialog (Esc, or the workspace going away) cancels an export under way.
+  useEffect(() => () => abort.current?.abort(), []);
   const counts = useMemo(() => flagReasonCounts(flags), [flags]);
   const chosen = which === 'all' ? flags : which === 'reason' ? flagsSelect(flags, { reasons: [reason] }) : flagsSelect(flags, { frames: [frame] });
   const running = abort.current !== null && progress !== null && result === null;

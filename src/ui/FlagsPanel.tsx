@@ -2,9 +2,9 @@ import { useLayoutEffect, useMemo, useRef, useState, type CSSProperties } from '
 import { flagReasonCounts } from '../core/review/flagsFilter.ts';
 import type { Flag } from '../core/review/flag.ts';
 import { downloadBlob } from './download.ts';
-import { ExportDialog } from './ExportDialog.tsx';
 import { VERDICT_NAMES } from './regionWords.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
+import { useCommand } from './commands/useCommand.tsx';
 
 function reasonName(r: string): string {
   return (VERDICT_NAMES as Record<string, string>)[r] ?? r;
@@ -67,6 +67,7 @@ function FlagRow({ flag, frameIndex, style }: { flag: Flag; frameIndex: number; 
 /** Every flag of the dataset: filter by reason, edit, delete, undo/redo, hand over as JSON, export tiles. */
 export function FlagsPanel() {
   const store = useAppStore();
+  const run = useCommand();
   const flags = useApp((s) => s.reviewFlags);
   const status = useApp((s) => s.reviewStatus);
   const error = useApp((s) => s.reviewError);
@@ -75,7 +76,6 @@ export function FlagsPanel() {
   const canRedo = useApp((s) => s.reviewRedoStack.length > 0);
   const [reason, setReason] = useState('');
   const [message, setMessage] = useState<string | null>(null);
-  const [exporting, setExporting] = useState(false);
   const file = useRef<HTMLInputElement>(null);
   const indexOf = useMemo(() => new Map((frames ?? []).map((f, i) => [f.name, i])), [frames]);
   const counts = useMemo(() => flagReasonCounts(flags), [flags]);
@@ -110,7 +110,7 @@ export function FlagsPanel() {
         </button>
       </div>
       <div className="flags-bar">
-        <button disabled={flags.length === 0} onClick={() => setExporting(true)}>
+        <button disabled={flags.length === 0} title="Shift+T" onClick={() => run('dialog.export')}>
           export tiles…
         </button>
         <button
@@ -153,7 +153,6 @@ export function FlagsPanel() {
           />
         ))}
       </ol>
-      {exporting && <ExportDialog onClose={() => setExporting(false)} />}
     </div>
   );
 }

@@ -36,7 +36,7 @@ export function HelpOverlay() {
             </section>
           ))}
         </div>
-        <p className="dim">Press ? or click outside to close.</p>
+        <p className="dim">Press ? or Esc, or click outside, to close. Esc closes any form or dialog.</p>
       </div>
     </div>
   );

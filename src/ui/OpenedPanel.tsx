@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useCommand } from './commands/useCommand.tsx';
 import { ambiguityText } from '../data/opened.ts';
 import { useApp } from './storeContext.tsx';
 
@@ -11,7 +11,8 @@ const UNPAIRED_SHOWN = 200;
  */
 export function OpenedNotice() {
   const opened = useApp((s) => s.dataset?.opened ?? null);
-  const [open, setOpen] = useState(false);
+  const open = useApp((s) => s.dialog === 'opened');
+  const run = useCommand();
   if (!opened) return null;
   const problems = opened.warnings.length + opened.ambiguous.length;
   const counts = [
@@ -25,9 +26,9 @@ export function OpenedNotice() {
         <span>Opened {counts}{opened.how ? ` (folders by ${opened.how})` : ''}</span>
         {problems > 0 && <span className="warn">⚠ {problems} warning{problems === 1 ? '' : 's'}: {opened.ambiguous.length ? 'files that could pair with more than one frame' : opened.warnings[0]}</span>}
         {opened.unpaired.length > 0 && <span className="dim">{opened.unpaired.length} file{opened.unpaired.length === 1 ? '' : 's'} not paired</span>}
-        <button className="link" onClick={() => setOpen(!open)}>{open ? 'hide' : 'what was opened'}</button>
+        <button className="link" onClick={() => run('dialog.opened')}>{open ? 'hide' : 'what was opened'}</button>
       </div>
-      {open && <OpenedPanel onClose={() => setOpen(false)} />}
+      {open && <OpenedPanel onClose={() => run('dialog.close')} />}
     </>
   );
 }

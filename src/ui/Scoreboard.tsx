@@ -1,6 +1,5 @@
 import { useState } from 'react';
-import { stateReport } from '../state/stateReport.ts';
-import { downloadBlob } from './download.ts';
+
 import { BandCurve } from './BandCurve.tsx';
 import { CompareTab } from './CompareTab.tsx';
 import { ConfusionMap } from './ConfusionMap.tsx';
@@ -11,7 +10,7 @@ import type { ScopeScores } from '../state/scopeScores.ts';
 import { classInfoSel, scopesASel, scopesBSel, shownRunSel } from '../state/selectors.ts';
 import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
 import { useCommand } from './commands/useCommand.tsx';
-import { useApp, useAppStore } from './storeContext.tsx';
+import { useApp } from './storeContext.tsx';
 
 const TABS = ['scores', 'regions', 'confusion', 'band', 'compare', 'settings'] as const;
 type Tab = (typeof TABS)[number];
@@ -95,7 +94,6 @@ function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: 
 
 /** The scoreboard: dataset and current frame side by side, for run A (and run B on the band curve). */
 export function Scoreboard() {
-  const store = useAppStore();
   const command = useCommand();
   const [tab, setTab] = useState<Tab>('scores');
   const run = useApp(shownRunSel);
@@ -127,11 +125,8 @@ export function Scoreboard() {
         </label>
         <button
           disabled={!run}
-          title="Save the scores of run A as the same JSON report the headless scorer writes"
-          onClick={() => {
-            const report = run ? stateReport(store.getState(), run) : null;
-            if (report) downloadBlob(`hairline-report-${run}.json`, new Blob([JSON.stringify(report, null, 2)], { type: 'application/json' }));
-          }}
+          title="Save the scores of run A as the same JSON report the headless scorer writes (Shift+D)"
+          onClick={() => command('report.save')}
         >
           save report
         </button>

@@ -3,6 +3,7 @@ import type { Viewer } from '../view/viewer.ts';
 import type { ViewPool } from '../workers/scorePool.ts';
 import type { CommandContext } from './commands/registry.ts';
 import { LeftPane } from './LeftPane.tsx';
+import { ExportDialog } from './ExportDialog.tsx';
 import { FlagDialog } from './FlagDialog.tsx';
 import { HelpOverlay } from './HelpOverlay.tsx';
 import { LayerBar } from './LayerBar.tsx';
@@ -62,6 +63,7 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
   const datasetError = useApp((s) => s.datasetError);
   const [dropping, setDropping] = useState(false);
   const widths = useApp((s) => s.paneWidths);
+  const exporting = useApp((s) => s.dialog === 'export' && s.dataset !== null);
   useCommandKeys();
   return (
     <div
@@ -109,6 +111,7 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
       {hasDataset && <Timeline />}
       <HelpOverlay />
       <FlagDialog />
+      {exporting && <ExportDialog onClose={() => run('dialog.close')} />}
     </div>
   );
 }

@@ -5,6 +5,7 @@
 // sorts by score.
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { APP_COMMAND_LIST } from '../../src/ui/commands/appCommands.ts';
 import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
 
 const FRAMES = 8;
@@ -111,6 +112,40 @@ describe('review workspace layout (real Chromium)', () => {
     expect(before).toBeGreaterThanOrEqual(0);
     await page.keyboard.press(before < total - 1 ? 'q' : 'Shift+Q');
     await expect.poll(at).toBe(before < total - 1 ? before + 1 : before - 1);
+    await page.close();
+  });
+
+  it('closes help, the flag form, the export dialog and the opened panel with Esc, and lists every keyed command in help', async () => {
+    const page = await browser.newPage({ viewport: { width: 1300, height: 760 } });
+    const errors = pageErrors(page);
+    await openQueue(page);
+    const help = page.locator('[role=dialog][aria-label="Keyboard commands"]');
+    await page.keyboard.press('?');
+    await help.waitFor();
+    const keyed = APP_COMMAND_LIST.filter((c) => c.keys.length > 0).length;
+    expect(await help.locator('tbody tr').count()).toBe(keyed);
+    await page.keyboard.press('Escape');
+    await help.waitFor({ state: 'detached' });
+    // The flag form: Esc closes it, also with the note field focused.
+    const form = page.locator('.flag-dialog[role=dialog]').first();
+    await page.keyboard.press('m');
+    await form.waitFor();
+    await page.keyboard.press('Escape');
+    await form.waitFor({ state: 'detached' });
+    await page.keyboard.press('m');
+    await form.locator('button.primary').click();
+    await form.waitFor({ state: 'detached' });
+    const exportDialog = page.locator('[role=dialog][aria-label="Export tiles"]');
+    await page.keyboard.press('Shift+T');
+    await exportDialog.waitFor();
+    await page.keyboard.press('Escape');
+    await exportDialog.waitFor({ state: 'detached' });
+    const opened = page.locator('[role=dialog][aria-label="What was opened"]');
+    await page.keyboard.press('Shift+O');
+    await opened.waitFor();
+    await page.keyboard.press('Escape');
+    await opened.waitFor({ state: 'detached' });
+    expect(errors.filter((e) => !e.includes('GPU stall'))).toEqual([]);
     await page.close();
   });
 });

@@ -1,4 +1,4 @@
-import type { DisagreeMode, LayerBase, LayerKey } from '../../core/composite/layerSettings.ts';
+import { DISAGREE_MODES, type DisagreeMode, type LayerBase, type LayerKey } from '../../core/composite/layerSettings.ts';
 import { BAND_WIDTH_MAX } from '../../core/metrics/bandHistogram.ts';
 import { hasFrames } from './frameCommands.ts';
 import { cmd, commandTable, type CommandContext } from './registry.ts';
@@ -87,13 +87,12 @@ export const LAYER_COMMANDS = commandTable({
     run: (ctx) => bandWidthSet(ctx, ctx.store.getState().bandWidth - 1),
   }),
   'band.width': cmd<number>({ label: 'Set the band width', group: 'Layers', keys: [], enabled: () => true, run: bandWidthSet }),
-  'solo.off': cmd({
-    label: 'Stop box drawing, or stop showing one class only', group: 'Layers', keys: ['Escape'],
-    enabled: ({ store }) => store.getState().layers.solo.on || store.getState().boxDrawing,
+  'layer.colourByNext': cmd({
+    label: 'Colour disagreement by the next of: kind of error, true class, predicted class', group: 'Layers', keys: ['V'], enabled: hasFrames,
     run: ({ store }) => {
-      const s = store.getState();
-      if (s.boxDrawing) return s.boxDrawingSet(false);
-      s.layersSet({ solo: { ...s.layers.solo, on: false } });
+      const { disagree } = store.getState().layers;
+      const mode = DISAGREE_MODES[(DISAGREE_MODES.indexOf(disagree.mode) + 1) % DISAGREE_MODES.length];
+      store.getState().layersSet({ disagree: { ...disagree, mode } });
     },
   }),
   'run.next': cmd({
@@ -113,5 +112,14 @@ export const LAYER_COMMANDS = commandTable({
     },
   }),
   'run.a': cmd<string | null>({ label: 'Choose run A', group: 'Runs', keys: [], enabled: hasRuns(1), run: ({ store }, runA) => store.getState().runsSet({ runA }) }),
+  'run.nextB': cmd({
+    label: 'Compare with the next run (then none)', group: 'Runs', keys: ['Shift+R'], enabled: hasRuns(2),
+    run: (ctx) => {
+      const s = ctx.store.getState();
+      const others = s.dataset!.pairing.runs.filter((r) => r !== s.runA);
+      const at = s.runB === null ? -1 : others.indexOf(s.runB);
+      runBSet(ctx, at + 1 < others.length ? others[at + 1] : null);
+    },
+  }),
   'run.b': cmd<string | null>({ label: 'Choose the run to compare with', group: 'Runs', keys: [], enabled: hasRuns(1), run: runBSet }),
 });

@@ -5,7 +5,7 @@ import { suspectKey } from '../../core/review/verdict.ts';
 import type { Suspect } from '../../core/suspects/suspectQueue.ts';
 import type { FlagInput } from '../../state/reviewSlice.ts';
 import { queueShownSel } from '../../state/queueShown.ts';
-import type { QueueView } from '../../state/queueView.ts';
+import { QUEUE_SORTS, QUEUE_VERDICT_FILTERS, type QueueView } from '../../state/queueView.ts';
 import { suspectsRankedSel } from '../../state/suspectsRanked.ts';
 import type { AppState } from '../../state/store.ts';
 import { VERDICT_NAMES } from '../regionWords.ts';
@@ -64,6 +64,11 @@ function verdictKeyed(verdict: ReviewJudgement) {
   });
 }
 
+/** Returns the entry after `v` in `list`, wrapping round. */
+function nextOf<T>(list: readonly T[], v: T): T {
+  return list[(list.indexOf(v) + 1) % list.length];
+}
+
 const hasQueue = ({ store }: CommandContext) => queueShownSel(store.getState()).length > 0;
 
 /** The likely-label-mistake queue, verdicts and flags. */
@@ -71,6 +76,14 @@ export const REVIEW_COMMANDS = commandTable({
   'queue.next': cmd({ label: 'Next likely label mistake', group: 'Likely label mistakes', keys: ['Q'], enabled: hasQueue, run: (ctx) => queueStep(ctx, 1) }),
   'queue.prev': cmd({ label: 'Previous likely label mistake', group: 'Likely label mistakes', keys: ['Shift+Q'], enabled: hasQueue, run: (ctx) => queueStep(ctx, -1) }),
   'queue.select': cmd<Suspect>({ label: 'Inspect a likely label mistake', group: 'Likely label mistakes', keys: [], enabled: () => true, run: queueSelect }),
+  'queue.verdictNext': cmd({
+    label: 'Queue: show the next verdict filter (every, not judged, each verdict)', group: 'Likely label mistakes', keys: ['Shift+V'], enabled: () => true,
+    run: ({ store }) => store.getState().queueViewSet({ verdict: nextOf(QUEUE_VERDICT_FILTERS, store.getState().queueView.verdict) }),
+  }),
+  'queue.sortNext': cmd({
+    label: 'Queue: next order (rank, score high first, score low first)', group: 'Likely label mistakes', keys: ['Shift+S'], enabled: () => true,
+    run: ({ store }) => store.getState().queueViewSet({ sort: nextOf(QUEUE_SORTS, store.getState().queueView.sort) }),
+  }),
   'queue.view': cmd<Partial<QueueView>>({
     label: 'Filter or sort the queue', group: 'Likely label mistakes', keys: [], enabled: () => true,
     run: ({ store }, patch) => store.getState().queueViewSet(patch),

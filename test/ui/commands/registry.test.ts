@@ -86,11 +86,11 @@ describe('command registry: enabled-when', () => {
     expect(enabled(store, 'run.swap')).toBe(false);
     expect(enabled(store, 'verdict.label-mistake')).toBe(false);
     expect(enabled(store, 'flag.selected')).toBe(false);
-    expect(enabled(store, 'solo.off')).toBe(false);
+    expect(enabled(store, 'overlay.close')).toBe(false);
     expect(enabled(store, 'review.undo')).toBe(false);
     run(store, 'layer.only', 7);
-    expect(enabled(store, 'solo.off')).toBe(true);
-    run(store, 'solo.off');
+    expect(enabled(store, 'overlay.close')).toBe(true);
+    run(store, 'overlay.close');
     expect(store.getState().layers.solo.on).toBe(false);
     const two = storeWith(3, ['r1', 'r2']);
     run(two, 'run.b', 'r2');
@@ -205,5 +205,47 @@ describe('command registry: payloads and their rules', () => {
     expect(store.getState().flagDraft).toBeNull();
     run(store, 'flag.boxDrawn', [3, 3, 9, 9]);
     expect(store.getState().flagDraft).toMatchObject({ frame: 'f0', kind: 'rect', bbox: [3, 3, 9, 9], run: 'r1' });
+  });
+});
+
+describe('command registry: Esc and keys for every action', () => {
+  it('closes the topmost open thing per Esc press: flag form, help, dialog, box drawing, one class only, message', () => {
+    const store = storeWith(3, ['r1']);
+    store.getState().datasetErrorSet('bad folder');
+    run(store, 'layer.only', 7);
+    run(store, 'flag.box');
+    store.getState().dialogSet('export');
+    run(store, 'help');
+    run(store, 'flag.frame');
+    const open = () => {
+      const s = store.getState();
+      return [s.flagDraft !== null, s.helpOpen, s.dialog !== null, s.boxDrawing, s.layers.solo.on, s.datasetError !== null];
+    };
+    expect(open()).toEqual([true, true, true, true, true, true]);
+    const esc = commandForChord(APP_COMMAND_LIST, 'Escape')!;
+    for (let closed = 1; closed <= 6; closed++) {
+      expect(esc.enabled({ store, viewer: null })).toBe(true);
+      esc.run({ store, viewer: null });
+      expect(open()).toEqual(Array.from({ length: 6 }, (_, i) => i >= closed));
+    }
+    expect(esc.enabled({ store, viewer: null })).toBe(false);
+  });
+
+  it('gives every action without a payload a key, so the help lists it; the cycling keys step through their lists', () => {
+    // Commands the UI runs as answers to a form or a button next to an open thing, not as actions of their own.
+    const answers = new Set(['flag.cancel', 'dialog.close', 'play.step', 'dataset.openDemo', 'dataset.dismissError', 'results.rescore', 'results.dismissError']);
+    const unkeyed = APP_COMMAND_LIST.filter((c) => c.keys.length === 0 && c.run.length < 2 && !answers.has(c.id)).map((c) => c.id);
+    expect(unkeyed).toEqual([]);
+    const store = storeWith(3, ['r1', 'r2', 'r3']);
+    const modes = [1, 2, 3].map(() => (run(store, 'layer.colourByNext'), store.getState().layers.disagree.mode));
+    expect(modes).toEqual(['truth', 'pred', 'kind']);
+    const bs = [1, 2, 3].map(() => (run(store, 'run.nextB'), store.getState().runB));
+    expect(bs).toEqual(['r2', 'r3', null]);
+    const lists = [1, 2, 3].map(() => (run(store, 'pane.nextList'), store.getState().leftTab));
+    expect(lists).toEqual(['queue', 'flags', 'frames']);
+    const sorts = [1, 2, 3].map(() => (run(store, 'queue.sortNext'), store.getState().queueView.sort));
+    expect(sorts).toEqual(['score-high', 'score-low', 'rank']);
+    run(store, 'queue.verdictNext');
+    expect(store.getState().queueView.verdict).toBe('unjudged');
   });
 });
