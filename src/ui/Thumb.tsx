@@ -1,5 +1,6 @@
 import { useEffect, useRef } from 'react';
 import type { DatasetSource } from '../data/sources/source.ts';
+import { markCss } from './markCss.ts';
 
 const W = 112;
 const H = 72;
@@ -31,7 +32,7 @@ export function Thumb({ source, image, bbox }: { source: DatasetSource; image: s
         ctx.drawImage(bmp, 0, 0);
         bmp.close();
         const k = W / sw;
-        ctx.strokeStyle = '#00f0ff';
+        ctx.strokeStyle = markCss('highlight');
         ctx.lineWidth = 1.5;
         ctx.strokeRect((x0 - sx) * k - 1, (y0 - sy) * k - 1, bw * k + 2, bh * k + 2);
       } catch {

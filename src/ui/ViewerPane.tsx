@@ -5,6 +5,7 @@ import { viewerBind } from '../view/viewerBind.ts';
 import type { ViewPool } from '../workers/scorePool.ts';
 import { VIEW_COMMANDS } from '../workers/viewJobs.ts';
 import { BoxDraw } from './BoxDraw.tsx';
+import { Legend } from './Legend.tsx';
 import { Readout } from './Readout.tsx';
 import { useApp, useAppStore } from './storeContext.tsx';
 
@@ -59,6 +60,7 @@ export function ViewerPane({ pool, onViewer }: { pool: ViewPool; onViewer: (v: V
       {shownError && <div className="viewer-note bad" role="alert">{shownError}</div>}
       {!shownError && notes.length > 0 && <div className="viewer-note">{notes.join(' · ')}</div>}
       {loading && <div className="viewer-loading">decoding…</div>}
+      <Legend />
       {viewer && <Readout viewer={viewer} />}
       {viewer && host.current && <BoxDraw host={host.current} viewer={viewer} />}
     </div>

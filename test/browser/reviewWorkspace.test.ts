@@ -5,6 +5,7 @@
 // sorts by score.
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { MARK_COLORS } from '../../src/core/composite/compositePalette.ts';
 import { APP_COMMAND_LIST } from '../../src/ui/commands/appCommands.ts';
 import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
 
@@ -146,6 +147,24 @@ describe('review workspace layout (real Chromium)', () => {
     await page.keyboard.press('Escape');
     await opened.waitFor({ state: 'detached' });
     expect(errors.filter((e) => !e.includes('GPU stall'))).toEqual([]);
+    await page.close();
+  });
+
+  it('shows a legend for the layers on, in the colours the compositor paints', async () => {
+    const page = await browser.newPage({ viewport: { width: 1300, height: 760 } });
+    await openQueue(page);
+    const swatch = (marks: string) => page.locator(`.legend-strip li[data-marks="${marks}"] .lg-swatch`);
+    const rgb = (n: number) => `rgb(${(n >> 16) & 255}, ${(n >> 8) & 255}, ${n & 255})`;
+    expect(await page.locator('.layer-bar input[type=checkbox]').nth(3).isChecked()).toBe(true);
+    expect(await swatch('wrong').evaluate((e) => getComputedStyle(e).backgroundColor)).toBe(rgb(MARK_COLORS.wrong));
+    expect(await swatch('invalid').evaluate((e) => getComputedStyle(e).backgroundColor)).toBe(rgb(MARK_COLORS.invalid));
+    await page.keyboard.press('4');
+    await swatch('wrong').waitFor({ state: 'detached' });
+    await page.keyboard.press('Shift+R');
+    await page.keyboard.press('7');
+    await page.keyboard.press('7');
+    await swatch('fixed').waitFor();
+    expect(await swatch('broke').evaluate((e) => getComputedStyle(e).backgroundColor)).toBe(rgb(MARK_COLORS.broke));
     await page.close();
   });
 });

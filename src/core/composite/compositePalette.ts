@@ -21,21 +21,23 @@ export const MARK_INDEX = Object.fromEntries(MARK_KEYS.map((k, i) => [k, i * 4])
 export type MarkColors = Record<MarkKey, number>;
 
 /**
- * Our own choice of overlay colours: saturated hues kept apart from each other (magenta vs amber for
- * the two disagreement kinds, green vs crimson for fixed vs broke) and a light/dark stripe pair so
- * the void hatch stays visible over bright and dark photos alike.
+ * Our own choice of overlay colours, picked by search and held by test/core/composite/markColors.test.ts:
+ * the error kinds (dark red vs khaki), fixed vs broke (blue vs vermilion), the band and the outline
+ * stay apart under normal vision and simulated protanopia, deuteranopia and tritanopia, and apart
+ * from the demo's class colours. The void hatch is a light/dark stripe pair, so it is told by its
+ * pattern and stays visible over bright and dark photos alike.
  */
 export const MARK_COLORS: Readonly<MarkColors> = {
   background: 0x1d2126,
-  wrong: 0xff1fb4,
-  invalid: 0xffc400,
-  fixed: 0x19e36a,
-  broke: 0xff0050,
+  wrong: 0xaa0000,
+  invalid: 0xaabb66,
+  fixed: 0x0000ff,
+  broke: 0xff3300,
   band: 0x4fb3ff,
   hatchLight: 0xeeeae0,
   hatchDark: 0x2a2630,
   dim: 0x07080a,
-  highlight: 0x00f0ff,
+  highlight: 0xffffff,
   voidFill: 0x3b3844,
 };
 

@@ -3,6 +3,7 @@
 // pngjs (PNG.sync.read, a second decoder) and compared pixel for pixel with the ids the fixture
 // generated, the PNG header bytes (ISO/IEC 15948 §11.2.2) say which encoding was written, and
 // tiles.csv is parsed with Python's csv module (RFC 4180) and compared field by field with manifest.json.
+import { MARK_COLORS } from '../../../src/core/composite/compositePalette.ts';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -223,9 +224,10 @@ function overlayCheck(files: Record<string, Uint8Array>, row: TileRow, src: Fixt
   if (!want.ok) throw new Error(want.error);
   expect(Buffer.compare(Buffer.from(png.data), Buffer.from(want.value)), row.overlay!.file).toBe(0);
   if (fb && fb[0] - 1 >= x0 && fb[1] >= y0) {
-    // One pixel left of the flag box, inside the tile: the outline colour (0x00f0ff at full opacity).
+    // One pixel left of the flag box, inside the tile: the outline colour (MARK_COLORS.highlight at full opacity).
     const o = ((fb[1] - y0) * (x1 - x0) + (fb[0] - 1 - x0)) * 4;
-    expect([png.data[o], png.data[o + 1], png.data[o + 2]]).toEqual([0x00, 0xf0, 0xff]);
+    const h = MARK_COLORS.highlight;
+    expect([png.data[o], png.data[o + 1], png.data[o + 2]]).toEqual([(h >> 16) & 255, (h >> 8) & 255, h & 255]);
   }
 }
 

@@ -1,0 +1,44 @@
+import type { LayerKey } from './layerSettings.ts';
+import type { MarkKey } from './compositePalette.ts';
+
+/** How a legend entry is drawn: a filled swatch, stripes of two marks, an outline, or class colours. */
+export type LegendLook = 'fill' | 'shade' | 'stripes' | 'outline' | 'classes';
+
+/** One line of the legend: the marks it shows (their colours from MARK_COLORS), how, and what they mean. */
+export interface LegendEntry {
+  marks: readonly MarkKey[];
+  look: LegendLook;
+  words: string;
+  /** For the disagreement layer: the colouring mode the entry belongs to (the other modes use class colours). */
+  mode?: 'kind' | 'truth' | 'pred';
+}
+
+/**
+ * What every layer paints, by layer: the one description the on-screen legend reads. It is keyed by
+ * LAYER_KEYS and names marks by MARK_KEYS, the shader's own tables, so a layer or mark added to
+ * them must be described here (the type and test/core/composite/markLegend.test.ts see to it).
+ */
+export const MARK_LEGEND: Readonly<Record<LayerKey, readonly LegendEntry[]>> = {
+  photo: [{ marks: ['background'], look: 'fill', words: 'no photo' }],
+  truth: [{ marks: [], look: 'classes', words: 'ground truth in class colours' }],
+  pred: [
+    { marks: [], look: 'classes', words: 'prediction in class colours' },
+    { marks: ['voidFill'], look: 'fill', words: 'predicted the void id' },
+  ],
+  band: [{ marks: ['band'], look: 'shade', words: 'boundary band' }],
+  disagree: [
+    { marks: ['wrong'], look: 'fill', words: 'predicted another class', mode: 'kind' },
+    { marks: ['invalid'], look: 'fill', words: 'predicted an id that is not a class', mode: 'kind' },
+    { marks: [], look: 'classes', words: 'disagreement in the true class colour', mode: 'truth' },
+    { marks: [], look: 'classes', words: 'disagreement in the predicted class colour', mode: 'pred' },
+  ],
+  compare: [
+    { marks: ['fixed'], look: 'fill', words: 'fixed: B right where A was wrong' },
+    { marks: ['broke'], look: 'fill', words: 'broke: B wrong where A was right' },
+  ],
+  void: [{ marks: ['hatchLight', 'hatchDark'], look: 'stripes', words: 'void in the ground truth' }],
+  highlight: [{ marks: ['highlight'], look: 'outline', words: 'selected region' }],
+};
+
+/** The mark that is no layer's own: what showing one class only dims the rest toward. */
+export const LEGEND_SOLO: LegendEntry = { marks: ['dim'], look: 'fill', words: 'dimmed: not the class shown' };
