@@ -124,10 +124,14 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     void next().finally(() => (liveBusy = false));
   };
 
+  // Frames of the current pass not yet handed to a worker, the next first.
+  let waiting: number[] = [];
+
   function restart(): void {
     const { dataset, settings, frameIndex, stored, storedLoading } = store.getState();
     pool.cancelAll();
     generation++;
+    waiting = [];
     const gen = generation;
     const frames = dataset?.pairing.frames ?? [];
     const built = dataset ? scoringTableResult(dataset, settings) : null;
@@ -142,21 +146,19 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
       liveBusy = false;
       return live(gen, Math.min(frameIndex, frames.length - 1), runOne);
     }
-    const order = frames.map((_, i) => i);
-    const first = Math.min(frameIndex, frames.length - 1);
-    order.splice(first, 1);
-    order.unshift(first);
-    let next = 0;
+    waiting = scoreOrder(frames.map((_, i) => i), Math.min(frameIndex, frames.length - 1));
     const window = Math.max(1, pool.size * 2);
 
     const lane = async (): Promise<void> => {
-      while (gen === generation && next < order.length) await runOne(order[next++]);
+      while (gen === generation && waiting.length > 0) await runOne(waiting.shift()!);
     };
     for (let i = 0; i < window; i++) void lane();
   }
 
   const unsubscribe = store.subscribe((s) => [s.dataset, s.settings, s.stored, s.storedLoading] as const, restart, { equalityFn: shallow });
   const unsubscribeFrame = store.subscribe((s) => s.frameIndex, (index) => {
+    // Frames not started yet go in order of their distance from the frame now on screen.
+    waiting = scoreOrder(waiting, index);
     const { dataset, stored, settings } = store.getState();
     const built = dataset && stored ? scoringTableResult(dataset, settings) : null;
     if (!dataset || !built?.ok || index >= dataset.pairing.frames.length) return;
@@ -170,4 +172,14 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
     generation++;
     pool.cancelAll();
   };
+}
+
+/**
+ * Returns `indices` in scoring order around frame `at`: `at` first, then its neighbours by distance
+ * (the next frame before the previous one at the same distance), so the frame on screen and the ones
+ * a reviewer steps to next are scored first.
+ */
+export function scoreOrder(indices: readonly number[], at: number): number[] {
+  const key = (i: number) => 2 * Math.abs(i - at) - (i > at ? 1 : 0);
+  return [...indices].sort((a, b) => key(a) - key(b));
 }

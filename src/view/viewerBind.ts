@@ -70,10 +70,17 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
     const table = scoringTableSel(store.getState());
     if (table) viewer.paletteSet(compositePaletteFromTable(table));
   };
+  // The first frame drawn fits itself to the canvas; a place already in the store (a deep link's
+  // zoom) is put back over that fit, once.
+  let placeKept = false;
   const frameApply = () => {
     // The viewer refuses frames it cannot show (over 8192 px on a side); say so instead of a blank.
     const r = viewer.frameSet(store.getState().shown);
     options.onRefused(r.ok ? null : r.error);
+    if (r.ok && store.getState().shown && !placeKept) {
+      placeKept = true;
+      placeApply();
+    }
   };
   const placeApply = () => {
     const { place } = store.getState();

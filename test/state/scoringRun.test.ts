@@ -4,7 +4,7 @@ import type { LabelMap } from '../../src/core/labelMap.ts';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
 import type { DatasetSource } from '../../src/data/sources/source.ts';
 import { datasetFromSource, datasetInstall } from '../../src/state/datasetLoad.ts';
-import { scoringKeep } from '../../src/state/scoringRun.ts';
+import { scoreOrder, scoringKeep } from '../../src/state/scoringRun.ts';
 import { stateReport } from '../../src/state/stateReport.ts';
 import { appStoreCreate, type AppStore } from '../../src/state/store.ts';
 import { workerPoolCreate } from '../../src/workers/pool.ts';
@@ -52,6 +52,27 @@ function settled(store: AppStore): Promise<void> {
 }
 
 describe('scoringKeep: the pipeline that keeps scores in step with the dataset and settings', () => {
+  it('scores the frame on screen first, then its neighbours, also when the view moves to a frame after the pass started (a deep link)', async () => {
+    expect(scoreOrder([0, 1, 2, 3, 4, 5, 6], 3)).toEqual([3, 4, 2, 5, 1, 6, 0]);
+    expect(scoreOrder([9, 0, 5], 0)).toEqual([0, 5, 9]);
+    pool = workerPoolCreate<ScoreJobs>(() => threadPortCreate(ENTRY), 1);
+    const store = appStoreCreate();
+    stop = scoringKeep(store, pool);
+    const names = Array.from({ length: 30 }, (_, i) => `g${String(i).padStart(2, '0')}`);
+    const delivered: number[] = [];
+    store.subscribe((s) => s.results, (results) => results.forEach((r, i) => r && !delivered.includes(i) && delivered.push(i)));
+    datasetInstall(store, datasetFromSource(sourceMake(names)));
+    // The link's frame is applied once the dataset is in, as the page does it.
+    store.getState().frameIndexSet(20);
+    await settled(store);
+    // Two jobs are handed out before the link's frame is known (frames 0 and 1); then frame 20, then its
+    // neighbours (two jobs in flight at a time may finish in either order).
+    expect(new Set(delivered.slice(0, 2))).toEqual(new Set([0, 1]));
+    expect(delivered[2]).toBe(20);
+    for (const i of delivered.slice(3, 9)) expect(Math.abs(i - 20)).toBeLessThanOrEqual(4);
+    expect(delivered).toHaveLength(30);
+  });
+
   it('scores every frame; a worker that dies marks its frame with an error, and the rest are scored', async () => {
     pool = workerPoolCreate<ScoreJobs>(() => threadPortCreate(ENTRY), 2);
     const store = appStoreCreate();
