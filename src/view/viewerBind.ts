@@ -78,6 +78,7 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
     const r = viewer.frameSet(store.getState().shown);
     options.onRefused(r.ok ? null : r.error);
     if (r.ok && store.getState().shown && !placeKept) {
+      if (store.getState().place === null) return void (placeKept = true);
       placeKept = true;
       placeApply();
     }

@@ -109,6 +109,26 @@ describe('viewerBind: the store drives the viewer without React', () => {
     stop();
   });
 
+  it('puts a place stored before the first frame (a deep link) back over the fit that frame makes, once', () => {
+    const store = storeWithFrames(3);
+    const v = fakeViewer();
+    // As the real viewer does: a frame of a new size fits itself to the canvas.
+    const frameSet = v.viewer.frameSet;
+    v.viewer.frameSet = (f) => {
+      const r = frameSet(f);
+      if (f) v.viewer.viewSet({ cx: 50, cy: 25, scale: 0.5 });
+      return r;
+    };
+    const stop = viewerBind(store, v.viewer, { compose: noCompose, onRefused: () => {}, canvasSize: size });
+    store.getState().placeSet({ cx: 5, cy: 6, scale: 4 });
+    store.getState().shownSet(0, frame('f0'), null);
+    expect(v.views.at(-1)).toEqual({ cx: 5, cy: 6, scale: 4 });
+    // Later frames keep their own fit (the binding does not hold the first place for ever).
+    store.getState().shownSet(1, frame('f1'), null);
+    expect(v.views.at(-1)).toEqual({ cx: 50, cy: 25, scale: 0.5 });
+    stop();
+  });
+
   it('centres on a focused box once its frame is on screen, once per focus', () => {
     const store = storeWithFrames(3);
     const v = fakeViewer();
