@@ -9,7 +9,7 @@ export const FRAME_SCORE_KEYS = ['meanIoU', 'bandIoU', 'boundaryIoU', 'boundaryF
 export type FrameScoreKey = (typeof FRAME_SCORE_KEYS)[number];
 
 /** Dialogs and panels that open over the workspace (the flag form and help have their own state). */
-export type WorkspaceDialog = 'export' | 'opened';
+export type WorkspaceDialog = 'export' | 'exportMistakes' | 'opened';
 
 /** Widths of the side panes, CSS pixels. */
 export interface PaneWidths {

@@ -8,13 +8,13 @@ import { VERDICT_NAMES } from './regionWords.ts';
 import { useApp, useAppStore, useViewPool } from './storeContext.tsx';
 
 /** Choose flags and how to cut them, then build the tile ZIP (streamed, with progress and cancel) and download it. */
-export function ExportDialog({ onClose }: { onClose: () => void }) {
+export function ExportDialog({ onClose, reasonOnly = null }: { onClose: () => void; reasonOnly?: string | null }) {
   const store = useAppStore();
   const pool = useViewPool();
   const flags = useApp((s) => s.reviewFlags);
   const frame = useApp((s) => s.dataset?.pairing.frames[s.frameIndex]?.name ?? '');
-  const [which, setWhich] = useState<'all' | 'reason' | 'frame'>('all');
-  const [reason, setReason] = useState('label-mistake');
+  const [which, setWhich] = useState<'all' | 'reason' | 'frame'>(reasonOnly ? 'reason' : 'all');
+  const [reason, setReason] = useState(reasonOnly ?? 'label-mistake');
   const [kind, setKind] = useState<'crop' | 'tile'>('crop');
   const [padding, setPadding] = useState(32);
   const [size, setSize] = useState(512);

@@ -57,6 +57,9 @@ export function QueuePanel() {
             {VERDICT_NAMES[v]} {progress.byVerdict[v]}
           </span>
         ))}
+        <button className="qp-export" disabled={progress.byVerdict['label-mistake'] === 0} title={`Flag every item judged a label mistake (region, reasons, score) and export their tiles (${commandKeys('verdicts.export')[0]})`} onClick={() => run('verdicts.export')}>
+          export label mistakes…
+        </button>
       </p>
       <div className="queue-filters">
         <select value={view.verdict} onChange={(e) => run('queue.view', { verdict: e.currentTarget.value as QueueVerdictFilter })} aria-label="filter by verdict">

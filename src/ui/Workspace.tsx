@@ -63,7 +63,8 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
   const datasetError = useApp((s) => s.datasetError);
   const [dropping, setDropping] = useState(false);
   const widths = useApp((s) => s.paneWidths);
-  const exporting = useApp((s) => s.dialog === 'export' && s.dataset !== null);
+  const exporting = useApp((s) => (s.dialog === 'export' || s.dialog === 'exportMistakes') && s.dataset !== null);
+  const mistakesOnly = useApp((s) => s.dialog === 'exportMistakes');
   useCommandKeys();
   return (
     <div
@@ -111,7 +112,7 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
       {hasDataset && <Timeline />}
       <HelpOverlay />
       <FlagDialog />
-      {exporting && <ExportDialog onClose={() => run('dialog.close')} />}
+      {exporting && <ExportDialog key={String(mistakesOnly)} reasonOnly={mistakesOnly ? 'label-mistake' : null} onClose={() => run('dialog.close')} />}
     </div>
   );
 }

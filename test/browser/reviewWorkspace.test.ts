@@ -3,6 +3,8 @@
 // and every action whatever the pane's width (checked by element geometry); stepping with Q keeps
 // the selected item in view; the progress line counts verdicts; the list filters by verdict and
 // sorts by score.
+import { readFileSync } from 'node:fs';
+import { strFromU8, unzipSync } from 'fflate';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MARK_COLORS } from '../../src/core/composite/compositePalette.ts';
@@ -188,6 +190,40 @@ describe('review workspace layout (real Chromium)', () => {
     const s = await page.evaluate(() => { const s = (window as any).hairline.store.getState(); return [s.dataset.pairing.frames[s.frameIndex].name, s.bandWidth]; });
     expect(s).toEqual(['kq-0008', 5]);
     expect(await page.evaluate(() => location.hash)).toMatch(/z=100\.0%2C60\.0%2C4(&|$)/);
+    await page.close();
+  });
+
+  it('turns label-mistake verdicts into a tile ZIP in one step (Shift+E), each tile with its region, reasons and score', async () => {
+    const page = await browser.newPage({ viewport: { width: 1300, height: 760 } });
+    await openQueue(page);
+    // Judge the first three items: two label mistakes, one model error.
+    for (const key of ['l', 'e', 'l']) {
+      await page.keyboard.press('q');
+      await page.keyboard.press(key);
+    }
+    const judged = await page.evaluate(() =>
+      Object.values((window as any).hairline.store.getState().reviewVerdicts as Record<string, { verdict: string; frame: string; bbox: number[] }>).filter((v) => v.verdict === 'label-mistake').map((v) => `${v.frame}|${v.bbox.join(',')}`),
+    );
+    expect(judged).toHaveLength(2);
+    await page.keyboard.press('Shift+E');
+    const dialog = page.locator('[role=dialog][aria-label="Export tiles"]');
+    await dialog.waitFor();
+    await expect.poll(() => dialog.locator('button.primary').innerText()).toBe('export 2 flags');
+    const [download] = await Promise.all([page.waitForEvent('download', { timeout: 120_000 }), dialog.locator('button.primary').click()]);
+    const zip = unzipSync(new Uint8Array(readFileSync((await download.path())!)));
+    const manifest = JSON.parse(strFromU8(zip['manifest.json']));
+    expect(manifest.failed).toEqual([]);
+    const tiles = manifest.tiles as { frame: string; flagBox: number[]; reason: string; region: { score: number; reasons: string[] } | null }[];
+    expect(new Set(tiles.map((t) => `${t.frame}|${t.flagBox.join(',')}`))).toEqual(new Set(judged));
+    for (const t of tiles) {
+      expect(t.reason).toBe('label-mistake');
+      expect(t.region!.score).toBeGreaterThan(0);
+      expect(t.region!.reasons.length).toBeGreaterThan(0);
+    }
+    // Again: the judged items are flagged already, so no second flag is made.
+    await page.keyboard.press('Escape');
+    await page.keyboard.press('Shift+E');
+    await expect.poll(() => dialog.locator('button.primary').innerText()).toBe('export 2 flags');
     await page.close();
   });
 });

@@ -76,6 +76,21 @@ export const REVIEW_COMMANDS = commandTable({
   'queue.next': cmd({ label: 'Next likely label mistake', group: 'Likely label mistakes', keys: ['Q'], enabled: hasQueue, run: (ctx) => queueStep(ctx, 1) }),
   'queue.prev': cmd({ label: 'Previous likely label mistake', group: 'Likely label mistakes', keys: ['Shift+Q'], enabled: hasQueue, run: (ctx) => queueStep(ctx, -1) }),
   'queue.select': cmd<Suspect>({ label: 'Inspect a likely label mistake', group: 'Likely label mistakes', keys: [], enabled: () => true, run: queueSelect }),
+  /** Flags every queue item judged a label mistake that has no flag of its box yet (region, reasons and score on the flag), then opens the export on them. */
+  'verdicts.export': cmd({
+    label: 'Flag the items judged label mistakes and export them…', group: 'Flags', keys: ['Shift+E'],
+    enabled: ({ store }) => Object.values(store.getState().reviewVerdicts).some((v) => v.verdict === 'label-mistake'),
+    run: ({ store }) => {
+      const s = store.getState();
+      const flagged = new Set(s.reviewFlags.filter((f) => f.kind === 'region' && f.bbox).map((f) => `${f.frame}|${f.bbox!.join(',')}`));
+      for (const item of suspectsRankedSel(s)) {
+        if (verdictOf(s, item) !== 'label-mistake' || flagged.has(`${item.frame}|${item.bbox.join(',')}`)) continue;
+        flagged.add(`${item.frame}|${item.bbox.join(',')}`);
+        store.getState().flagAdd(flagDraftOf(item, 'label-mistake'));
+      }
+      store.getState().dialogSet('exportMistakes');
+    },
+  }),
   'queue.verdictNext': cmd({
     label: 'Queue: show the next verdict filter (every, not judged, each verdict)', group: 'Likely label mistakes', keys: ['Shift+V'], enabled: () => true,
     run: ({ store }) => store.getState().queueViewSet({ verdict: nextOf(QUEUE_VERDICT_FILTERS, store.getState().queueView.verdict) }),
