@@ -39,12 +39,28 @@ export function layersLookAlike(a: LayerSettings, b: LayerSettings): boolean {
 }
 
 /** Returns the view that shows `box` (image pixels, end-exclusive) three times over, centred, in a canvas of `size` device pixels. */
-export function viewOfBox(box: readonly [number, number, number, number], size: { width: number; height: number }): { cx: number; cy: number; scale: number } {
+export function viewOfBox(
+  box: readonly [number, number, number, number],
+  size: { width: number; height: number },
+  frame: { width: number; height: number },
+): { cx: number; cy: number; scale: number } {
   const [x0, y0, x1, y1] = box;
-  const bw = Math.max(8, x1 - x0), bh = Math.max(8, y1 - y0);
-  const scale = Math.max(0.05, Math.min(16, size.width / (bw * 3), size.height / (bh * 3)));
-  return { cx: (x0 + x1) / 2, cy: (y0 + y1) / 2, scale };
+  // Context: the box takes about a third of the canvas each way, and at least FOCUS_CONTEXT image
+  // pixels show around a tiny one; never further out than the whole frame fitted, never past FOCUS_MAX_SCALE.
+  const bw = Math.max(FOCUS_CONTEXT, (x1 - x0) * 3), bh = Math.max(FOCUS_CONTEXT, (y1 - y0) * 3);
+  const fit = Math.min(size.width / frame.width, size.height / frame.height);
+  const scale = Math.max(fit, Math.min(FOCUS_MAX_SCALE, size.width / bw, size.height / bh));
+  // Keep as much of the frame on the canvas as the zoom allows: the centre moves in from the edges.
+  const centre = (c: number, canvas: number, extent: number) => {
+    const half = canvas / (2 * scale);
+    return half * 2 >= extent ? extent / 2 : Math.max(half, Math.min(extent - half, c));
+  };
+  return { cx: centre((x0 + x1) / 2, size.width, frame.width), cy: centre((y0 + y1) / 2, size.height, frame.height), scale };
 }
+
+/** Image pixels shown at least around a focused box, and the closest a focus zooms (screen px per image px). */
+const FOCUS_CONTEXT = 64;
+const FOCUS_MAX_SCALE = 8;
 
 /**
  * Wires a viewer to the store without React: each store value the viewer shows is passed to it when
@@ -95,7 +111,7 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
     const s = store.getState();
     if (!s.focusBox || !s.shown || s.shownIndex !== s.frameIndex || focusedSeq === s.focusSeq) return;
     focusedSeq = s.focusSeq;
-    viewer.viewSet(viewOfBox(s.focusBox, options.canvasSize()));
+    viewer.viewSet(viewOfBox(s.focusBox, options.canvasSize(), s.shown));
   };
 
   paletteApply();

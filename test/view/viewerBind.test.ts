@@ -129,6 +129,21 @@ describe('viewerBind: the store drives the viewer without React', () => {
     stop();
   });
 
+  it('frames a focused box with context, never past the fit and never past 8x, keeping the frame on the canvas', () => {
+    const canvas = { width: 800, height: 600 };
+    const big = { width: 2048, height: 1024 };
+    // A 100×50 box: three times its size is 300×150 → 2.67× (within fit 0.39 .. 8).
+    expect(viewOfBox([1000, 500, 1100, 550], canvas, big)).toEqual({ cx: 1050, cy: 525, scale: 800 / 300 });
+    // A 2-pixel box: 64 px of context at most 8x, not 100x.
+    expect(viewOfBox([1000, 500, 1002, 502], canvas, big).scale).toBe(8);
+    // A box at the corner: the centre moves in so the canvas shows no space past the frame's edge.
+    const corner = viewOfBox([0, 0, 100, 50], canvas, big);
+    expect(corner.cx).toBeCloseTo(400 / corner.scale, 9);
+    expect(corner.cy).toBeCloseTo(300 / corner.scale, 9);
+    // A box as large as the frame: the frame fitted (0.390625×), centred.
+    expect(viewOfBox([0, 0, 2048, 1024], canvas, big)).toEqual({ cx: 1024, cy: 512, scale: 800 / 2048 });
+  });
+
   it('centres on a focused box once its frame is on screen, once per focus', () => {
     const store = storeWithFrames(3);
     const v = fakeViewer();
@@ -136,8 +151,9 @@ describe('viewerBind: the store drives the viewer without React', () => {
     store.getState().focusOn(2, [10, 4, 20, 14]);
     expect(v.calls).not.toContain('view');
     store.getState().shownSet(2, frame('f2'), null);
-    expect(v.views).toEqual([viewOfBox([10, 4, 20, 14], size())]);
-    expect(v.views[0]).toEqual({ cx: 15, cy: 9, scale: 16 });
+    expect(v.views).toEqual([viewOfBox([10, 4, 20, 14], size(), { width: 40, height: 20 })]);
+    // A 40×20 frame fits an 800×600 canvas at 20×: a focus never zooms out past that, so it shows the whole frame.
+    expect(v.views[0]).toEqual({ cx: 20, cy: 10, scale: 20 });
     expect(v.layers.at(-1)!.highlight.boxes).toEqual([{ x: 10, y: 4, width: 10, height: 10 }]);
     store.getState().shownSet(2, frame('f2'), null);
     expect(v.views.length).toBe(1);
