@@ -62,6 +62,8 @@ export interface ViewSlice {
   flagDraft: FlagInput | null;
   /** Drawing a box on the viewer to flag (also with Shift held while dragging). */
   boxDrawing: boolean;
+  /** The truth and prediction switches as they were before the curtain opened (put back when it closes), or null. */
+  curtainRestore: { truth: boolean; pred: boolean } | null;
   /** The dialog or panel open over the workspace (the tile export, what was opened), or null. */
   dialog: WorkspaceDialog | null;
   /** Widths of the left and right panes, CSS pixels (the viewer takes the rest). */
@@ -89,6 +91,7 @@ export interface ViewSlice {
   boxDrawingSet(on: boolean): void;
   paneWidthsSet(patch: Partial<PaneWidths>): void;
   dialogSet(dialog: WorkspaceDialog | null): void;
+  curtainRestoreSet(v: { truth: boolean; pred: boolean } | null): void;
   queueViewSet(patch: Partial<QueueView>): void;
 }
 
@@ -114,6 +117,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   boxDrawing: false,
   paneWidths: PANE_WIDTHS_DEFAULT,
   dialog: null,
+  curtainRestore: null,
   queueView: QUEUE_VIEW_DEFAULT,
   frameIndexSet: (index) => {
     const count = get().dataset?.pairing.frames.length ?? 0;
@@ -145,6 +149,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   flagDraftSet: (flagDraft) => set({ flagDraft }),
   boxDrawingSet: (boxDrawing) => set({ boxDrawing }),
   dialogSet: (dialog) => set({ dialog }),
+  curtainRestoreSet: (curtainRestore) => set({ curtainRestore }),
   paneWidthsSet: (patch) => set({ paneWidths: { ...get().paneWidths, ...patch } }),
   queueViewSet: (patch) => set({ queueView: { ...get().queueView, ...patch } }),
   focusClear: () => set({ focusBox: null }),

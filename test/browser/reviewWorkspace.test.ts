@@ -164,7 +164,6 @@ describe('review workspace layout (real Chromium)', () => {
     await swatch('wrong').waitFor({ state: 'detached' });
     await page.keyboard.press('Shift+R');
     await page.keyboard.press('7');
-    await page.keyboard.press('7');
     await swatch('fixed').waitFor();
     expect(await swatch('broke').evaluate((e) => getComputedStyle(e).backgroundColor)).toBe(rgb(MARK_COLORS.broke));
     await page.close();

@@ -24,9 +24,16 @@ function curtainSet({ store }: CommandContext, change: { on?: boolean; x?: numbe
   const width = s.shown?.width ?? s.results[s.frameIndex]?.width ?? 0;
   const x = Math.max(0, Math.round(change.x ?? (curtain.x > 0 ? curtain.x : width / 2)));
   const opening = on && !curtain.on;
+  const closing = !on && curtain.on;
+  // Opening shows truth and prediction; closing puts their switches back as they were, so the
+  // curtain leaves no layer on that it turned on.
+  const back = closing ? s.curtainRestore : null;
+  if (opening) s.curtainRestoreSet({ truth: truth.on, pred: pred.on });
+  if (closing) s.curtainRestoreSet(null);
   s.layersSet({
     curtain: { on, x },
     ...(opening ? { truth: { ...truth, on: true }, pred: { ...pred, on: true } } : {}),
+    ...(back ? { truth: { ...truth, on: back.truth }, pred: { ...pred, on: back.pred } } : {}),
   });
 }
 
@@ -39,7 +46,9 @@ function bandWidthSet({ store }: CommandContext, width: number): void {
 function runBSet({ store }: CommandContext, run: string | null): void {
   const s = store.getState();
   s.runsSet({ runB: run });
-  s.layersSet({ compare: { ...s.layers.compare, on: run !== null } });
+  // Choosing a run only makes fixed / broke available (7): switching it on here would paint over the
+  // disagreement layer and hide what "colour by" shows. Choosing none switches it off.
+  if (run === null) s.layersSet({ compare: { ...s.layers.compare, on: false } });
 }
 
 function layerToggle(key: LayerKey, label: string, keys: string[]) {

@@ -132,13 +132,23 @@ describe('command registry: payloads and their rules', () => {
     expect(store.getState().layers.curtain).toEqual({ on: true, x: 7 });
     run(store, 'curtain.set', { on: false });
     expect(store.getState().layers.curtain.on).toBe(false);
-    expect(store.getState().layers.truth.on).toBe(true);
+    // Closing puts the switches back: the curtain turned truth and prediction on, so they go off again;
+    // a layer that was on before stays on.
+    expect([store.getState().layers.truth.on, store.getState().layers.pred.on]).toEqual([false, false]);
+    run(store, 'layer.pred');
+    run(store, 'curtain.toggle');
+    run(store, 'curtain.toggle');
+    expect([store.getState().layers.truth.on, store.getState().layers.pred.on]).toEqual([false, true]);
   });
 
-  it('choosing run B turns the fixed / broke layer on, and none turns it off; swap and next run', () => {
+  it('choosing run B leaves the fixed / broke layer as it is (colour by stays visible), and none turns it off; swap and next run', () => {
     const store = storeWith(2, ['r1', 'r2', 'r3']);
+    run(store, 'layer.colourBy', 'truth');
     run(store, 'run.b', 'r3');
     expect(store.getState().runB).toBe('r3');
+    expect(store.getState().layers.compare.on).toBe(false);
+    expect(store.getState().layers.disagree).toMatchObject({ on: true, mode: 'truth' });
+    run(store, 'layer.compare');
     expect(store.getState().layers.compare.on).toBe(true);
     run(store, 'run.swap');
     expect([store.getState().runA, store.getState().runB]).toEqual(['r3', 'r1']);
