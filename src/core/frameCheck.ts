@@ -26,7 +26,14 @@ export function labelMapIdsCheck(map: LabelMap, table: ClassTable, file: string,
   if (role === 'prediction' || table.generated) return ok(undefined);
   const ids = map.ids;
   const hist = new Uint32Array(ids instanceof Uint8Array ? 256 : 65536);
-  for (let i = 0; i < ids.length; i++) hist[ids[i]]++;
+  for (let i = 0, n = ids.length; i < n;) {
+    // Runs of one id counted in a register and added once (regions are long runs of one id).
+    const v = ids[i];
+    let j = i + 1;
+    while (j < n && ids[j] === v) j++;
+    hist[v] += j - i;
+    i = j;
+  }
   const known = new Uint8Array(hist.length);
   for (const c of table.classes) if (c.id < known.length) known[c.id] = 1;
   if (table.ignore < known.length) known[table.ignore] = 1;

@@ -26,16 +26,23 @@ export function idCensusOf(truth: LabelMap, pred: LabelMap, ignore: number): IdC
   const seenT = new Uint8Array(65536);
   const histP = new Uint32Array(65536);
   let valid = 0, same = 0, up = 0, down = 0;
-  for (let i = 0; i < t.length; i++) {
-    const a = t[i];
+  // Neighbouring pixels mostly repeat the same (truth, prediction) pair: count runs of a pair in a
+  // register and add each run once (an increment per pixel chains every store behind the last).
+  const n = t.length;
+  let i = 0;
+  while (i < n) {
+    const a = t[i], b = p[i];
+    let j = i + 1;
+    while (j < n && t[j] === a && p[j] === b) j++;
+    const run = j - i;
+    i = j;
     if (a === ignore) continue;
-    const b = p[i];
-    valid++;
+    valid += run;
     seenT[a] = 1;
-    histP[b]++;
-    if (a === b) same++;
-    else if (b === a + 1) up++;
-    else if (b === a - 1) down++;
+    histP[b] += run;
+    if (a === b) same += run;
+    else if (b === a + 1) up += run;
+    else if (b === a - 1) down += run;
   }
   const truthIds: number[] = [];
   const predIds: Record<number, number> = {};
