@@ -5,7 +5,7 @@ import type { FlagInput } from './reviewSlice.ts';
 import { QUEUE_VIEW_DEFAULT, type QueueView } from './queueView.ts';
 
 /** Per-frame scores the frame list and timeline can sort and colour by. */
-export const FRAME_SCORE_KEYS = ['meanIoU', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels'] as const;
+export const FRAME_SCORE_KEYS = ['meanIoU', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels', 'flipBack', 'smallObjectRecall'] as const;
 export type FrameScoreKey = (typeof FRAME_SCORE_KEYS)[number];
 
 /** Dialogs and panels that open over the workspace (the flag form and help have their own state). */

@@ -1,3 +1,4 @@
+import { SMALL_OBJECT_AREA } from '../core/objects/objectsBySize.ts';
 import { useEffect, useRef, useState } from 'react';
 import { rowValue, type FrameRow } from '../state/frameRows.ts';
 import { frameOrderSel, frameRowsSel } from '../state/selectors.ts';
@@ -14,12 +15,14 @@ const COLUMNS: { key: FrameScoreKey; label: string; title: string }[] = [
   { key: 'boundaryIoU', label: 'BIoU', title: 'Boundary IoU (%)' },
   { key: 'boundaryF', label: 'BF', title: 'Boundary F-score (%)' },
   { key: 'errorPixels', label: 'wrong', title: 'Valid pixels where the prediction differs from the ground truth' },
+  { key: 'flipBack', label: 'flick', title: 'Flip-back rate: share of non-void pixels whose prediction changes at this frame and changes back at the next (%)' },
+  { key: 'smallObjectRecall', label: 'small', title: `Small-object recall: mean recall of the ground-truth objects under ${SMALL_OBJECT_AREA} pixels (%)` },
 ];
 
 function cell(row: FrameRow, key: FrameScoreKey): string {
   const v = rowValue(row, key);
   if (v === null) return row.pending ? '…' : '—';
-  return key === 'errorPixels' ? countShort(v) : pct(v);
+  return key === 'errorPixels' ? countShort(v) : pct(v, key === 'flipBack' ? 2 : 1);
 }
 
 /** The frame list: every frame with its scores for run A, sortable, virtualised for long datasets. */

@@ -3,30 +3,36 @@ import { useState } from 'react';
 import { BandCurve } from './BandCurve.tsx';
 import { CompareTab } from './CompareTab.tsx';
 import { ConfusionMap } from './ConfusionMap.tsx';
+import { ObjectsTab } from './ObjectsTab.tsx';
 import { RegionsTab } from './RegionsTab.tsx';
 import { SettingsTab } from './SettingsTab.tsx';
 import { pct } from './format.ts';
 import type { ScopeScores } from '../state/scopeScores.ts';
 import { classInfoSel, scopesASel, scopesBSel, shownRunSel } from '../state/selectors.ts';
 import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
+import { SMALL_OBJECT_AREA } from '../core/objects/objectsBySize.ts';
+import { extrasASel } from '../state/extrasScores.ts';
 import { useCommand } from './commands/useCommand.tsx';
 import { useApp } from './storeContext.tsx';
 
-const TABS = ['scores', 'regions', 'confusion', 'band', 'compare', 'settings'] as const;
+const TABS = ['scores', 'regions', 'objects', 'confusion', 'band', 'compare', 'settings'] as const;
 type Tab = (typeof TABS)[number];
-const TAB_NAMES: Record<Tab, string> = { scores: 'Scores', regions: 'Regions', confusion: 'Confusion', band: 'Band', compare: 'A / B', settings: 'Settings' };
+const TAB_NAMES: Record<Tab, string> = {
+  scores: 'Scores', regions: 'Regions', objects: 'Objects', confusion: 'Confusion', band: 'Band', compare: 'A / B', settings: 'Settings',
+};
 
-function Headline({ label, d, f }: { label: string; d: number | null | undefined; f: number | null | undefined }) {
+function Headline({ label, d, f, digits, title }: { label: string; d: number | null | undefined; f: number | null | undefined; digits?: number; title?: string }) {
   return (
-    <tr>
+    <tr title={title}>
       <th>{label}</th>
-      <td data-scope="dataset">{pct(d)}</td>
-      <td data-scope="frame">{pct(f)}</td>
+      <td data-scope="dataset">{pct(d, digits)}</td>
+      <td data-scope="frame">{pct(f, digits)}</td>
     </tr>
   );
 }
 
 function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: ScopeScores | null; w: number }) {
+  const extras = useApp(extrasASel);
   const rows = dataset?.rows ?? frame?.rows ?? [];
   const frameRow = new Map((frame?.rows ?? []).map((r) => [r.id, r]));
   return (
@@ -48,6 +54,21 @@ function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: 
           <Headline label="Boundary IoU" d={dataset?.boundaryIoU} f={frame?.boundaryIoU} />
           <Headline label="Boundary F" d={dataset?.boundaryF} f={frame?.boundaryF} />
           <Headline label="mean of frame mIoU" d={dataset?.frameMeanIoU} f={null} />
+          <Headline
+            label="flip-back"
+            d={extras.dataset?.flipBack}
+            f={extras.frame?.flipBack}
+            digits={2}
+            title="Share of non-void pixels whose prediction changes at a frame and changes back at the next (lower is steadier)"
+          />
+          <Headline label="flip-back, void" d={extras.dataset?.flipBackVoid} f={extras.frame?.flipBackVoid} digits={2} title="The same over void ground truth" />
+          <Headline
+            label="small-object recall"
+            d={extras.dataset?.smallObjectRecall}
+            f={extras.frame?.smallObjectRecall}
+            title={`Mean recall of ground-truth objects under ${SMALL_OBJECT_AREA} pixels (Objects tab: by size)`}
+          />
+          {extras.dataset?.iIoU && <Headline label="iIoU" d={extras.dataset.iIoU.mean} f={null} title="Instance-weighted IoU over the thing classes with instance maps" />}
         </tbody>
       </table>
       <table className="classes" data-testid="class-table">
@@ -138,6 +159,7 @@ export function Scoreboard() {
         {tab === 'compare' && <CompareTab runA={run} runB={runB} />}
         {tab === 'settings' && <SettingsTab />}
         {tab === 'regions' && <RegionsTab />}
+        {tab === 'objects' && <ObjectsTab />}
       </div>
     </div>
   );

@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useRef } from 'react';
-import { rowValue } from '../state/frameRows.ts';
+import { higherIsBetter, rowValue } from '../state/frameRows.ts';
 import { frameRowsSel } from '../state/selectors.ts';
 import { scoreColor } from './format.ts';
 import { commandKeys } from './commands/appCommands.ts';
@@ -23,7 +23,45 @@ function stripColors(values: (number | null)[], failed: boolean[], higherIsBette
   });
 }
 
-/** A strip of every frame coloured by the chosen score; click or drag to jump, with play controls. */
+/** Colour of a flicker cell: dark at no flicker, brighter amber the closer to the sequence's worst `max`. */
+function flickerColor(v: number | null, max: number): string {
+  if (v === null) return '#23272d';
+  const t = max > 0 ? Math.min(1, v / max) : 0;
+  return `rgb(${Math.round(40 + 215 * t)}, ${Math.round(36 + 140 * t)}, ${Math.round(30 + 10 * t)})`;
+}
+
+/** Draws one cell per frame into `c` in rows (top to bottom, equal heights), with the current frame outlined. */
+function cellsDraw(c: HTMLCanvasElement, rows: string[][], current: number): void {
+  const w = c.clientWidth * devicePixelRatio;
+  const h = c.clientHeight * devicePixelRatio;
+  c.width = w;
+  c.height = h;
+  const ctx = c.getContext('2d')!;
+  ctx.clearRect(0, 0, w, h);
+  const n = rows[0]?.length ?? 0;
+  rows.forEach((colors, r) => {
+    const y0 = Math.round((r * h) / rows.length), y1 = Math.round(((r + 1) * h) / rows.length);
+    for (let i = 0; i < n; i++) {
+      const x0 = Math.floor((i * w) / n);
+      const x1 = Math.max(x0 + 1, Math.floor(((i + 1) * w) / n) - (w / n > 4 ? 1 : 0));
+      ctx.fillStyle = colors[i];
+      ctx.fillRect(x0, y0, x1 - x0, y1 - y0 - (r < rows.length - 1 ? 1 : 0));
+    }
+  });
+  if (n > 0) {
+    const x0 = Math.floor((current * w) / n);
+    const x1 = Math.max(x0 + 2, Math.floor(((current + 1) * w) / n));
+    ctx.strokeStyle = '#ffffff';
+    ctx.lineWidth = 2 * devicePixelRatio;
+    ctx.strokeRect(x0 + 1, 1, x1 - x0 - 2, h - 2);
+  }
+}
+
+/**
+ * A strip of every frame coloured by the chosen score, and under it the flicker row (run A's
+ * flip-back rate over non-void and over void ground truth, each against its worst frame); click or
+ * drag either to jump, with play controls.
+ */
 export function Timeline() {
   const run = useCommand();
   const key = useApp((s) => s.frameScore);
@@ -33,36 +71,26 @@ export function Timeline() {
   const rows = useApp(frameRowsSel);
   const count = useApp((s) => s.dataset?.pairing.frames.length ?? 0);
   const canvas = useRef<HTMLCanvasElement>(null);
+  const flickerRow = useRef<HTMLCanvasElement>(null);
 
   const colors = useMemo(
-    () => stripColors(rows.map((r) => rowValue(r, key)), rows.map((r) => r.error !== null), key !== 'errorPixels'),
+    () => stripColors(rows.map((r) => rowValue(r, key)), rows.map((r) => r.error !== null), higherIsBetter(key)),
     [rows, key],
   );
 
+  const flicker = useMemo(() => {
+    const of = (k: 'flipBack' | 'flipBackVoid') => {
+      const v = rows.map((r) => r.extras?.[k] ?? null);
+      const max = Math.max(0, ...v.filter((x): x is number => x !== null));
+      return v.map((x) => flickerColor(x, max));
+    };
+    return [of('flipBack'), of('flipBackVoid')];
+  }, [rows]);
+
   useEffect(() => {
-    const c = canvas.current;
-    if (!c) return;
-    const w = c.clientWidth * devicePixelRatio;
-    const h = c.clientHeight * devicePixelRatio;
-    c.width = w;
-    c.height = h;
-    const ctx = c.getContext('2d')!;
-    ctx.clearRect(0, 0, w, h);
-    const n = colors.length;
-    for (let i = 0; i < n; i++) {
-      const x0 = Math.floor((i * w) / n);
-      const x1 = Math.max(x0 + 1, Math.floor(((i + 1) * w) / n) - (w / n > 4 ? 1 : 0));
-      ctx.fillStyle = colors[i];
-      ctx.fillRect(x0, 0, x1 - x0, h);
-    }
-    if (n > 0) {
-      const x0 = Math.floor((current * w) / n);
-      const x1 = Math.max(x0 + 2, Math.floor(((current + 1) * w) / n));
-      ctx.strokeStyle = '#ffffff';
-      ctx.lineWidth = 2 * devicePixelRatio;
-      ctx.strokeRect(x0 + 1, 1, x1 - x0 - 2, h - 2);
-    }
-  }, [colors, current]);
+    if (canvas.current) cellsDraw(canvas.current, [colors], current);
+    if (flickerRow.current) cellsDraw(flickerRow.current, flicker, current);
+  }, [colors, flicker, current]);
 
   useEffect(() => {
     if (!playing) return;
@@ -88,15 +116,22 @@ export function Timeline() {
           </option>
         ))}
       </select>
-      <canvas
-        ref={canvas}
-        className="tl-strip"
-        onPointerDown={(e) => {
-          e.currentTarget.setPointerCapture(e.pointerId);
-          jump(e);
-        }}
-        onPointerMove={(e) => e.buttons & 1 && jump(e)}
-      />
+      <div className="tl-rows">
+        {[canvas, flickerRow].map((ref, i) => (
+          <canvas
+            key={i}
+            ref={ref}
+            className={i === 0 ? 'tl-strip' : 'tl-flicker'}
+            data-testid={i === 0 ? 'timeline-strip' : 'timeline-flicker'}
+            title={i === 0 ? undefined : 'Flicker of run A: flip-back rate over non-void (top) and void (bottom) ground truth; brighter is more'}
+            onPointerDown={(e) => {
+              e.currentTarget.setPointerCapture(e.pointerId);
+              jump(e);
+            }}
+            onPointerMove={(e) => e.buttons & 1 && jump(e)}
+          />
+        ))}
+      </div>
       <span className="tl-pos">
         {count ? current + 1 : 0} / {count}
       </span>

@@ -1,4 +1,5 @@
 import type { FrameScoreKey } from '../../state/viewSlice.ts';
+import { extrasASel } from '../../state/extrasScores.ts';
 import { frameOrderSel } from '../../state/selectors.ts';
 import type { AppState } from '../../state/store.ts';
 import { cmd, commandTable, type CommandContext } from './registry.ts';
@@ -14,6 +15,19 @@ function frameStepInOrder(ctx: CommandContext, step: number): void {
   const next = order[Math.max(0, Math.min(order.length - 1, (at < 0 ? -1 : at) + step))];
   if (next !== undefined) s.frameIndexSet(next);
 }
+
+/** Frames the next (`step` 1) or previous missed small object of run A on this frame, after the one framed now. */
+function missedStep(ctx: CommandContext, step: number): void {
+  const s = ctx.store.getState();
+  const missed = extrasASel(s).frame?.missed ?? [];
+  if (missed.length === 0) return;
+  const boxes = missed.map((m) => [m.box[0], m.box[1], m.box[2] + 1, m.box[3] + 1] as const);
+  const at = s.focusBox ? boxes.findIndex((b) => b.every((v, k) => v === s.focusBox![k])) : -1;
+  const next = at < 0 ? (step > 0 ? 0 : boxes.length - 1) : (at + step + boxes.length) % boxes.length;
+  s.focusOn(s.frameIndex, boxes[next]);
+}
+
+const hasMissed = ({ store }: CommandContext) => (extrasASel(store.getState()).frame?.missed.length ?? 0) > 0;
 
 /** Frames: stepping, jumping, the list's order, playing through. */
 export const FRAME_COMMANDS = commandTable({
@@ -42,6 +56,8 @@ export const FRAME_COMMANDS = commandTable({
     label: 'Show a region', group: 'Frames', keys: [], enabled: hasFrames,
     run: ({ store }, { frameIndex, bbox }) => store.getState().focusOn(frameIndex, bbox),
   }),
+  'object.next': cmd({ label: 'Next missed small object on this frame', group: 'Frames', keys: ['N'], enabled: hasMissed, run: (ctx) => missedStep(ctx, 1) }),
+  'object.prev': cmd({ label: 'Previous missed small object', group: 'Frames', keys: ['Shift+N'], enabled: hasMissed, run: (ctx) => missedStep(ctx, -1) }),
   /** Sorts the frame list by a score, worst first; the same score again flips the order. */
   'frames.sortBy': cmd<FrameScoreKey>({
     label: 'Sort the frame list', group: 'Frames', keys: [], enabled: () => true,
