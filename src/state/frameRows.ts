@@ -12,8 +12,8 @@ export interface FrameRow {
   pending: boolean;
   error: string | null;
   summary: FrameSummary | null;
-  /** Flip-back rate (non-void truth) and small-object recall of run A (src/docs/metrics.md "Flicker", "Objects"), null where undefined. */
-  extras: ExtrasFrameLine | null;
+  /** Flip-back rate (non-void truth) and small-object recall of run A (src/docs/metrics.md "Flicker", "Objects"), null where undefined; absent for rows read from a results folder. */
+  extras?: ExtrasFrameLine | null;
 }
 
 /** Scores where a higher value is worse. */
