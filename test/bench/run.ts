@@ -15,6 +15,8 @@ const ALL: [string, string, string[]][] = [
   ['demo', 'test/bench/demo.bench.ts', []],
   ['largeDataset', 'test/bench/largeDataset.bench.ts', []],
   ['resultsMemory', 'test/bench/resultsMemory.bench.ts', []],
+  ['resultsMemory10k', 'test/bench/resultsMemory.bench.ts', ['1000', '10000']],
+  ['resultsOpen', 'test/bench/resultsOpen.bench.ts', []],
 ];
 const wanted = process.argv.slice(2);
 let failed = 0;
