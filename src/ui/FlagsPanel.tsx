@@ -2,7 +2,7 @@ import { useLayoutEffect, useMemo, useRef, useState, type CSSProperties } from '
 import { flagReasonCounts } from '../core/review/flagsFilter.ts';
 import type { Flag } from '../core/review/flag.ts';
 import { downloadBlob } from './download.ts';
-import { VERDICT_NAMES } from './regionWords.ts';
+import { VERDICT_NAMES, regionKindName } from './regionWords.ts';
 import { useApp, useAppStore } from './storeContext.tsx';
 import { useCommand } from './commands/useCommand.tsx';
 
@@ -29,7 +29,7 @@ function FlagRow({ flag, frameIndex, style }: { flag: Flag; frameIndex: number; 
     <li className="flag-row" data-flag={flag.id} data-frame={flag.frame} style={style}>
       <div className="fr-head" onClick={go}>
         <b>{flag.frame}</b> <span className={`fr-reason r-${flag.reason}`}>{reasonName(flag.reason)}</span>
-        <span className="dim"> {flag.kind === 'frame' ? 'whole frame' : flag.kind === 'rect' ? 'box' : flag.region?.kind ?? 'region'}</span>
+        <span className="dim"> {flag.kind === 'frame' ? 'whole frame' : flag.kind === 'rect' ? 'box' : regionKindName(flag.region?.kind)}</span>
         {flag.run && <span className="dim"> · {flag.run}</span>}
       </div>
       {editing ? (

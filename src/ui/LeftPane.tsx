@@ -6,7 +6,7 @@ import { useApp } from './storeContext.tsx';
 
 const TABS = [
   ['frames', 'Frames'],
-  ['queue', 'Label check'],
+  ['queue', 'Doubts'],
   ['flags', 'Flags'],
 ] as const;
 

@@ -1,4 +1,4 @@
-import type { RegionKind } from '../core/regions/regionTypes.ts';
+import { REGION_KINDS, type RegionKind } from '../core/regions/regionTypes.ts';
 import type { ReviewJudgement } from '../core/review/judgement.ts';
 
 /** Plain names of region kinds on screen. */
@@ -15,3 +15,8 @@ export const VERDICT_NAMES: Record<ReviewJudgement, string> = {
   'model-error': 'model error',
   unsure: 'unsure',
 };
+
+/** Returns the plain name of a flag's region kind; a kind this version does not know (from another file) is just "region". */
+export function regionKindName(kind: string | undefined): string {
+  return kind && (REGION_KINDS as readonly string[]).includes(kind) ? KIND_NAMES[kind as RegionKind] : 'region';
+}

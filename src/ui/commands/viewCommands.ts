@@ -33,7 +33,7 @@ export const VIEW_COMMANDS = commandTable({
   }),
   'pane.left': cmd<'frames' | 'queue' | 'flags'>({ label: 'Show a list in the left pane', group: 'View', keys: [], enabled: () => true, run: ({ store }, tab) => store.getState().leftTabSet(tab) }),
   'pane.nextList': cmd({
-    label: 'Left pane: next list (frames, label check, flags)', group: 'View', keys: ['Shift+L'], enabled: () => true,
+    label: 'Left pane: next list (frames, doubts, flags)', group: 'View', keys: ['Shift+L'], enabled: () => true,
     run: ({ store }) => store.getState().leftTabSet(LEFT_LISTS[(LEFT_LISTS.indexOf(store.getState().leftTab) + 1) % LEFT_LISTS.length]),
   }),
   'dialog.export': cmd({
