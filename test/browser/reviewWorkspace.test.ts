@@ -29,7 +29,7 @@ afterAll(async () => {
 async function openQueue(page: Page): Promise<void> {
   await page.goto(`${url}${QUERY}`);
   await page.locator(`[role=status][data-done="${FRAMES}"][data-total="${FRAMES}"]`).waitFor({ timeout: 180_000 });
-  await page.locator('.left-pane .tab', { hasText: /^Label check$|mistake/i }).first().click();
+  await page.locator('.left-pane .tab', { hasText: /^Doubts$/ }).first().click();
   await page.locator('.queue-item').first().waitFor();
 }
 
@@ -100,7 +100,7 @@ describe('review workspace layout (real Chromium)', () => {
     expect(seen).toBe(true);
     // The list is ranked, not by raw score; L judges the selected item and the progress line counts it.
     await page.keyboard.press('l');
-    const progress = () => page.$eval('[data-testid=review-progress]', (el) => [...el.childNodes].map((n) => n.textContent!.trim()).join(' '));
+    const progress = () => page.$eval('[data-testid=review-progress]', (el) => [...el.childNodes].filter((n) => n.nodeName !== 'BUTTON').map((n) => n.textContent!.trim()).join(' '));
     await expect.poll(progress).toBe(`judged 1 of ${total} label mistake 1 model error 0 unsure 0`);
     await page.selectOption('select[aria-label="filter by verdict"]', 'label-mistake');
     expect(await page.locator('.queue-item').count()).toBe(1);
