@@ -6,18 +6,20 @@ import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type Dataset
 import { frameSummary } from '../core/metrics/frameSummary.ts';
 import { flagsFileParse } from '../core/review/flagsFile.ts';
 import type { SuspectVerdictKind } from '../core/review/verdict.ts';
-import { extrasFrameLine, extrasTotalsAdd, extrasTotalsCreate, extrasTotalsReport, type ExtrasTotals } from '../core/metrics/extrasTotals.ts';
-import { reportFrameLine, scoreReport, type ReportFrameLine, type ScoreReport } from '../core/metrics/report.ts';
+import { extrasTotalsAdd, extrasTotalsCreate, type ExtrasTotals } from '../core/metrics/extrasTotals.ts';
+import type { ReportFrameLine } from '../core/metrics/report.ts';
+import { reportBuild, reportLineOf } from '../core/report/reportBuild.ts';
+import { censusKeep } from '../core/report/reportCensus.ts';
 import { UsageError } from './args.ts';
 import { progressCreate } from './progress.ts';
 import { SCORE_USAGE, scoreOptionsParse, type ScoreOptions } from './scoreArgs.ts';
 import { scoreDatasetOpen } from './scoreDataset.ts';
 import { framesScore } from './scoreFrames.ts';
 import { scoreResults } from './scoreResults.ts';
-import { censusKeep, pairingReport } from './scoreOpened.ts';
+import { pairingReport } from './scoreOpened.ts';
 import { scoreOptionsResolve } from './datasetArgs.ts';
 import { openedOf } from '../data/opened.ts';
-import { regionGatherAdd, regionGatherCreate, regionGatherSuspects, type ReportRegion, type ReportSuspect, type ReportVoidSpill } from './scoreRegions.ts';
+import { regionGatherAdd, regionGatherCreate, regionGatherSuspects } from './scoreRegions.ts';
 import { OutputError, outputCheck, outputWrite } from './outputFile.ts';
 import { framesCsv, summaryText, type FrameCsvRow } from './scoreReportWrite.ts';
 import { termText } from './termText.ts';
@@ -90,7 +92,7 @@ async function run(given: ScoreOptions): Promise<number> {
       }
       if (!r.stats || error) anyFailed = true;
       if (r.stats && r.extras && !error) extrasTotalsAdd(extras.get(r.run)!, r.extras, r.stats.classIds);
-      lines.get(r.run)![index] = { ...reportFrameLine(result.name, error ? null : r.stats, error), ...extrasFrameLine(error ? null : r.extras) };
+      lines.get(r.run)![index] = reportLineOf(result.name, r.stats, r.extras, error);
       const s = r.stats && !error ? frameSummary(r.stats, 3) : null;
       rows.push({
         frame: result.name, run: r.run, meanIoU: s?.meanIoU ?? null, pixelAccuracy: s?.pixelAccuracy ?? null, bandIoU3: s?.bandIoU ?? null,
@@ -109,30 +111,15 @@ async function run(given: ScoreOptions): Promise<number> {
   const idWarnings = census.warnings();
   for (const w of idWarnings) process.stderr.write(`warning: ${termText(w)}\n`);
 
-  const classesOf = (t: DatasetTotals) => (generated ? t.classIds.map((id) => ({ id, name: String(id) })) : table.classes);
-  const reports = runs.map((r) => {
-    const out = scoreReport(classesOf(totals.get(r)!), ds.settings, totals.get(r)!, lines.get(r)! as ReportFrameLine[]);
-    const t = totals.get(r)!;
-    Object.assign(out.dataset, extrasTotalsReport(extras.get(r)!, t.classIds, out.dataset.perClass.map((c) => c.fp)));
-    return out;
-  });
-  const report: Omit<ScoreReport, 'frames'> & {
-    frames: (ReportFrameLine & { regions?: ReportRegion[] | null; voidSpill?: ReportVoidSpill | null })[];
-    runs?: Record<string, ScoreReport['dataset']>;
-    unpaired?: unknown;
-    opened?: unknown;
-    suspects?: ReportSuspect[];
-  } = reports[0];
-  const runBlocks = Object.fromEntries(runs.map((r, i) => [r, reports[i].dataset]));
-  if (runs.length > 1) report.runs = runBlocks;
-  report.unpaired = pairing.unpaired;
-  report.opened = openedOf(pairing, ds.table, idWarnings);
-  report.frames.forEach((f, i) => {
-    f.regions = regions.lines[i];
-    f.voidSpill = regions.voidSpill[i];
-  });
   const names = new Map(table.classes.map((c) => [c.id, c.name]));
-  report.suspects = regionGatherSuspects(regions, (id) => names.get(id) ?? String(id), verdicts);
+  const report = reportBuild({
+    classes: table.classes, generated, settings: ds.settings,
+    runs: runs.map((r) => ({ run: r, totals: totals.get(r)!, extras: extras.get(r)!, lines: lines.get(r)! as ReportFrameLine[] })),
+    regions: regions.lines, voidSpill: regions.voidSpill,
+    suspects: regionGatherSuspects(regions, (id) => names.get(id) ?? String(id), verdicts),
+    unpaired: pairing.unpaired, opened: openedOf(pairing, ds.table, idWarnings),
+  });
+  const runBlocks = report.runs ?? { [runs[0]]: report.dataset };
   const json = JSON.stringify(report, null, 2) + '\n';
   if (options.out) await outputWrite(options.out, '--out', json);
   else process.stdout.write(json);

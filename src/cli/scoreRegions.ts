@@ -2,35 +2,17 @@
 // results arrive (the maps are gone by then; only region summaries and small grids are kept), and
 // ranked once every frame is in.
 import type { FrameJobResult } from '../core/frameJob.ts';
-import type { RegionKind } from '../core/regions/regionTypes.ts';
+import { reportRegionsOf, reportSuspectsOf, type ReportRegion, type ReportSuspect, type ReportVoidSpill } from '../core/report/reportParts.ts';
 import {
   confidenceSumsAdd, frameGridsOf, suspectCandidates, type ConfidenceSums, type SuspectCandidate,
 } from '../core/suspects/suspectCandidates.ts';
 import { appearanceSumsAdd, type AppearanceSums } from '../core/suspects/appearanceModel.ts';
 import { pairRecurrenceAdd, type PairRecurrence } from '../core/suspects/pairRecurrence.ts';
-import { suspectQueue, type Suspect } from '../core/suspects/suspectQueue.ts';
+import { suspectQueue } from '../core/suspects/suspectQueue.ts';
 import type { SuspectVerdictKind } from '../core/review/verdict.ts';
 import { suspectsRerank } from '../core/suspects/verdictRerank.ts';
 import { SUSPECT_DEFAULTS, type SuspectSettings } from '../core/suspects/suspectSettings.ts';
 import type { FrameGrids } from '../core/suspects/temporalFlip.ts';
-
-/** One listed region of the report's first run on a frame. */
-export interface ReportRegion {
-  kind: RegionKind;
-  truthClass: number;
-  predictedClass: number | null;
-  area: number;
-  bbox: [number, number, number, number];
-}
-
-/** The first run's void spill on a frame: pixels where the truth is void and it predicts a class, and those areas of at least minArea pixels. */
-export interface ReportVoidSpill {
-  pixels: number;
-  regions: { predictedClass: number; area: number; bbox: [number, number, number, number] }[];
-}
-
-/** One entry of the report's `suspects`, keys as README "Scoring headless" lists them. */
-export type ReportSuspect = Pick<Suspect, 'frame' | 'run' | 'bbox' | 'truthClass' | 'predictedClass' | 'kind' | 'score' | 'reasons' | 'contributions' | 'contributionsText'>;
 
 /** What the scorer keeps per dataset for regions and suspects. */
 export interface RegionGather {
@@ -62,11 +44,9 @@ export function regionGatherAdd(g: RegionGather, index: number, result: FrameJob
   pairRecurrenceAdd(g.recurrence, result, g.settings);
   appearanceSumsAdd(g.appearance, result);
   g.grids[index] = frameGridsOf(result);
-  const first = result.error ? null : result.runs.find((r) => r.run === firstRun);
-  g.lines[index] = first?.regions
-    ? first.regions.regions.map((r) => ({ kind: r.kind, truthClass: r.truthClass, predictedClass: r.predictedClass, area: r.area, bbox: r.bbox }))
-    : null;
-  g.voidSpill[index] = first?.regions ? { pixels: first.regions.voidSpill.pixels, regions: first.regions.voidSpill.regions } : null;
+  const lines = reportRegionsOf(result.error ? null : result.runs.find((r) => r.run === firstRun));
+  g.lines[index] = lines.regions;
+  g.voidSpill[index] = lines.voidSpill;
 }
 
 /**
@@ -75,8 +55,5 @@ export function regionGatherAdd(g: RegionGather, index: number, result: FrameJob
  */
 export function regionGatherSuspects(g: RegionGather, className: (id: number) => string, verdicts: ReadonlyMap<string, SuspectVerdictKind> = new Map()): ReportSuspect[] {
   const queue = suspectQueue({ candidates: g.candidates, grids: g.grids, confidence: g.confidence, recurrence: g.recurrence, appearance: g.appearance, className }, g.settings);
-  return suspectsRerank(queue, verdicts).map((s) => ({
-    frame: s.frame, run: s.run, bbox: s.bbox, truthClass: s.truthClass, predictedClass: s.predictedClass, kind: s.kind,
-    score: s.score, reasons: s.learnedReason ? [s.learnedReason, ...s.reasons] : s.reasons, contributions: s.contributions, contributionsText: s.contributionsText,
-  }));
+  return reportSuspectsOf(suspectsRerank(queue, verdicts));
 }

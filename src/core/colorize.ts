@@ -14,6 +14,14 @@ function packRgba(rgb: number, a: number): number {
   return (((a & 255) << 24) | ((rgb & 255) << 16) | (((rgb >> 8) & 255) << 8) | ((rgb >> 16) & 255)) >>> 0;
 }
 
+/** Void's colour in previews of label maps when the class table names none (opaque dark gray, packed as paletteLut packs). */
+export const PREVIEW_VOID_RGBA = 0xff202020;
+
+/** Returns the look-up of a label map's colour preview: class colours, void in the table's ignoreColor or PREVIEW_VOID_RGBA. */
+export function previewLut(table: ClassTable): Uint32Array {
+  return paletteLut(table, table.ignoreColor ? packRgba(colorToRgb24(table.ignoreColor), 255) : PREVIEW_VOID_RGBA);
+}
+
 /** Returns RGBA bytes (w·h·4) colouring each id through `lut` (from `paletteLut`). */
 export function labelMapColorize(map: LabelMap, lut: Uint32Array, out?: Uint8Array): Uint8Array {
   const n = map.width * map.height;

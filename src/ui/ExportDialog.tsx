@@ -86,8 +86,8 @@ export function ExportDialog({ onClose, reasonOnly = null }: { onClose: () => vo
           </label>
         </div>
         <p className="dim small">
-          Per tile: the photo crop, the ground-truth and every run's crop as label PNGs with the exact ids (same encoding as the source), and an
-          overlay picture; manifest.json and tiles.csv list every tile.
+          Per tile: the photo crop, the ground-truth and every run's crop as label PNGs with the exact ids (same encoding as the source), each
+          also as a preview in the class colours, and an overlay picture; manifest.json and tiles.csv list every tile.
         </p>
         {progress && (
           <p className="small" role="status">

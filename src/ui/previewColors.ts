@@ -1,5 +1,5 @@
 import type { ClassTable } from '../core/classTable.ts';
-import { labelMapColorize, paletteLut } from '../core/colorize.ts';
+import { labelMapColorize, previewLut } from '../core/colorize.ts';
 import type { LabelMap } from '../core/labelMap.ts';
 
 const PREVIEW_MAX = 320;
@@ -14,6 +14,6 @@ export function colorizeForPreview(map: LabelMap, table: ClassTable): ImageData 
     const sy = Math.min(map.height - 1, Math.floor((y + 0.5) / scale));
     for (let x = 0; x < w; x++) small[y * w + x] = map.ids[sy * map.width + Math.min(map.width - 1, Math.floor((x + 0.5) / scale))];
   }
-  const rgba = labelMapColorize({ width: w, height: h, ids: small }, paletteLut(table, 0xff202020));
+  const rgba = labelMapColorize({ width: w, height: h, ids: small }, previewLut(table));
   return new ImageData(new Uint8ClampedArray(rgba.buffer as ArrayBuffer), w, h);
 }

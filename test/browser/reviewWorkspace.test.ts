@@ -6,7 +6,9 @@
 import { readFileSync } from 'node:fs';
 import { strFromU8, unzipSync } from 'fflate';
 import type { Browser, Page } from 'playwright-core';
+import { PNG } from 'pngjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { labelMapFromPng } from '../../src/core/png/decodeLabel.ts';
 import { MARK_COLORS } from '../../src/core/composite/compositePalette.ts';
 import { APP_COMMAND_LIST } from '../../src/ui/commands/appCommands.ts';
 import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
@@ -214,6 +216,26 @@ describe('review workspace layout (real Chromium)', () => {
     expect(manifest.failed).toEqual([]);
     const tiles = manifest.tiles as { frame: string; flagBox: number[]; reason: string; region: { score: number; reasons: string[] } | null }[];
     expect(new Set(tiles.map((t) => `${t.frame}|${t.flagBox.join(',')}`))).toEqual(new Set(judged));
+    // Each label crop comes with a colour preview: the exact id PNG read by our decoder (checked against
+    // pngjs in test/cli/export.test.ts), the preview by pngjs; every pixel is its id's class colour (void dark gray).
+    const table = await page.evaluate(() => {
+      const d = (window as any).hairline.store.getState().dataset.table;
+      return { ignore: d.ignore as number, colors: Object.fromEntries(d.classes.map((c: { id: number; color: string }) => [c.id, c.color])) as Record<number, string> };
+    });
+    for (const t of manifest.tiles as { truth: { file: string; preview: string }; preds: { file: string; preview: string }[] }[]) {
+      for (const f of [t.truth, ...t.preds]) {
+        const ids = labelMapFromPng(zip[f.file], { file: f.file });
+        if (!ids.ok) throw new Error(ids.error);
+        const preview = PNG.sync.read(Buffer.from(zip[f.preview]));
+        expect([preview.width, preview.height]).toEqual([ids.value.width, ids.value.height]);
+        for (let i = 0; i < ids.value.ids.length; i++) {
+          const id = ids.value.ids[i];
+          const want = id === table.ignore ? '#202020' : table.colors[id];
+          const got = `#${[0, 1, 2].map((c) => preview.data[i * 4 + c].toString(16).padStart(2, '0')).join('')}`;
+          if (got !== want) throw new Error(`${f.preview}: pixel ${i} is ${got}, id ${id} is ${want}`);
+        }
+      }
+    }
     for (const t of tiles) {
       expect(t.reason).toBe('label-mistake');
       expect(t.region!.score).toBeGreaterThan(0);

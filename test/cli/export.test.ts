@@ -1,7 +1,8 @@
 // `npm run export` end to end on the demo written by the real demo CLI: the flags file comes from the
 // app's own store (flagAdd, flagsExportText), the ZIP is read back with fflate's unzipSync and Python's
 // zipfile/csv (test/reference/zip_tiles_ref.py), label crops are compared with the demo's own PNGs
-// decoded by pngjs (PNG.sync.read, a second decoder).
+// decoded by pngjs (PNG.sync.read, a second decoder); colour previews are checked pixel by pixel
+// against the colours classes.json gives each source id.
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -72,6 +73,7 @@ describe('npm run export', () => {
     expect(r.stderr).toMatch(/1 failed .*\n {2}kq-0099 · flag gone-frame: frame "kq-0099" has no ground-truth file in --truth/);
     expect(existsSync(`${out}.partial`)).toBe(false);
     const files = unzipSync(new Uint8Array(readFileSync(out)));
+    const classesJson = JSON.parse(readFileSync(join(demo, 'classes.json'), 'utf8')) as { ignore: number; classes: { id: number; color: string }[] };
     for (const name of Object.keys(files)) expect(zipPathIsSafe(name), name).toBe(true);
     const m = JSON.parse(new TextDecoder().decode(files['manifest.json'])) as TileManifest;
     expect(m.tiles.map((t) => [t.frame, t.box])).toEqual([
@@ -96,6 +98,18 @@ describe('npm run export', () => {
           // Gray: pngjs's sample is the id. Palette: pngjs gives the colour, which must be the palette entry of our id.
           const same = (plte ? [0, 1, 2].every((c) => want.data[o + c] === plte[id * 3 + c]) : want.data[o] === id) && srcMap.ok && srcMap.value.ids[y * want.width + x] === id;
           if (!same) throw new Error(`${inZip}: pixel ${x},${y} is id ${id}, pngjs reads the source as ${want.data[o]},${want.data[o + 1]},${want.data[o + 2]}`);
+        }
+        // Its colour preview (decoded by pngjs) shows each source id in its class colour from classes.json, void dark gray.
+        const previewFile = inZip === t.truth.file ? t.truth.preview : t.preds.find((p) => p.file === inZip)!.preview;
+        expect(previewFile, inZip).toBe(inZip.replace(/[^/]+$/, (f) => `preview/${f}`));
+        const preview = PNG.sync.read(Buffer.from(files[previewFile!]));
+        expect([preview.width, preview.height]).toEqual([x1 - x0, y1 - y0]);
+        k = 0;
+        for (let y = y0; y < y1; y++) for (let x = x0; x < x1; x++, k++) {
+          const id = srcMap.ok ? srcMap.value.ids[y * want.width + x] : -1;
+          const hex = id === classesJson.ignore ? '#202020' : classesJson.classes.find((c) => c.id === id)?.color;
+          const got = `#${[0, 1, 2].map((c) => preview.data[k * 4 + c].toString(16).padStart(2, '0')).join('')}`;
+          if (got !== hex) throw new Error(`${previewFile}: pixel ${x},${y} is ${got}, id ${id}'s class colour is ${hex}`);
         }
         // run-b is a palette PNG in the demo: the crop keeps the palette, colour for colour.
         if (srcMap.ok && srcMap.value.encoding.kind === 'palette') {

@@ -3,6 +3,7 @@ import type { CompositePalette } from '../composite/compositePalette.ts';
 import { frameComposite } from '../composite/frameComposite.ts';
 import { layerSettingsDefault } from '../composite/layerSettings.ts';
 import type { DecodedFrame } from '../decodedFrame.ts';
+import { labelMapColorize } from '../colorize.ts';
 import { labelMapIdCounts, type LabelMap } from '../labelMap.ts';
 import type { ZlibCompress } from '../png/encode.ts';
 import { fail, ok, type Result } from '../result.ts';
@@ -29,6 +30,8 @@ export interface TileContext {
   runs: readonly string[];
   /** A faster zlib where there is one (Node's); the bytes decode the same. */
   compress?: ZlibCompress;
+  /** Colours of the label previews (previewLut of the table). */
+  previewLut: Uint32Array;
 }
 
 /** Returns the count of valid pixels (truth not void) where the prediction differs. Hot loop: flat arrays. */
@@ -42,6 +45,11 @@ function wrongPixels(truth: LabelMap, pred: LabelMap, ignore: number): number {
 /** Returns the map with the ids its file stored (before an id map of the class table), which label crops write back exactly. */
 function storedOf(map: ExportFrame['truth']): ExportFrame['truth'] {
   return map.stored ? { ...map, ids: map.stored } : map;
+}
+
+/** Returns a label crop (class ids) as a PNG in the class colours. */
+function previewPng(crop: LabelMap, ctx: TileContext): Uint8Array {
+  return rgbaToPngFast(crop.width, crop.height, labelMapColorize(crop, ctx.previewLut), ctx.compress);
 }
 
 /** Returns the overlay's run: the flag's run when the frame has it, else the first run the frame has. */
@@ -62,6 +70,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
   const truthPng = labelCropToPng(labelMapCrop(storedOf(frame.truth), box), frame.truth.encoding, ctx.table, ctx.compress);
   if (!truthPng.ok) return fail('', `ground truth ${truthPng.error}`);
   files.push({ path: `${dir}truth.png`, bytes: truthPng.value.png });
+  files.push({ path: `${dir}preview/truth.png`, bytes: previewPng(truthCrop, ctx) });
   const truthCounts = new Map(labelMapIdCounts(truthCrop).map((c) => [c.id, c.count]));
   const ids = new Set(truthCounts.keys());
 
@@ -77,10 +86,12 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
       notes.push(`run "${run}": prediction ${png.error}`);
       continue;
     }
-    const file = `${dir}pred-${unique(zipNamePart(run, 40))}.png`;
+    const stem = `pred-${unique(zipNamePart(run, 40))}.png`;
+    const file = `${dir}${stem}`;
     files.push({ path: file, bytes: png.value.png });
+    files.push({ path: `${dir}preview/${stem}`, bytes: previewPng(crop, ctx) });
     for (const c of labelMapIdCounts(crop)) ids.add(c.id);
-    preds.push({ run, file, source: labelEncodingName(map.encoding), written: png.value.written, wrongPixels: wrongPixels(truthCrop, crop, ctx.table.ignore) });
+    preds.push({ run, file, source: labelEncodingName(map.encoding), written: png.value.written, preview: `${dir}preview/${stem}`, wrongPixels: wrongPixels(truthCrop, crop, ctx.table.ignore) });
   }
 
   let photo: string | null = null;
@@ -111,7 +122,7 @@ export function tileRender(frameName: string, frame: ExportFrame, flag: Flag, bo
     tile, frame: frameName, frameWidth: frame.width, frameHeight: frame.height,
     flagId: flag.id, flagKind: flag.kind, reason: flag.reason, note: flag.note, flagRun: flag.run, flagBox: flag.bbox,
     box, part, parts, classes, region: flag.region ?? null, photo,
-    truth: { file: `${dir}truth.png`, source: labelEncodingName(frame.truth.encoding), written: truthPng.value.written },
+    truth: { file: `${dir}truth.png`, source: labelEncodingName(frame.truth.encoding), written: truthPng.value.written, preview: `${dir}preview/truth.png` },
     preds, overlay, notes,
   };
   return ok({ files, row });

@@ -9,6 +9,8 @@ export interface TileLabelFile {
   source: string;
   /** The crop's encoding (see labelCropToPng). */
   written: string;
+  /** The crop in the class colours (void in the table's ignoreColor, else dark gray), for people to look at; null when not written. */
+  preview: string | null;
 }
 
 /** One tile of the export, as manifest.json lists it (tiles.csv has the same rows, flattened). */
@@ -65,6 +67,7 @@ export const TILE_CSV_COLUMNS = [
   'flag_x0', 'flag_y0', 'flag_x1', 'flag_y1', 'x0', 'y0', 'x1', 'y1', 'part', 'parts', 'classes',
   'region_kind', 'truth_class', 'pred_class', 'score', 'region_reasons', 'photo_file', 'truth_file',
   'truth_source_encoding', 'truth_encoding', 'pred_files', 'pred_wrong_pixels', 'overlay_file', 'overlay_run', 'notes',
+  'truth_preview_file', 'pred_preview_files',
 ] as const;
 
 /**
@@ -91,6 +94,7 @@ export function tileCsvValues(r: TileRow): (string | number | null)[] {
     r.region ? r.region.reasons.join('; ') : null, r.photo, r.truth.file, r.truth.source, r.truth.written,
     r.preds.map((p) => `${p.run}=${p.file}`).join('; '), r.preds.map((p) => `${p.run}=${p.wrongPixels}`).join('; '),
     r.overlay?.file ?? null, r.overlay?.run ?? null, r.notes.join('; '),
+    r.truth.preview, r.preds.map((p) => `${p.run}=${p.preview ?? ''}`).join('; '),
   ];
 }
 

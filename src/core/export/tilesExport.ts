@@ -1,4 +1,5 @@
 import { CLASS_ID_MAX, classTableGenerated, type ClassTable } from '../classTable.ts';
+import { previewLut } from '../colorize.ts';
 import { compositePaletteFromTable } from '../composite/compositePalette.ts';
 import type { ZlibCompress } from '../png/encode.ts';
 import { fail, ok, type Result } from '../result.ts';
@@ -77,7 +78,8 @@ const ZIP_BYTES_MAX = 0xffffffff - 256 * 1024 * 1024;
 
 /**
  * Writes the chosen flags' tiles as one ZIP to `sink`, frame by frame (one decoded frame and one tile
- * in memory at a time): `tiles/<tile>/{photo,truth,pred-<run>,overlay}.png`, then `manifest.json` and
+ * in memory at a time): `tiles/<tile>/{photo,truth,pred-<run>,overlay}.png` and `tiles/<tile>/preview/{truth,pred-<run>}.png`
+ * (the label crops in the class colours), then `manifest.json` and
  * `tiles.csv` (the same rows). A frame or tile that fails is listed in `manifest.failed` and the rest
  * goes on. Returns the summary, or an error when the export was cancelled or the sink failed.
  */
@@ -89,7 +91,7 @@ export async function tilesExport(o: TilesExportOptions): Promise<Result<TilesEx
   const table = o.table;
   // Without a class table every id gets its generated colour, so disagreement shows as "another class".
   const palette = compositePaletteFromTable(table.generated ? classTableGenerated(CLASS_ID_MAX, table.ignore) : table);
-  const ctx = { table, palette, runs: o.runs, compress: o.compress };
+  const ctx = { table, palette, runs: o.runs, compress: o.compress, previewLut: previewLut(table) };
   const rows: TileRow[] = [];
   const failed: TileFailure[] = [];
   const uniqueTile = zipNamesUnique();

@@ -172,6 +172,7 @@ describe('tilesExport: crops around each flag, label crops exact in the source e
       expect([c.frame_width, c.frame_height, c.part, c.parts].map(Number)).toEqual([t.frameWidth, t.frameHeight, t.part, t.parts]);
       expect([c.truth_file, c.truth_source_encoding, c.truth_encoding, c.photo_file, c.overlay_file]).toEqual([t.truth.file, t.truth.source, t.truth.written, s(t.photo), s(t.overlay?.file)]);
       expect(c.pred_files).toBe(t.preds.map((p) => `${p.run}=${p.file}`).join('; '));
+      expect([c.truth_preview_file, c.pred_preview_files]).toEqual([t.truth.preview, t.preds.map((p) => `${p.run}=${p.preview}`).join('; ')]);
       expect([c.region_kind, c.score, c.truth_class, c.pred_class]).toEqual([s(t.region?.kind), s(t.region?.score), s(t.region?.truthClass), s(t.region?.predictedClass)]);
     });
     expect(ref.rows[0].note).toBe(NOTE);
