@@ -1,20 +1,28 @@
-import { extrasFrameLine, type ExtrasFrameLine } from '../core/metrics/extrasTotals.ts';
-import { digestSummary } from '../core/metrics/frameDigest.ts';
-import type { FrameSummary } from '../core/metrics/frameSummary.ts';
-import type { StoredFrame } from './scoresSlice.ts';
+// The frame list's and timeline's view of every frame's scores: read on demand from typed columns
+// (the page's own scoring, or a results folder), so a dataset of 10^5 frames makes no object per frame.
+import { frameColumnBand, frameColumnsHas, frameColumnValue, type FrameColumns } from './frameColumns.ts';
 import type { FrameScoreKey } from './viewSlice.ts';
 
-/** One line of the frame list: the frame's scores for run A, or why it has none. */
-export interface FrameRow {
-  index: number;
-  name: string;
+/** A score the table holds: the sortable ones and the flip-back rate over void truth (the timeline's flicker row). */
+export type FrameValueKey = FrameScoreKey | 'flipBackVoid';
+
+/** Every frame's scores for the shown run, read by frame index. */
+export interface FrameTable {
+  /** Frames in the dataset. */
+  count: number;
+  /** Band width (px) the `bandIoU` values are at. */
+  bandWidth: number;
+  name(index: number): string;
   /** Still waiting to be scored. */
-  pending: boolean;
-  error: string | null;
-  summary: FrameSummary | null;
-  /** Flip-back rate (non-void truth) and small-object recall of run A (src/docs/metrics.md "Flicker", "Objects"), null where undefined; absent for rows read from a results folder. */
-  extras?: ExtrasFrameLine | null;
+  pending(index: number): boolean;
+  /** Why the frame has no scores, or null. */
+  error(index: number): string | null;
+  /** The frame's score `key` (ratio 0..1, or pixels for errorPixels), null when undefined, failed or pending. */
+  value(index: number, key: FrameValueKey): number | null;
 }
+
+/** An empty table (no dataset). */
+export const FRAME_TABLE_EMPTY: FrameTable = { count: 0, bandWidth: 0, name: () => '', pending: () => true, error: () => null, value: () => null };
 
 /** Scores where a higher value is worse. */
 const HIGHER_IS_WORSE: ReadonlySet<FrameScoreKey> = new Set(['errorPixels', 'flipBack']);
@@ -24,37 +32,39 @@ export function higherIsBetter(key: FrameScoreKey): boolean {
   return !HIGHER_IS_WORSE.has(key);
 }
 
-/** Returns the frame-list line of frame `index` for `run` at band width `w` (pending while `result` is missing). */
-export function frameRowOf(index: number, name: string, result: StoredFrame | undefined, run: string | null, w: number): FrameRow {
-  if (!result) return { index, name, pending: true, error: null, summary: null, extras: null };
-  const runResult = run ? result.runs.find((x) => x.run === run) : undefined;
-  const error = result.error ?? (run ? runResult?.error ?? null : 'no prediction run');
-  const stats = runResult?.stats ?? null;
-  const ok = !error && stats;
-  return { index, name, pending: false, error, summary: ok ? digestSummary(stats, w) : null, extras: ok ? extrasFrameLine(runResult?.extras) : null };
+/** Returns `key` of every frame as one column (NaN where the table has no value). */
+export function frameTableColumn(table: FrameTable, key: FrameValueKey): Float64Array {
+  const out = new Float64Array(table.count);
+  for (let i = 0; i < table.count; i++) out[i] = table.value(i, key) ?? NaN;
+  return out;
 }
 
-/** Returns the value of `key` for a row (null when unscored or undefined). Higher is better except error pixels. */
-export function rowValue(row: FrameRow, key: FrameScoreKey): number | null {
-  if (key === 'flipBack' || key === 'smallObjectRecall') return row.extras?.[key] ?? null;
-  if (!row.summary) return null;
-  return row.summary[key];
+/** Returns frame indices in list order: by `key`, worst first (or best first), frames without a value last, ties in frame order. */
+export function frameOrderOf(table: FrameTable, key: FrameScoreKey, worstFirst: boolean): number[] {
+  const v = frameTableColumn(table, key);
+  const sign = (worstFirst ? 1 : -1) * (higherIsBetter(key) ? 1 : -1);
+  const order = Array.from({ length: table.count }, (_, i) => i);
+  return order.sort((a, b) => {
+    const va = v[a], vb = v[b];
+    const na = Number.isNaN(va), nb = Number.isNaN(vb);
+    if (na || nb) return na === nb ? a - b : na ? 1 : -1;
+    return (va - vb) * sign || a - b;
+  });
 }
 
-/** Returns frame indices in list order: by `key`, worst first (or best first), unscored last. */
-export function frameOrderOf(rows: readonly FrameRow[], key: FrameScoreKey, worstFirst: boolean): number[] {
-  const lowerIsWorse = higherIsBetter(key);
-  const sign = (worstFirst ? 1 : -1) * (lowerIsWorse ? 1 : -1);
-  return rows
-    .slice()
-    .sort((a, b) => {
-      const va = rowValue(a, key);
-      const vb = rowValue(b, key);
-      if (va === null || vb === null) {
-        if (va === vb) return a.index - b.index;
-        return va === null ? 1 : -1;
-      }
-      return (va - vb) * sign || a.index - b.index;
-    })
-    .map((r) => r.index);
+/** Returns the table of run `run` over the page's own columns (frames named by `names`; band values at width `w`). */
+export function frameTableOfColumns(columns: FrameColumns, names: readonly string[], run: string | null, w: number): FrameTable {
+  const col = run ? columns.runs[run] : undefined;
+  const noRun = run ? `no scores for run ${run}` : 'no prediction run';
+  return {
+    count: names.length,
+    bandWidth: w,
+    name: (i) => names[i],
+    pending: (i) => !frameColumnsHas(columns, i),
+    error: (i) => (!frameColumnsHas(columns, i) ? null : col ? col.errors.get(i) ?? null : noRun),
+    value: (i, key) => {
+      if (!col || !frameColumnsHas(columns, i)) return null;
+      return key === 'bandIoU' ? frameColumnBand(col, i, w) : frameColumnValue(col, i, key);
+    },
+  };
 }

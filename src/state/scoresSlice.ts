@@ -4,6 +4,7 @@ import { dictCreate, dictFrom } from '../core/dict.ts';
 import { datasetTotalsAdd, datasetTotalsCreate, datasetTotalsWiden, type DatasetTotals } from '../core/metrics/datasetTotals.ts';
 import { extrasTotalsAdd, extrasTotalsCreate, type ExtrasTotals } from '../core/metrics/extrasTotals.ts';
 import { frameDigestOf, type FrameDigest } from '../core/metrics/frameDigest.ts';
+import { frameColumnsAdd, frameColumnsCreate, type FrameColumns } from './frameColumns.ts';
 import type { AppState } from './store.ts';
 
 /** Progress of the scoring pass over the current dataset and settings. */
@@ -39,6 +40,8 @@ export interface ScoresSlice {
   totalsClassIds: number[] | null;
   /** Per run: flicker, object and instance sums over the frames scored so far (as totals, mutated in place). */
   extrasTotals: Record<string, ExtrasTotals>;
+  /** Every frame's scores in compact typed columns (filled in place as frames land, resultsVersion bumped). */
+  columns: FrameColumns;
   scoringStart(generation: number, total: number, classIds: number[] | null): void;
   /** Takes finished frames of pass `generation` (frames of an older pass are dropped). */
   scoringFramesDone(generation: number, done: { index: number; result: FrameJobResult }[]): void;
@@ -57,6 +60,7 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
   totals: dictCreate(),
   totalsClassIds: null,
   extrasTotals: dictCreate(),
+  columns: frameColumnsCreate(0, []),
   scoringStart: (generation, total, classIds) =>
     set({
       scoring: { generation, total, done: 0, failed: 0, startedAt: Date.now(), finishedAt: total === 0 ? Date.now() : null },
@@ -65,9 +69,10 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
       totals: dictCreate(),
       totalsClassIds: classIds,
       extrasTotals: dictCreate(),
+      columns: frameColumnsCreate(total, get().dataset?.pairing.runs ?? []),
     }),
   scoringFramesDone: (generation, batch) => {
-    const { scoring, results, totals, totalsClassIds, extrasTotals } = get();
+    const { scoring, results, totals, totalsClassIds, extrasTotals, columns } = get();
     if (generation !== scoring.generation) return;
     const next = results.slice();
     const nextTotals = dictFrom(totals);
@@ -89,6 +94,7 @@ export const scoresSlice: StateCreator<AppState, [], [], ScoresSlice> = (set, ge
         return { ...r, stats: frameDigestOf(r.stats) };
       });
       next[index] = { ...result, runs };
+      frameColumnsAdd(columns, index, result.error, runs);
       done++;
       failed += failures(result);
     }

@@ -8,11 +8,10 @@ import { layerSettingsOf, type LayerSettings, type PixelBox } from '../core/comp
 import { runsCompareCounts, type RunsCompareCounts } from '../core/runsCompare.ts';
 import { suspectQueueOfResults, type Suspect } from '../core/suspects/suspectQueue.ts';
 import { SUSPECT_DEFAULTS } from '../core/suspects/suspectSettings.ts';
-import { frameOrderOf, frameRowOf, type FrameRow } from './frameRows.ts';
+import { FRAME_TABLE_EMPTY, frameOrderOf, frameTableOfColumns, type FrameTable } from './frameRows.ts';
 import { datasetScope, frameScope, type ScopeScores } from './scopeScores.ts';
-import type { StoredFrame } from './scoresSlice.ts';
 import { scoringTableOf } from './scoringRun.ts';
-import { liveCheckOf, storedRowOf, storedStaleOf, type LiveCheck } from './storedResults.ts';
+import { frameTableOfStored, liveCheckOf, storedStaleOf, type LiveCheck } from './storedResults.ts';
 import type { AppState } from './store.ts';
 
 type Sel<T> = (s: AppState) => T;
@@ -51,38 +50,24 @@ export const classNameSel: Sel<(id: number | null) => string> = selectorOf([clas
 /** Returns the run the frame list, timeline and scoreboard describe: run A, else the dataset's first run. */
 export const shownRunSel: Sel<string | null> = (s) => s.runA ?? s.dataset?.pairing.runs[0] ?? null;
 
+const frameNamesSel: Sel<string[]> = selectorOf([datasetIn], (dataset) => (dataset?.pairing.frames ?? []).map((f) => f.name));
+
 /**
- * Returns one row per frame for the shown run at the band width. While the run and width stay, a
- * frame whose result is unchanged keeps its row, so a batch of finished frames costs only its own rows.
+ * Returns every frame's scores for the shown run at the band width, read from typed columns (a
+ * results folder's, else the page's own scoring's, filled in place: a new table each time frames land).
  */
-export const frameRowsSel: Sel<FrameRow[]> = (() => {
-  let last: { dataset: AppState['dataset']; results: AppState['results']; stored: AppState['stored']; run: string | null; w: number; rows: FrameRow[] } | null = null;
-  return (s: AppState) => {
-    const { dataset, results, stored, bandWidth: w } = s;
-    const run = shownRunSel(s);
-    // Stored results give every row from their columns; the band column is the table's width then.
-    if (stored) {
-      if (last && last.dataset === dataset && last.stored === stored && last.run === run) return last.rows;
-      const rows = (dataset?.pairing.frames ?? []).map((f, i) => storedRowOf(stored, run, i, f.name));
-      last = { dataset, results, stored, run, w, rows };
-      return rows;
-    }
-    if (last && last.dataset === dataset && !last.stored && last.results === results && last.run === run && last.w === w) return last.rows;
-    const reuse = last && last.dataset === dataset && !last.stored && last.run === run && last.w === w ? last : null;
-    const frames = dataset?.pairing.frames ?? [];
-    const rows = frames.map((f, i) => {
-      const r: StoredFrame | undefined = results[i];
-      return reuse && reuse.results[i] === r && reuse.rows[i] ? reuse.rows[i] : frameRowOf(i, f.name, r, run, w);
-    });
-    last = { dataset, results, stored: null, run, w, rows };
-    return rows;
-  };
-})();
+export const frameTableSel: Sel<FrameTable> = selectorOf(
+  [frameNamesSel, (s: AppState) => s.stored, (s: AppState) => s.columns, (s: AppState) => (s.stored ? 0 : s.resultsVersion), shownRunSel, bandWidthIn],
+  (names, stored, columns, _version, run, w) => {
+    if (names.length === 0) return FRAME_TABLE_EMPTY;
+    return stored ? frameTableOfStored(stored, names, run) : frameTableOfColumns(columns, names, run, w);
+  },
+);
 
 /** Returns frame indices in the frame list's order (the chosen score, worst first unless flipped, unscored last). */
 export const frameOrderSel: Sel<number[]> = selectorOf(
-  [frameRowsSel, (s: AppState) => s.frameScore, (s: AppState) => s.sortWorstFirst],
-  (rows, key, worstFirst) => frameOrderOf(rows, key, worstFirst),
+  [frameTableSel, (s: AppState) => s.frameScore, (s: AppState) => s.sortWorstFirst],
+  (table, key, worstFirst) => frameOrderOf(table, key, worstFirst),
 );
 
 /**

@@ -4,7 +4,7 @@ import { digestSummary } from '../core/metrics/frameDigest.ts';
 import type { FrameSummary } from '../core/metrics/frameSummary.ts';
 import type { ScoreSettings } from '../core/metrics/settings.ts';
 import type { RunColumns, StoredResults } from '../data/results/resultsRead.ts';
-import type { FrameRow } from './frameRows.ts';
+import type { FrameTable } from './frameRows.ts';
 import type { StoredFrame } from './scoresSlice.ts';
 import type { AppStore } from './store.ts';
 
@@ -29,12 +29,22 @@ export function storedSummaryOf(c: RunColumns, i: number): FrameSummary | null {
   };
 }
 
-/** Returns the frame-list line of frame `index` from the stored columns of `run`. */
-export function storedRowOf(stored: StoredResults, run: string | null, index: number, name: string): FrameRow {
+/** Returns the frame table of `run` over a results folder's columns (frames named by `names`; band values at the table's width). */
+export function frameTableOfStored(stored: StoredResults, names: readonly string[], run: string | null): FrameTable {
   const c = run ? stored.runs[run] : undefined;
-  if (!c) return { index, name, pending: false, error: 'no prediction run', summary: null };
-  const error = c.errors.get(index) ?? (c.present[index] ? null : 'no row in the results folder');
-  return { index, name, pending: false, error, summary: error ? null : storedSummaryOf(c, index) };
+  const error = (i: number) => (!c ? 'no prediction run' : c.errors.get(i) ?? (c.present[i] ? null : 'no row in the results folder'));
+  return {
+    count: names.length,
+    bandWidth: stored.bandWidth,
+    name: (i) => names[i],
+    pending: () => false,
+    error,
+    value: (i, key) => {
+      if (!c || key === 'flipBack' || key === 'flipBackVoid' || key === 'smallObjectRecall' || error(i) !== null) return null;
+      const v = c[key][i];
+      return Number.isNaN(v) ? null : v;
+    },
+  };
 }
 
 const SETTING_WORDS: Record<keyof ScoreSettings, string> = { ignore: 'void id', biouDilationRatio: 'Boundary IoU dilation ratio', bfTolerance: 'Boundary F tolerance ratio' };

@@ -1,7 +1,7 @@
 import { SMALL_OBJECT_AREA } from '../core/objects/objectsBySize.ts';
 import { useEffect, useRef, useState } from 'react';
-import { rowValue, type FrameRow } from '../state/frameRows.ts';
-import { frameOrderSel, frameRowsSel } from '../state/selectors.ts';
+import type { FrameTable } from '../state/frameRows.ts';
+import { frameOrderSel, frameTableSel } from '../state/selectors.ts';
 import type { FrameScoreKey } from '../state/viewSlice.ts';
 import { countShort, pct } from './format.ts';
 import { useCommand } from './commands/useCommand.tsx';
@@ -19,21 +19,19 @@ const COLUMNS: { key: FrameScoreKey; label: string; title: string }[] = [
   { key: 'smallObjectRecall', label: 'small', title: `Small-object recall: mean recall of the ground-truth objects under ${SMALL_OBJECT_AREA} pixels (%)` },
 ];
 
-function cell(row: FrameRow, key: FrameScoreKey): string {
-  const v = rowValue(row, key);
-  if (v === null) return row.pending ? '…' : '—';
+function cell(table: FrameTable, index: number, key: FrameScoreKey): string {
+  const v = table.value(index, key);
+  if (v === null) return table.pending(index) ? '…' : '—';
   return key === 'errorPixels' ? countShort(v) : pct(v, key === 'flipBack' ? 2 : 1);
 }
 
 /** The frame list: every frame with its scores for run A, sortable, virtualised for long datasets. */
 export function FrameList() {
   const run = useCommand();
-  // Stored results hold the band column at one width; the header says which.
-  const bandWidth = useApp((s) => s.stored?.bandWidth ?? s.bandWidth);
   const sortKey = useApp((s) => s.frameScore);
   const worstFirst = useApp((s) => s.sortWorstFirst);
   const current = useApp((s) => s.frameIndex);
-  const rows = useApp(frameRowsSel);
+  const table = useApp(frameTableSel);
   const order = useApp(frameOrderSel);
   const scroller = useRef<HTMLDivElement>(null);
   const [scrollTop, setScrollTop] = useState(0);
@@ -68,7 +66,7 @@ export function FrameList() {
         <span className="fl-name">frame</span>
         {COLUMNS.map((c) => (
           <button key={c.key} className={c.key === sortKey ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => run('frames.sortBy', c.key)}>
-            {c.key === 'bandIoU' ? `${c.label} ${bandWidth}` : c.label}
+            {c.key === 'bandIoU' ? `${c.label} ${table.bandWidth}` : c.label}
             {c.key === sortKey ? (worstFirst ? ' ▲' : ' ▼') : ''}
           </button>
         ))}
@@ -76,23 +74,24 @@ export function FrameList() {
       <div className="fl-scroll" ref={scroller} onScroll={(e) => setScrollTop(e.currentTarget.scrollTop)}>
         <div style={{ height: order.length * ROW_H, position: 'relative' }}>
           {order.slice(first, last).map((index, i) => {
-            const row = rows[index];
+            const error = table.error(index);
+            const name = table.name(index);
             return (
               <div
                 key={index}
-                className={`fl-row${index === current ? ' fl-current' : ''}${row.error ? ' fl-error' : ''}`}
+                className={`fl-row${index === current ? ' fl-current' : ''}${error ? ' fl-error' : ''}`}
                 style={{ top: (first + i) * ROW_H, height: ROW_H }}
-                title={row.error ?? row.name}
-                data-frame={row.name}
+                title={error ?? name}
+                data-frame={name}
                 onClick={() => run('frame.go', index)}
               >
-                <span className="fl-name">{row.name}</span>
-                {row.error ? (
+                <span className="fl-name">{name}</span>
+                {error ? (
                   <span className="fl-err">failed</span>
                 ) : (
                   COLUMNS.map((c) => (
                     <span key={c.key} className="fl-col">
-                      {cell(row, c.key)}
+                      {cell(table, index, c.key)}
                     </span>
                   ))
                 )}

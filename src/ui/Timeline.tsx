@@ -1,60 +1,84 @@
 import { useEffect, useMemo, useRef } from 'react';
-import { higherIsBetter, rowValue } from '../state/frameRows.ts';
-import { frameRowsSel } from '../state/selectors.ts';
+import { frameTableColumn, higherIsBetter } from '../state/frameRows.ts';
+import { frameTableSel } from '../state/selectors.ts';
 import { scoreColor } from './format.ts';
 import { commandKeys } from './commands/appCommands.ts';
 import { useCommand } from './commands/useCommand.tsx';
 import { useApp } from './storeContext.tsx';
 
+/** One row of the timeline: per frame a badness 0..1 (1 worst; NaN without a value) and whether it failed. */
+interface StripRow {
+  bad: Float64Array;
+  failed: Uint8Array;
+  color: (bad: number) => string;
+}
+
+const FAILED_COLOR = '#ff3b30';
+
 /**
- * Returns a colour per frame: its chosen score placed between the dataset's worst and best scored
- * frames (so differences show even when every frame scores high), gray while unscored, dark red
- * stripes for frames that failed.
+ * Returns the score strip's row: each frame's chosen score placed between the dataset's worst and best
+ * scored frames (so differences show even when every frame scores high).
  */
-function stripColors(values: (number | null)[], failed: boolean[], higherIsBetter: boolean): string[] {
-  const defined = values.filter((v): v is number => v !== null);
-  const lo = Math.min(...defined);
-  const hi = Math.max(...defined);
-  return values.map((v, i) => {
-    if (failed[i]) return '#ff3b30';
-    if (v === null) return scoreColor(null);
-    const t = hi > lo ? (v - lo) / (hi - lo) : 1;
-    return scoreColor(higherIsBetter ? t : 1 - t);
-  });
+function scoreRow(values: Float64Array, failed: Uint8Array, higherIsBetter: boolean): StripRow {
+  let lo = Infinity, hi = -Infinity;
+  for (const v of values) {
+    if (Number.isNaN(v)) continue;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  const bad = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const t = hi > lo ? (values[i] - lo) / (hi - lo) : 1;
+    bad[i] = Number.isNaN(values[i]) ? NaN : higherIsBetter ? 1 - t : t;
+  }
+  return { bad, failed, color: (b) => scoreColor(1 - b) };
 }
 
-/** Colour of a flicker cell: dark at no flicker, brighter amber the closer to the sequence's worst `max`. */
-function flickerColor(v: number | null, max: number): string {
-  if (v === null) return '#23272d';
-  const t = max > 0 ? Math.min(1, v / max) : 0;
-  return `rgb(${Math.round(40 + 215 * t)}, ${Math.round(36 + 140 * t)}, ${Math.round(30 + 10 * t)})`;
+/** Returns a flicker row: dark at no flicker, brighter amber the closer to the sequence's worst frame. */
+function flickerRow(values: Float64Array): StripRow {
+  let max = 0;
+  for (const v of values) if (v > max) max = v;
+  const bad = values.map((v) => (Number.isNaN(v) ? NaN : max > 0 ? Math.min(1, v / max) : 0));
+  const color = (t: number) => (Number.isNaN(t) ? '#23272d' : `rgb(${Math.round(40 + 215 * t)}, ${Math.round(36 + 140 * t)}, ${Math.round(30 + 10 * t)})`);
+  return { bad, failed: new Uint8Array(values.length), color };
 }
 
-/** Draws one cell per frame into `c` in rows (top to bottom, equal heights), with the current frame outlined. */
-function cellsDraw(c: HTMLCanvasElement, rows: string[][], current: number): void {
-  const w = c.clientWidth * devicePixelRatio;
-  const h = c.clientHeight * devicePixelRatio;
+/**
+ * Draws `rows` into `c` (top to bottom, equal heights), one rect per frame while frames are wider than
+ * a device pixel, else one rect per pixel column showing the worst frame under it (a failed one first),
+ * so 10^5 frames cost one pass over the values and a canvas width of rects; the current frame outlined.
+ */
+function cellsDraw(c: HTMLCanvasElement, rows: StripRow[], n: number, current: number): void {
+  const w = Math.round(c.clientWidth * devicePixelRatio);
+  const h = Math.round(c.clientHeight * devicePixelRatio);
   c.width = w;
   c.height = h;
   const ctx = c.getContext('2d')!;
   ctx.clearRect(0, 0, w, h);
-  const n = rows[0]?.length ?? 0;
-  rows.forEach((colors, r) => {
+  if (n === 0 || w === 0) return;
+  const cells = Math.min(n, w);
+  rows.forEach((row, r) => {
     const y0 = Math.round((r * h) / rows.length), y1 = Math.round(((r + 1) * h) / rows.length);
-    for (let i = 0; i < n; i++) {
-      const x0 = Math.floor((i * w) / n);
-      const x1 = Math.max(x0 + 1, Math.floor(((i + 1) * w) / n) - (w / n > 4 ? 1 : 0));
-      ctx.fillStyle = colors[i];
+    for (let k = 0; k < cells; k++) {
+      // Frames a..b-1 fall in cell k.
+      const a = Math.floor((k * n) / cells), b = Math.max(a + 1, Math.floor(((k + 1) * n) / cells));
+      let worst = NaN, failed = false;
+      for (let i = a; i < b; i++) {
+        if (row.failed[i]) failed = true;
+        const v = row.bad[i];
+        if (!Number.isNaN(v) && !(v <= worst)) worst = v;
+      }
+      const x0 = Math.floor((k * w) / cells);
+      const x1 = Math.max(x0 + 1, Math.floor(((k + 1) * w) / cells) - (w / cells > 4 ? 1 : 0));
+      ctx.fillStyle = failed ? FAILED_COLOR : row.color(worst);
       ctx.fillRect(x0, y0, x1 - x0, y1 - y0 - (r < rows.length - 1 ? 1 : 0));
     }
   });
-  if (n > 0) {
-    const x0 = Math.floor((current * w) / n);
-    const x1 = Math.max(x0 + 2, Math.floor(((current + 1) * w) / n));
-    ctx.strokeStyle = '#ffffff';
-    ctx.lineWidth = 2 * devicePixelRatio;
-    ctx.strokeRect(x0 + 1, 1, x1 - x0 - 2, h - 2);
-  }
+  const x0 = Math.floor((current * w) / n);
+  const x1 = Math.max(x0 + 2, Math.floor(((current + 1) * w) / n));
+  ctx.strokeStyle = '#ffffff';
+  ctx.lineWidth = 2 * devicePixelRatio;
+  ctx.strokeRect(x0 + 1, 1, x1 - x0 - 2, h - 2);
 }
 
 /**
@@ -68,29 +92,22 @@ export function Timeline() {
   const current = useApp((s) => s.frameIndex);
   const playing = useApp((s) => s.playing);
   const rate = useApp((s) => s.playRate);
-  const rows = useApp(frameRowsSel);
+  const table = useApp(frameTableSel);
   const count = useApp((s) => s.dataset?.pairing.frames.length ?? 0);
   const canvas = useRef<HTMLCanvasElement>(null);
-  const flickerRow = useRef<HTMLCanvasElement>(null);
+  const flickerCanvas = useRef<HTMLCanvasElement>(null);
 
-  const colors = useMemo(
-    () => stripColors(rows.map((r) => rowValue(r, key)), rows.map((r) => r.error !== null), higherIsBetter(key)),
-    [rows, key],
-  );
-
-  const flicker = useMemo(() => {
-    const of = (k: 'flipBack' | 'flipBackVoid') => {
-      const v = rows.map((r) => r.extras?.[k] ?? null);
-      const max = Math.max(0, ...v.filter((x): x is number => x !== null));
-      return v.map((x) => flickerColor(x, max));
-    };
-    return [of('flipBack'), of('flipBackVoid')];
-  }, [rows]);
+  const strip = useMemo(() => {
+    const failed = new Uint8Array(table.count);
+    for (let i = 0; i < table.count; i++) failed[i] = table.error(i) === null ? 0 : 1;
+    return scoreRow(frameTableColumn(table, key), failed, higherIsBetter(key));
+  }, [table, key]);
+  const flicker = useMemo(() => [flickerRow(frameTableColumn(table, 'flipBack')), flickerRow(frameTableColumn(table, 'flipBackVoid'))], [table]);
 
   useEffect(() => {
-    if (canvas.current) cellsDraw(canvas.current, [colors], current);
-    if (flickerRow.current) cellsDraw(flickerRow.current, flicker, current);
-  }, [colors, flicker, current]);
+    if (canvas.current) cellsDraw(canvas.current, [strip], table.count, current);
+    if (flickerCanvas.current) cellsDraw(flickerCanvas.current, flicker, table.count, current);
+  }, [strip, flicker, table, current]);
 
   useEffect(() => {
     if (!playing) return;
@@ -117,7 +134,7 @@ export function Timeline() {
         ))}
       </select>
       <div className="tl-rows">
-        {[canvas, flickerRow].map((ref, i) => (
+        {[canvas, flickerCanvas].map((ref, i) => (
           <canvas
             key={i}
             ref={ref}

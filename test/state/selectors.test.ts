@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { layerLooksDefault } from '../../src/core/composite/layerSettings.ts';
-import type { StoredFrame } from '../../src/state/scoresSlice.ts';
-import { classNameSel, frameOrderSel, frameRowsSel, layerSettingsSel, scoringTableSel, shownRunSel } from '../../src/state/selectors.ts';
+import { classNameSel, frameOrderSel, frameTableSel, layerSettingsSel, scoringTableSel, shownRunSel } from '../../src/state/selectors.ts';
 import { appStoreCreate } from '../../src/state/store.ts';
 
 function storeWithFrames(n: number, runs = ['r1', 'r2']) {
@@ -44,30 +43,30 @@ describe('layerSettingsSel: the compositor settings derived from state', () => {
   });
 });
 
-function failed(name: string, error: string | null, runError: string | null): StoredFrame {
-  return { name, width: 4, height: 2, error, runs: [{ run: 'r1', stats: null, error: runError }, { run: 'r2', stats: null, error: null }] } as unknown as StoredFrame;
+function failed(name: string, error: string | null, runError: string | null) {
+  return { name, width: 4, height: 2, error, runs: [{ run: 'r1', stats: null, error: runError }, { run: 'r2', stats: null, error: null }] };
 }
 
-describe('frame rows and their order', () => {
-  it('describe run A (else the first run); a frame whose result is unchanged keeps its row when others land', () => {
+describe('the frame table and its order', () => {
+  it('describes run A (else the first run): pending until a frame lands, then its error', () => {
     const store = storeWithFrames(3);
     expect(shownRunSel(store.getState())).toBe('r1');
-    const empty = frameRowsSel(store.getState());
-    expect(empty.map((r) => r.pending)).toEqual([true, true, true]);
-    store.setState({ results: [failed('f0', null, 'f0: r1 unreadable'), undefined, undefined] });
-    const one = frameRowsSel(store.getState());
-    expect(one[0]).toMatchObject({ pending: false, error: 'f0: r1 unreadable' });
-    expect(one[1]).toBe(empty[1]);
-    store.setState({ results: [store.getState().results[0], failed('f1', 'truth/f1.png: not a PNG', null), undefined] });
-    const two = frameRowsSel(store.getState());
-    expect(two[0]).toBe(one[0]);
-    expect(two[1].error).toBe('truth/f1.png: not a PNG');
-    expect(two[2]).toBe(one[2]);
-    // Another run describes the frames afresh.
+    store.getState().scoringStart(1, 3, null);
+    const empty = frameTableSel(store.getState());
+    expect([0, 1, 2].map((i) => empty.pending(i))).toEqual([true, true, true]);
+    store.getState().scoringFramesDone(1, [{ index: 0, result: failed('f0', null, 'f0: r1 unreadable') }]);
+    const one = frameTableSel(store.getState());
+    expect(one).not.toBe(empty);
+    expect([one.pending(0), one.error(0)]).toEqual([false, 'f0: r1 unreadable']);
+    expect(one.pending(1)).toBe(true);
+    store.getState().scoringFramesDone(1, [{ index: 1, result: failed('f1', 'truth/f1.png: not a PNG', null) }]);
+    const two = frameTableSel(store.getState());
+    expect(two.error(1)).toBe('truth/f1.png: not a PNG');
+    expect(frameTableSel(store.getState())).toBe(two);
+    // Another run describes the frames afresh: r2 has neither stats nor an error on f0.
     store.getState().runsSet({ runA: 'r2' });
-    const r2 = frameRowsSel(store.getState());
-    expect(r2[0]).not.toBe(two[0]);
-    expect(r2[0].error).toBeNull();
+    const r2 = frameTableSel(store.getState());
+    expect(r2.error(0)).toBe('no scores for run r2');
     // Unscored and failed frames sort after scored ones, in frame order.
     expect(frameOrderSel(store.getState())).toEqual([0, 1, 2]);
   });
