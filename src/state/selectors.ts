@@ -6,11 +6,11 @@
 import type { ClassInfo, ClassTable } from '../core/classTable.ts';
 import { layerSettingsOf, type LayerSettings, type PixelBox } from '../core/composite/layerSettings.ts';
 import { runsCompareCounts, type RunsCompareCounts } from '../core/runsCompare.ts';
-import { suspectQueueOfResults, type Suspect } from '../core/suspects/suspectQueue.ts';
-import { SUSPECT_DEFAULTS } from '../core/suspects/suspectSettings.ts';
+import type { Suspect } from '../core/suspects/suspectQueue.ts';
 import { FRAME_TABLE_EMPTY, frameOrderOf, frameTableOfColumns, type FrameTable } from './frameRows.ts';
 import { datasetScope, frameScope, type ScopeScores } from './scopeScores.ts';
 import { scoringTableOf } from './scoringRun.ts';
+import { queueOfEvidence } from './queueEvidence.ts';
 import { frameTableOfStored, liveCheckOf, storedStaleOf, type LiveCheck } from './storedResults.ts';
 import type { AppState } from './store.ts';
 
@@ -31,7 +31,6 @@ export function selectorOf<I extends readonly unknown[], R>(inputs: { [K in keyo
 }
 
 const datasetIn: Sel<AppState['dataset']> = (s) => s.dataset;
-const resultsIn: Sel<AppState['results']> = (s) => s.results;
 const bandWidthIn: Sel<number> = (s) => s.bandWidth;
 
 /** Returns the class table frames are scored and coloured with (the void id from the settings), or null without a dataset. */
@@ -74,8 +73,9 @@ export const frameOrderSel: Sel<number[]> = selectorOf(
  * Returns the likely-label-mistake queue over the frames scored so far (most likely first), the same
  * pass the headless scorer runs; rebuilt only when frames land or the class names change.
  */
-export const suspectsSel: Sel<Suspect[]> = selectorOf([datasetIn, resultsIn, (s: AppState) => s.stored, classNameSel], (dataset, results, stored, name) =>
-  !dataset ? [] : stored ? stored.queue : suspectQueueOfResults(results, name, SUSPECT_DEFAULTS),
+export const suspectsSel: Sel<Suspect[]> = selectorOf(
+  [datasetIn, (s: AppState) => s.queueEvidence, (s: AppState) => s.resultsVersion, (s: AppState) => s.stored, classNameSel],
+  (dataset, evidence, _version, stored, name) => (!dataset ? [] : stored ? stored.queue : queueOfEvidence(evidence, name)),
 );
 
 /** Returns how the settings differ from those of the opened results folder (empty while its scores hold, or without one). */
