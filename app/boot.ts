@@ -5,6 +5,8 @@ import type { LayerSettings } from '../src/core/composite/layerSettings.ts';
 import { layerSettingsSel } from '../src/state/selectors.ts';
 import type { ScoreReport } from '../src/core/metrics/report.ts';
 import { stateReport } from '../src/state/stateReport.ts';
+import { suspectsRankedSel } from '../src/state/suspectsRanked.ts';
+import type { Suspect } from '../src/core/suspects/suspectQueue.ts';
 import { servedResultsFiles } from '../src/data/results/resultsRead.ts';
 import { servedSourceOpen } from '../src/data/sources/servedSource.ts';
 import { scoringKeep } from '../src/state/scoringRun.ts';
@@ -26,6 +28,8 @@ export interface AppRuntime {
   viewPool: ViewPool;
   /** The JSON report of `run` over the frames scored so far, as the headless scorer writes it. */
   report(run: string): ScoreReport | null;
+  /** The Doubts list as ranked now (the queue re-ranked by the verdicts given), with each item's signals. */
+  queue(): Suspect[];
   /** What the viewer composes now (the layer looks with the runs, band width and outline put in). */
   layers(): LayerSettings;
   stop(): void;
@@ -46,6 +50,7 @@ export function appStart(): AppRuntime {
     scorePool,
     viewPool,
     report: (run) => stateReport(store.getState(), run),
+    queue: () => suspectsRankedSel(store.getState()),
     layers: () => layerSettingsSel(store.getState()),
     stop() {
       for (const s of stops) s();

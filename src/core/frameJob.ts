@@ -8,6 +8,7 @@ import { frameExtrasCompute, type RunExtras } from './frameExtras.ts';
 import type { ScoreSettings } from './metrics/settings.ts';
 import { idCensusOf, type IdCensus } from './idCensus.ts';
 import { labelMapRead } from './labelRead.ts';
+import { labelMapReadCached, type LabelReadCache } from './labelReadCache.ts';
 import { labelMapFromPng } from './png/decodeLabel.ts';
 import { photoFit, predictionFit } from './labelScale.ts';
 import type { RgbaImage } from './png/decodePhoto.ts';
@@ -81,6 +82,9 @@ export interface FrameJobResult {
   warnings?: string[];
 }
 
+/** Most decoded predictions a thread keeps for the next frames' flicker (2048×1024 8-bit: 2 MB each). */
+const READS_KEPT_MAX = 16;
+
 /** Returns the ids a generated table scores on this frame: every id in truth or predictions except void. */
 function presentIds(maps: LabelMap[], ignore: number): number[] {
   const seen = new Uint8Array(65536);
@@ -107,6 +111,8 @@ export function frameJobScore(
   const base = { name: input.name, width: 0, height: 0 };
   const failAll = (error: string): FrameJobResult => ({ ...base, error, runs: input.preds.map((p) => ({ run: p.run, stats: null, error })) });
 
+  // Each run's prediction is read by this frame and, for flicker, by the frames before and after it.
+  scratch.reads.capacity = input.neighbours?.length ? Math.min(READS_KEPT_MAX, 3 * input.preds.length + 1) : 0;
   const truth = labelMapRead(input.truth.bytes, { file: input.truth.file, table, maxPixels: input.maxPixels, role: 'truth' });
   if (!truth.ok) return failAll(truth.error);
   const ids = labelMapIdsCheck(truth.value, table, input.truth.file, 'truth');
@@ -115,7 +121,7 @@ export function frameJobScore(
   const warnings: string[] = [];
   const decoded: { run: string; map: LabelMap | null; error: string | null; factor?: number }[] = input.preds.map(({ run, file }) => {
     if (!file) return { run, map: null, error: `predictions/${run}: no prediction file for frame ${input.name}` };
-    const r = labelMapRead(file.bytes, { file: file.file, table, maxPixels: input.maxPixels, role: 'prediction' });
+    const r = labelMapReadCached(scratch.reads, file.bytes, { file: file.file, table, maxPixels: input.maxPixels, role: 'prediction' });
     if (!r.ok) return { run, map: null, error: r.error };
     if (r.value.warning) warnings.push(r.value.warning);
     const fit = predictionFit({ file: input.truth.file, width, height }, { file: file.file, map: r.value });
@@ -159,7 +165,9 @@ export function frameJobScore(
     const confidence = confidenceOf(input, d.run, width, height, warnings);
     return { run: d.run, map: d.map, confidence };
   });
-  const regions = frameRegionsCompute({ truth: truth.value, preds, classIds, ignore: settings.ignore, photo }, regionSettings.value, regionScratch);
+  // The truth's boundary distances made for the scores (when a run was scored) serve the regions' band too.
+  const truthDist2 = scratch.distanceIds === truth.value.ids ? scratch.dist2 : null;
+  const regions = frameRegionsCompute({ truth: truth.value, preds, classIds, ignore: settings.ignore, photo, truthDist2 }, regionSettings.value, regionScratch);
   if (!regions.ok) {
     warnings.push(`${input.truth.file}: error regions not computed (${regions.error})`);
     return { ...base, width, height, error: null, runs, grid: null, warnings };
@@ -171,10 +179,11 @@ export function frameJobScore(
 /** Decodes a neighbour's prediction or an instance map for the extras; null (with a warning) when it is unusable. */
 function extraMapRead(
   file: FileBytes | null, input: FrameJobInput, role: 'prediction' | 'instances', width: number, height: number, warnings: string[], loses: string,
+  reads: LabelReadCache,
 ): LabelMap | null {
   if (!file) return null;
   const r = role === 'prediction'
-    ? labelMapRead(file.bytes, { file: file.file, table: input.table, maxPixels: input.maxPixels, role })
+    ? labelMapReadCached(reads, file.bytes, { file: file.file, table: input.table, maxPixels: input.maxPixels, role })
     : labelMapFromPng(file.bytes, { file: file.file, maxPixels: input.maxPixels });
   const sizes = r.ok ? frameSizesCheck([{ file: input.truth.file, width, height }, { file: file.file, width: r.value.width, height: r.value.height }]) : r;
   if (!sizes.ok) {
@@ -191,13 +200,13 @@ function extrasAdd(
 ): void {
   if (classIds.length === 0) return;
   const { width, height } = truth;
-  const instances = extraMapRead(input.instances ?? null, input, 'instances', width, height, warnings, 'instance-weighted IoU');
+  const instances = extraMapRead(input.instances ?? null, input, 'instances', width, height, warnings, 'instance-weighted IoU', scratch.reads);
   const runMaps = runs.map((r, i) => {
     const n = input.neighbours?.find((x) => x.run === r.run);
     const map = maps[i];
     if (!map || !n || !n.prev || !n.next) return { map, prev: null, next: null };
-    const prev = extraMapRead(n.prev, input, 'prediction', width, height, warnings, `flicker of ${r.run}`);
-    const next = prev ? extraMapRead(n.next, input, 'prediction', width, height, warnings, `flicker of ${r.run}`) : null;
+    const prev = extraMapRead(n.prev, input, 'prediction', width, height, warnings, `flicker of ${r.run}`, scratch.reads);
+    const next = prev ? extraMapRead(n.next, input, 'prediction', width, height, warnings, `flicker of ${r.run}`, scratch.reads) : null;
     return { map, prev, next };
   });
   const codes = scoreScratchCodeTable(scratch, classIds, input.settings.ignore);

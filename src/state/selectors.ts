@@ -13,6 +13,7 @@ import { scoringTableOf } from './scoringRun.ts';
 import { queueOfEvidence } from './queueEvidence.ts';
 import { frameTableOfStored, liveCheckOf, storedStaleOf, type LiveCheck } from './storedResults.ts';
 import type { AppState } from './store.ts';
+import { classFrameColumnOf, classFrameOrder } from './classFrames.ts';
 
 type Sel<T> = (s: AppState) => T;
 
@@ -65,8 +66,14 @@ export const frameTableSel: Sel<FrameTable> = selectorOf(
 
 /** Returns frame indices in the frame list's order (the chosen score, worst first unless flipped, unscored last). */
 export const frameOrderSel: Sel<number[]> = selectorOf(
-  [frameTableSel, (s: AppState) => s.frameScore, (s: AppState) => s.sortWorstFirst],
-  (table, key, worstFirst) => frameOrderOf(table, key, worstFirst),
+  [frameTableSel, (s: AppState) => s.frameScore, (s: AppState) => s.sortWorstFirst, (s: AppState) => s.frameClass, (s: AppState) => classColumnSel(s)],
+  (table, key, worstFirst, byClass, column) => (byClass && column ? classFrameOrder(column, worstFirst) : frameOrderOf(table, key, worstFirst)),
+);
+
+/** Returns every frame's measure of the class the frame list is sorted by (null when it is not sorted by a class). */
+export const classColumnSel: Sel<Float64Array | null> = selectorOf(
+  [(s: AppState) => s.frameClass, (s: AppState) => s.columns, (s: AppState) => s.results, frameNamesSel, shownRunSel, bandWidthIn],
+  (byClass, columns, results, names, run, w) => (byClass ? classFrameColumnOf(columns, results, names.length, run, byClass.classId, byClass.measure, w) : null),
 );
 
 /**

@@ -1,5 +1,8 @@
 import type { ViewPool } from '../workers/scorePool.ts';
 import { shallow } from 'zustand/vanilla/shallow';
+import type { DecodedFrame } from '../core/decodedFrame.ts';
+import type { Result } from '../core/result.ts';
+import { sequencePlaces, type SequencePlace } from '../core/temporal/sequences.ts';
 import { frameCacheCreate, type FrameCache } from './frameCache.ts';
 import { scoringTableSel } from './selectors.ts';
 import type { AppStore } from './store.ts';
@@ -14,6 +17,7 @@ const PREFETCH = [1, -1, 2];
  */
 export function shownKeep(store: AppStore, pool: ViewPool): () => void {
   let cache: FrameCache | null = null;
+  let places: SequencePlace[] = [];
   let wanted = -1;
 
   // A new dataset or void id decodes with a new table, so the cache starts over.
@@ -21,6 +25,7 @@ export function shownKeep(store: AppStore, pool: ViewPool): () => void {
     const s = store.getState();
     const table = scoringTableSel(s);
     cache = s.dataset && table && s.dataset.pairing.frames.length > 0 ? frameCacheCreate(s.dataset, table, pool) : null;
+    places = s.dataset ? sequencePlaces(s.dataset.pairing.frames.map((f) => f.name)) : [];
     wanted = -1;
     update();
   }
@@ -39,12 +44,26 @@ export function shownKeep(store: AppStore, pool: ViewPool): () => void {
       (frame) => {
         if (cache !== c || wanted !== index) return;
         store.getState().shownSet(index, frame.ok ? frame.value : null, frame.ok ? null : frame.error);
+        if (frame.ok) aroundFetch(c, index);
         for (const d of PREFETCH) c.prefetch(index + d);
       },
       (e: Error) => {
         if (cache !== c || wanted !== index) return;
         store.getState().shownSet(index, null, e.message);
       },
+    );
+  }
+
+  // The neighbours in the sequence (the same frames the scorer's flicker reads), for the flicker layer.
+  function aroundFetch(c: FrameCache, index: number): void {
+    const place = places[index];
+    if (!place || place.prev === null || place.next === null) return;
+    const preds = (r: Result<DecodedFrame>) => (r.ok ? r.value.preds : {});
+    void Promise.all([c.get(place.prev), c.get(place.next)]).then(
+      ([prev, next]) => {
+        if (cache === c && wanted === index) store.getState().shownAroundSet(index, { prev: preds(prev), next: preds(next) });
+      },
+      () => {},
     );
   }
 

@@ -1,4 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
+import type { FrameAround } from '../core/composite/compositeFrame.ts';
 import type { DecodedFrame } from '../core/decodedFrame.ts';
 import type { AppState } from './store.ts';
 
@@ -9,13 +10,24 @@ export interface ShownSlice {
   shownIndex: number;
   /** Why the wanted frame could not be decoded, or null. */
   shownError: string | null;
+  /**
+   * Every run's predictions at the previous and next frame of `shown`'s sequence (for the flicker
+   * layer), once both are decoded; null at a sequence end or until then.
+   */
+  shownAround: FrameAround | null;
   shownSet(index: number, frame: DecodedFrame | null, error: string | null): void;
+  /** Sets the neighbours of the frame at `index`; ignored when another frame is shown by then. */
+  shownAroundSet(index: number, around: FrameAround | null): void;
 }
 
 /** Returns the slice holding the decoded frame on screen. */
-export const shownSlice: StateCreator<AppState, [], [], ShownSlice> = (set) => ({
+export const shownSlice: StateCreator<AppState, [], [], ShownSlice> = (set, get) => ({
   shown: null,
   shownIndex: -1,
   shownError: null,
-  shownSet: (shownIndex, shown, shownError) => set({ shownIndex, shown, shownError }),
+  shownAround: null,
+  shownSet: (shownIndex, shown, shownError) => set({ shownIndex, shown, shownError, shownAround: null }),
+  shownAroundSet: (index, shownAround) => {
+    if (get().shownIndex === index && get().shown) set({ shownAround });
+  },
 });

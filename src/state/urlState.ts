@@ -18,7 +18,7 @@ export interface UrlView {
   curtain: number | null;
 }
 
-const SHORT: Record<LayerKey, string> = { photo: 'ph', truth: 'gt', pred: 'pr', band: 'bd', disagree: 'df', compare: 'cm', void: 'vd', highlight: 'hl' };
+const SHORT: Record<LayerKey, string> = { photo: 'ph', truth: 'gt', pred: 'pr', band: 'bd', disagree: 'df', compare: 'cm', void: 'vd', flicker: 'fl', highlight: 'hl' };
 
 /** Returns the hash fragment (without '#') describing the state's view. */
 export function urlViewEncode(s: AppState): string {

@@ -1,6 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { layerLooksDefault, type LayerLooks } from '../core/composite/layerSettings.ts';
 import type { AppState } from './store.ts';
+import type { FrameClassSort } from './classFrames.ts';
 import type { FlagInput } from './reviewSlice.ts';
 import { QUEUE_VIEW_DEFAULT, type QueueView } from './queueView.ts';
 
@@ -44,6 +45,8 @@ export interface ViewSlice {
   place: ViewPlace | null;
   /** Score the frame list sorts by and the timeline colours by. */
   frameScore: FrameScoreKey;
+  /** When set, the frame list is sorted by this class's per-frame measure instead of `frameScore`. */
+  frameClass: FrameClassSort | null;
   /** Sort direction of the frame list: worst first by default. */
   sortWorstFirst: boolean;
   pixelGrid: boolean;
@@ -76,6 +79,7 @@ export interface ViewSlice {
   bandWidthSet(width: number): void;
   placeSet(place: ViewPlace | null): void;
   frameScoreSet(key: FrameScoreKey): void;
+  frameClassSet(v: FrameClassSort | null): void;
   sortWorstFirstSet(v: boolean): void;
   pixelGridSet(v: boolean): void;
   helpOpenSet(v: boolean): void;
@@ -104,6 +108,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   bandWidth: 3,
   place: null,
   frameScore: 'meanIoU',
+  frameClass: null,
   sortWorstFirst: true,
   pixelGrid: false,
   helpOpen: false,
@@ -131,6 +136,7 @@ export const viewSlice: StateCreator<AppState, [], [], ViewSlice> = (set, get) =
   bandWidthSet: (bandWidth) => set({ bandWidth }),
   placeSet: (place) => set({ place }),
   frameScoreSet: (frameScore) => set({ frameScore }),
+  frameClassSet: (frameClass) => set({ frameClass }),
   sortWorstFirstSet: (sortWorstFirst) => set({ sortWorstFirst }),
   pixelGridSet: (pixelGrid) => set({ pixelGrid }),
   helpOpenSet: (helpOpen) => set({ helpOpen }),

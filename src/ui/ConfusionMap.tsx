@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { ClassInfo } from '../core/classTable.ts';
 import { confusionFramesOf } from '../state/confusionFrames.ts';
-import { count } from './format.ts';
+import { count, countShort } from './format.ts';
 import type { ScopeScores } from '../state/scopeScores.ts';
 import { useCommand } from './commands/useCommand.tsx';
 import { useApp } from './storeContext.tsx';
@@ -14,6 +14,7 @@ export function ConfusionMap({ dataset, frame, classes, run }: { dataset: ScopeS
   const [picked, setPicked] = useState<{ g: number; p: number } | null>(null);
   const confusionFrames = useApp((s) => s.confusionFrames);
   const version = useApp((s) => s.resultsVersion);
+  const sortedBy = useApp((s) => s.frameClass?.classId ?? null);
   const frames = useApp((s) => s.dataset?.pairing.frames);
   const names = useMemo(() => (frames ?? []).map((f) => f.name), [frames]);
   const sc = scope === 'dataset' ? dataset : frame;
@@ -44,18 +45,34 @@ export function ConfusionMap({ dataset, frame, classes, run }: { dataset: ScopeS
       </div>
       <div className="cm-grid" style={{ gridTemplateColumns: `auto repeat(${k + 1}, 1fr)` }} onMouseLeave={() => setHover('')}>
         <span className="cm-corner">truth ↓ / predicted →</span>
-        {cols.map((id) => (
-          <span key={id} className="cm-col" title={name(id)} style={{ borderTopColor: classes.get(id)?.color ?? '#666' }}>
-            {name(id).slice(0, 3)}
-          </span>
-        ))}
+        {cols.map((id, p) => {
+          let col = 0;
+          for (let g = 0; g < k; g++) col += sc.confusion[g * (k + 1) + p];
+          const label = `${name(id)} ${countShort(col)}`;
+          const title = `${name(id)}: ${count(col)} px predicted${id === -1 ? '' : ` — click to sort frames by ${name(id)}'s IoU (again: band IoU, Boundary IoU)`}`;
+          return id === -1 ? (
+            <span key={id} className="cm-col" title={title} style={{ borderTopColor: '#666' }}>
+              <span className="cm-vert">{label}</span>
+            </span>
+          ) : (
+            <button key={id} className={`cm-col${sortedBy === id ? ' cm-sorted' : ''}`} title={title} style={{ borderTopColor: classes.get(id)?.color ?? '#666' }} onClick={() => command('frames.byClass', { classId: id })}>
+              <span className="cm-vert">{label}</span>
+            </button>
+          );
+        })}
         {sc.classIds.map((gId, g) => {
           let row = 0;
           for (let p = 0; p <= k; p++) row += sc.confusion[g * (k + 1) + p];
           return [
-            <span key={`r${gId}`} className="cm-row" title={name(gId)} style={{ borderLeftColor: classes.get(gId)?.color ?? '#666' }}>
-              {name(gId)}
-            </span>,
+            <button
+              key={`r${gId}`}
+              className={`cm-row${sortedBy === gId ? ' cm-sorted' : ''}`}
+              title={`${name(gId)}: ${count(row)} px of ground truth — click to sort frames by its IoU (again: band IoU, Boundary IoU)`}
+              style={{ borderLeftColor: classes.get(gId)?.color ?? '#666' }}
+              onClick={() => command('frames.byClass', { classId: gId })}
+            >
+              {name(gId)} <span className="dim">{countShort(row)}</span>
+            </button>,
             ...cols.map((pId, p) => {
               const v = sc.confusion[g * (k + 1) + p];
               const share = row > 0 ? v / row : 0;

@@ -6,6 +6,7 @@ import type { FrameScoreKey } from '../state/viewSlice.ts';
 import { countShort, pct } from './format.ts';
 import { useCommand } from './commands/useCommand.tsx';
 import { useApp } from './storeContext.tsx';
+import { FrameSortLine } from './FrameSortLine.tsx';
 
 const ROW_H = 24;
 
@@ -30,6 +31,7 @@ export function FrameList() {
   const run = useCommand();
   const sortKey = useApp((s) => s.frameScore);
   const worstFirst = useApp((s) => s.sortWorstFirst);
+  const byClass = useApp((s) => s.frameClass !== null);
   const current = useApp((s) => s.frameIndex);
   const table = useApp(frameTableSel);
   const order = useApp(frameOrderSel);
@@ -62,12 +64,13 @@ export function FrameList() {
 
   return (
     <div className="frame-list">
+      <FrameSortLine />
       <div className="fl-head">
         <span className="fl-name">frame</span>
         {COLUMNS.map((c) => (
-          <button key={c.key} className={c.key === sortKey ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => run('frames.sortBy', c.key)}>
+          <button key={c.key} className={c.key === sortKey && !byClass ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => run('frames.sortBy', c.key)}>
             {c.key === 'bandIoU' ? `${c.label} ${table.bandWidth}` : c.label}
-            {c.key === sortKey ? (worstFirst ? ' ▲' : ' ▼') : ''}
+            {c.key === sortKey && !byClass ? (worstFirst ? ' ▲' : ' ▼') : ''}
           </button>
         ))}
       </div>

@@ -5,7 +5,7 @@ import { useCommand } from './commands/useCommand.tsx';
 import { useApp } from './storeContext.tsx';
 
 type ShownLayer = Exclude<LayerKey, 'highlight'>;
-const SHOWN: ShownLayer[] = ['photo', 'truth', 'pred', 'disagree', 'void', 'band', 'compare'];
+const SHOWN: ShownLayer[] = ['photo', 'truth', 'pred', 'disagree', 'void', 'band', 'compare', 'flicker'];
 const NAMES: Record<LayerKey, string> = {
   photo: 'photo',
   truth: 'ground truth',
@@ -14,6 +14,7 @@ const NAMES: Record<LayerKey, string> = {
   void: 'void',
   band: 'band',
   compare: 'fixed / broke',
+  flicker: 'flicker',
   highlight: 'outline',
 };
 

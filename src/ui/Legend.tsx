@@ -8,6 +8,7 @@ function Swatch({ entry, classColors }: { entry: LegendEntry; classColors: strin
   const [a, b] = entry.marks.map(markCss);
   const style =
     entry.look === 'stripes' ? { background: `repeating-linear-gradient(135deg, ${a} 0 3px, ${b} 3px 6px)` }
+    : entry.look === 'checks' ? { background: `repeating-conic-gradient(${a} 0 25%, ${b} 0 50%) 0 0 / 6px 6px` }
     : entry.look === 'outline' ? { border: `2px solid ${a}`, background: 'transparent' }
     : entry.look === 'shade' ? { background: a, opacity: 0.6 }
     : entry.look === 'classes' ? { background: `conic-gradient(${classColors.map((c, i) => `${c} 0 ${((i + 1) * 100) / classColors.length}%`).join(', ')})` }

@@ -11,6 +11,7 @@ import { commandKeys } from './commands/appCommands.ts';
 import { useCommand } from './commands/useCommand.tsx';
 import { useApp } from './storeContext.tsx';
 import { Thumb } from './Thumb.tsx';
+import { SignalLegend, SignalStrip } from './SignalStrip.tsx';
 
 /** Key hints read from the registry: "Q / Shift+Q step through; L, E, U judge." */
 const STEP_KEYS = `${commandKeys('queue.next')[0]} / ${commandKeys('queue.prev')[0]}`;
@@ -107,6 +108,7 @@ export function QueuePanel() {
       <p className="dim small">
         {shown.length} of {queue.length} shown{shown.length > LIST_MAX ? ` (${windowStart + 1}–${Math.min(shown.length, windowStart + LIST_MAX)} listed)` : ''}. {STEP_KEYS} step through; {JUDGE_KEYS} judge.
       </p>
+      <SignalLegend />
       <ol className="queue-list" ref={list}>
         {shown.slice(windowStart, windowStart + LIST_MAX).map((q) => {
           const key = suspectKey(suspectRefOf(q));
@@ -135,6 +137,7 @@ export function QueuePanel() {
                     <li key={i}>{r}</li>
                   ))}
                 </ul>
+                <SignalStrip signals={q.signals} parts={q.contributions} />
                 <div className="qi-parts" title="What each signal added to the score (score = 0.5 + these)">
                   {q.contributionsText}
                 </div>

@@ -13,6 +13,8 @@ import { BAND_WIDTH_MAX } from '../core/metrics/bandHistogram.ts';
 import { SMALL_OBJECT_AREA } from '../core/objects/objectsBySize.ts';
 import { extrasASel } from '../state/extrasScores.ts';
 import { useCommand } from './commands/useCommand.tsx';
+import type { ClassMeasure } from '../state/classFrames.ts';
+import { FramePlots } from './FramePlots.tsx';
 import { useApp } from './storeContext.tsx';
 
 const TABS = ['scores', 'regions', 'objects', 'confusion', 'band', 'compare', 'settings'] as const;
@@ -35,6 +37,9 @@ function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: 
   const extras = useApp(extrasASel);
   const rows = dataset?.rows ?? frame?.rows ?? [];
   const frameRow = new Map((frame?.rows ?? []).map((r) => [r.id, r]));
+  const command = useCommand();
+  const sortedBy = useApp((s) => s.frameClass);
+  const pickCls = (id: number, m: ClassMeasure) => `pickable${sortedBy?.classId === id && sortedBy.measure === m ? ' picked' : ''}`;
   return (
     <>
       <table className="headline" data-testid="headline">
@@ -86,17 +91,19 @@ function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: 
           {rows.map((r) => {
             const fr = frameRow.get(r.id);
             return (
-              <tr key={r.id} data-class={r.id}>
+              <tr key={r.id} data-class={r.id} className={sortedBy?.classId === r.id ? 'class-sorted' : undefined}>
                 <td>
-                  <span className="swatch" style={{ background: r.color }} /> {r.name}
+                  <button className="class-pick" title={`Sort frames by ${r.name}'s IoU and show its worst region (again or Shift+click: next measure; I / Shift+I)`} onClick={(e) => command('frames.byClass', e.shiftKey ? { classId: r.id } : sortedBy?.classId === r.id ? { classId: r.id } : { classId: r.id, measure: 'iou' })}>
+                    <span className="swatch" style={{ background: r.color }} /> {r.name}
+                  </button>
                 </td>
-                <td>
+                <td className={pickCls(r.id, 'iou')} title={`Sort frames by ${r.name}'s IoU`} onClick={() => command('frames.byClass', { classId: r.id, measure: 'iou' })}>
                   {pct(r.iou)} <span className="dim">{pct(fr?.iou)}</span>
                 </td>
-                <td>
+                <td className={pickCls(r.id, 'band')} title={`Sort frames by ${r.name}'s band IoU at ${w} px`} onClick={() => command('frames.byClass', { classId: r.id, measure: 'band' })}>
                   {pct(r.bandIoU)} <span className="dim">{pct(fr?.bandIoU)}</span>
                 </td>
-                <td>
+                <td className={pickCls(r.id, 'biou')} title={`Sort frames by ${r.name}'s Boundary IoU`} onClick={() => command('frames.byClass', { classId: r.id, measure: 'biou' })}>
                   {pct(r.boundaryIoU)} <span className="dim">{pct(fr?.boundaryIoU)}</span>
                 </td>
                 <td>
@@ -108,7 +115,8 @@ function ScoresTab({ dataset, frame, w }: { dataset: ScopeScores | null; frame: 
           })}
         </tbody>
       </table>
-      <p className="dim small">Each cell: dataset, then this frame in gray. Dataset scores sum pixels over all frames; Boundary F is the mean over frames.</p>
+      <p className="dim small">Each cell: dataset, then this frame in gray. Dataset scores sum pixels over all frames; Boundary F is the mean over frames. Click a class (or its IoU, band or BIoU cell) to sort the frames by it.</p>
+      <FramePlots />
     </>
   );
 }

@@ -2,7 +2,7 @@
 // first for 16-bit maps), the photo as rgba8, band bins as r8. Made once per frame; a prediction run
 // is uploaded the first time it is shown and then kept, so switching runs only rebinds textures.
 import { BufferImageSource, type TextureSource } from 'pixi.js';
-import type { CompositeFrame } from '../core/composite/compositeFrame.ts';
+import { aroundOf, type CompositeFrame, type FrameAround } from '../core/composite/compositeFrame.ts';
 import type { PixelBox } from '../core/composite/layerSettings.ts';
 import type { LabelMap } from '../core/labelMap.ts';
 import { tileBytes } from './tiles.ts';
@@ -42,9 +42,10 @@ export class FrameTextures {
   readonly photo: TextureSource[] | null;
   readonly bins: TextureSource[] | null;
   private readonly runs = new Map<string, TextureSource[]>();
+  private readonly arounds = new Map<string, { prev: TextureSource[]; next: TextureSource[] } | null>();
 
   constructor(
-    private readonly frame: CompositeFrame,
+    private frame: CompositeFrame,
     readonly tiles: PixelBox[],
   ) {
     const w = frame.truth.width;
@@ -65,10 +66,30 @@ export class FrameTextures {
     return t;
   }
 
+  /** Returns the tiles of `run` at the neighbouring frames (for flicker), made on first use; null when the frame has none. */
+  around(run: string): { prev: TextureSource[]; next: TextureSource[] } | null {
+    if (!this.arounds.has(run)) {
+      const maps = aroundOf(this.frame, run);
+      this.arounds.set(run, maps && { prev: labelTextures(maps.prev, this.tiles), next: labelTextures(maps.next, this.tiles) });
+    }
+    return this.arounds.get(run)!;
+  }
+
+  /** Takes new neighbours for the frame; the textures of the old ones are freed. */
+  aroundSet(around: FrameAround | null): void {
+    this.aroundFree();
+    this.frame = { ...this.frame, around };
+  }
+
+  private aroundFree(): void {
+    for (const a of this.arounds.values()) for (const s of a ? [...a.prev, ...a.next] : []) s.destroy();
+    this.arounds.clear();
+  }
+
   /** Frees every texture of the frame on the GPU. */
   destroy(): void {
-    const all = [this.truth, this.photo ?? [], this.bins ?? [], ...this.runs.values()];
-    for (const list of all) for (const s of list) s.destroy();
+    this.aroundFree();
+    for (const list of [this.truth, this.photo ?? [], this.bins ?? [], ...this.runs.values()]) for (const s of list) s.destroy();
     this.runs.clear();
   }
 }

@@ -12,9 +12,9 @@ import {
   WebGLRenderer,
   type TextureSource,
 } from 'pixi.js';
-import type { CompositeFrame } from '../core/composite/compositeFrame.ts';
+import type { CompositeFrame, FrameAround } from '../core/composite/compositeFrame.ts';
 import type { CompositePalette } from '../core/composite/compositePalette.ts';
-import type { CompositeParams } from '../core/composite/compositeParams.ts';
+import { LAYER_INDEX, type CompositeParams } from '../core/composite/compositeParams.ts';
 import { HIGHLIGHT_BOXES_MAX, LAYER_KEYS, type PixelBox } from '../core/composite/layerSettings.ts';
 import { MARK_KEYS } from '../core/composite/compositePalette.ts';
 import { fail, ok, type Result } from '../core/result.ts';
@@ -50,6 +50,8 @@ export class GlStage {
   private draws: TileDraw[] = [];
   private runA: string | null = null;
   private runB: string | null = null;
+  /** The run whose neighbours are bound for the flicker layer (only while the layer is drawn), null for none, undefined before binding. */
+  private flickerRun: string | null | undefined = undefined;
 
   constructor(
     readonly renderer: WebGLRenderer,
@@ -70,6 +72,7 @@ export class GlStage {
     this.textures?.destroy();
     this.textures = null;
     this.runA = this.runB = null;
+    this.flickerRun = undefined;
     if (!frame) return [];
     const tiles = tilesOf(frame.truth.width, frame.truth.height, this.tileSize);
     const tex = new FrameTextures(frame, tiles);
@@ -89,6 +92,8 @@ export class GlStage {
           uTruth: tex.truth[i],
           uPredA: this.blank8,
           uPredB: this.blank8,
+          uPrevA: this.blank8,
+          uNextA: this.blank8,
           uBins: tex.bins ? tex.bins[i] : this.blank8,
           uPalette: this.palette,
         },
@@ -99,6 +104,12 @@ export class GlStage {
       return { mesh, geometry, shader };
     });
     return tiles;
+  }
+
+  /** Takes the neighbours' predictions for the flicker layer; they are uploaded when the layer is drawn. */
+  aroundSet(around: FrameAround | null): void {
+    this.textures?.aroundSet(around);
+    this.flickerRun = undefined;
   }
 
   /** Uploads the id → colour table again only when its bytes are a different array. */
@@ -126,6 +137,16 @@ export class GlStage {
     if (p.runB !== this.runB) {
       this.runB = p.runB;
       this.runBind('uPredB', p.runB);
+    }
+    // The neighbours' maps go to the GPU only once the flicker layer is drawn.
+    const flickerRun = p.layers[LAYER_INDEX.flicker] !== 0 ? p.runA : null;
+    if (flickerRun !== this.flickerRun) {
+      this.flickerRun = flickerRun;
+      const tex = flickerRun !== null && this.textures ? this.textures.around(flickerRun) : null;
+      this.draws.forEach((d, i) => {
+        d.shader.resources.uPrevA = tex ? tex.prev[i] : this.blank8;
+        d.shader.resources.uNextA = tex ? tex.next[i] : this.blank8;
+      });
     }
   }
 

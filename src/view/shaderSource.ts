@@ -42,6 +42,8 @@ uniform sampler2D uPhoto;
 uniform sampler2D uTruth;
 uniform sampler2D uPredA;
 uniform sampler2D uPredB;
+uniform sampler2D uPrevA;               // run A at the previous frame of the sequence (flicker)
+uniform sampler2D uNextA;               // run A at the next frame
 uniform sampler2D uBins;
 uniform sampler2D uPalette;
 uniform ivec4 uTile;                    // tile origin x, y and size w, h in image pixels
@@ -104,6 +106,13 @@ void main() {
     int period = uLayers[L_VOID].z;
     bool light = (p.x + p.y) % period < period / 2;
     c = mix8(c, light ? mark(M_HATCHLIGHT) : mark(M_HATCHDARK), uLayers[L_VOID].y);
+  }
+  if (shows(L_FLICKER, bit)) {
+    int before = idAt(uPrevA, lp);
+    if (before == idAt(uNextA, lp) && pa != before) {
+      bool filled = paletteAt(t).a == 255 || ((p.x ^ p.y) & 2) == 0;
+      c = mix8(c, filled ? mark(M_FLICKER) : mark(M_FLICKERLIGHT), uLayers[L_FLICKER].y);
+    }
   }
   if (uSolo.x == 1 && t != uSolo.y && pa != uSolo.y) c = mix8(c, mark(M_DIM), uSolo.z);
   if (shows(L_HIGHLIGHT, bit)) {

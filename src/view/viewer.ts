@@ -5,6 +5,7 @@
  *   v.mode                      'webgl' (WebGL2 through pixi.js) or 'none' (no WebGL2: see below); v.info says why
  *   v.paletteSet(palette)       colours: compositePaletteFromTable(table, marks?) from src/core/composite
  *   v.frameSet(frame)           CompositeFrame | null → Result<{ width, height, tiles }>; refuses > 8192 px
+ *   v.aroundSet(around)         the run predictions at the frame's sequence neighbours (flicker layer), or null
  *   v.layersSet(layers)         LayerSettings: switches, opacities, runs, solo, curtain, band width, boxes
  *   v.viewFit() / v.viewOneToOne() / v.zoomBy(factor, cssX?, cssY?) / v.viewGet() / v.viewSet(view)
  *   v.gridSet(on)               pixel grid (shown from GRID_MIN_SCALE device px per image px)
@@ -27,7 +28,7 @@
  * (the same bytes the shader makes).
  */
 import { classTableGenerated } from '../core/classTable.ts';
-import { compositeFrameCheck, type CompositeFrame } from '../core/composite/compositeFrame.ts';
+import { compositeFrameCheck, type CompositeFrame, type FrameAround } from '../core/composite/compositeFrame.ts';
 import { compositePaletteFromTable, MARK_COLORS, type CompositePalette } from '../core/composite/compositePalette.ts';
 import { compositeParams } from '../core/composite/compositeParams.ts';
 import { layerSettingsDefault, type LayerSettings, type PixelBox } from '../core/composite/layerSettings.ts';
@@ -62,6 +63,7 @@ export interface Viewer {
   frameSet(frame: CompositeFrame | null): Result<{ width: number; height: number; tiles: number }>;
   paletteSet(palette: CompositePalette): void;
   layersSet(layers: LayerSettings): void;
+  aroundSet(around: FrameAround | null): void;
   compositeSet(rgba: Uint8Array | null): Result<void>;
   viewFit(): void;
   viewOneToOne(): void;
@@ -172,6 +174,13 @@ class ViewerImpl implements Viewer {
 
   layersSet(layers: LayerSettings): void {
     this.layers = layers;
+    this.invalidate();
+  }
+
+  aroundSet(around: FrameAround | null): void {
+    if (!this.frame) return;
+    this.frame = { ...this.frame, around };
+    this.gl?.aroundSet(around);
     this.invalidate();
   }
 

@@ -9,7 +9,7 @@ import type { Viewer } from './viewer.ts';
 /** The part of a viewer the binding drives (a test can hand in a stand-in). */
 export type BindableViewer = Pick<
   Viewer,
-  'mode' | 'frameSet' | 'paletteSet' | 'layersSet' | 'compositeSet' | 'gridSet' | 'viewFit' | 'viewGet' | 'viewSet' | 'onViewChange'
+  'mode' | 'frameSet' | 'aroundSet' | 'paletteSet' | 'layersSet' | 'compositeSet' | 'gridSet' | 'viewFit' | 'viewGet' | 'viewSet' | 'onViewChange'
 >;
 
 export interface ViewerBindOptions {
@@ -77,7 +77,7 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
     if (!s.shown || !table) return void viewer.compositeSet(null);
     const ticket = ++composing;
     // Copies (not transfers): the decoded frame stays with the cache for the next redraw.
-    void options.compose({ frame: s.shown, layers: layerSettingsSel(s), palette: compositePaletteFromTable(table) }).then(
+    void options.compose({ frame: s.shownAround ? { ...s.shown, around: s.shownAround } : s.shown, layers: layerSettingsSel(s), palette: compositePaletteFromTable(table) }).then(
       (rgba) => ticket === composing && viewer.compositeSet(rgba),
       () => {},
     );
@@ -93,6 +93,7 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
     // The viewer refuses frames it cannot show (over 8192 px on a side); say so instead of a blank.
     const r = viewer.frameSet(store.getState().shown);
     options.onRefused(r.ok ? null : r.error);
+    if (r.ok && store.getState().shownAround) viewer.aroundSet(store.getState().shownAround);
     if (r.ok && store.getState().shown && !placeKept) {
       if (store.getState().place === null) return void (placeKept = true);
       placeKept = true;
@@ -125,11 +126,12 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
   const stops = [
     store.subscribe((s) => [s.dataset, s.settings.ignore] as const, paletteApply, { equalityFn: shallow }),
     store.subscribe((s) => s.shown, frameApply),
+    store.subscribe((s) => s.shownAround, (a) => viewer.aroundSet(a)),
     store.subscribe(layerSettingsSel, (l) => viewer.layersSet(l), { equalityFn: layersLookAlike }),
     store.subscribe((s) => s.pixelGrid, (on) => viewer.gridSet(on)),
     store.subscribe((s) => s.place, placeApply),
     store.subscribe((s) => [s.focusSeq, s.shown] as const, focusApply, { equalityFn: shallow }),
-    store.subscribe((s) => [s.shown, layerSettingsSel(s), scoringTableSel(s)] as const, recompose, { equalityFn: shallow }),
+    store.subscribe((s) => [s.shown, s.shownAround, layerSettingsSel(s), scoringTableSel(s)] as const, recompose, { equalityFn: shallow }),
   ];
   let timer: ReturnType<typeof setTimeout> | undefined;
   stops.push(

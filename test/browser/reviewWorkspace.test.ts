@@ -87,6 +87,55 @@ describe('review workspace layout (real Chromium)', () => {
     await page.close();
   });
 
+  it('shows each Doubts item\'s signals as a strip that fits at 180 px and wide, bar values equal to the item\'s evidence', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 860 } });
+    await openQueue(page);
+    const queue = await page.evaluate(() => (window as any).hairline.queue() as { frame: string; signals: Record<string, number | null>; contributions: Record<string, number> }[]);
+    for (const width of [180, 600]) {
+      await leftPaneDrag(page, width);
+      expect(Math.abs((await page.locator('aside.left').boundingBox())!.width - width)).toBeLessThanOrEqual(2);
+      const strips = await page.$$eval('.queue-item', (els) => els.slice(0, 8).map((el) => {
+        const item = el.getBoundingClientRect();
+        const list = el.closest('aside')!.getBoundingClientRect();
+        return {
+          frame: (el as HTMLElement).dataset.frame,
+          cells: [...el.querySelectorAll('.qs-cell')].map((c) => {
+            const r = c.getBoundingClientRect();
+            const bar = c.querySelector('.qs-bar')?.getBoundingClientRect();
+            const track = c.querySelector('.qs-track')!.getBoundingClientRect();
+            return {
+              signal: (c as HTMLElement).dataset.signal!, value: (c as HTMLElement).dataset.value!, title: (c as HTMLElement).title,
+              inside: r.width >= 8 && r.left >= Math.max(item.left, list.left) - 0.5 && r.right <= Math.min(item.right, list.right) + 0.5,
+              barShare: bar ? bar.height / (track.height - 2) : null,
+            };
+          }),
+        };
+      }));
+      expect(strips.length).toBeGreaterThan(3);
+      strips.forEach((st, i) => {
+        const q = queue[i];
+        expect(st.frame).toBe(q.frame);
+        // The eight signals in their order, each within the item and the pane.
+        expect(st.cells.map((c) => c.signal)).toEqual(['agreement', 'image', 'temporal', 'geometry', 'confidence', 'appearance', 'habit', 'steady']);
+        for (const c of st.cells) {
+          expect(c.inside, `${q.frame} ${c.signal} at ${width}px`).toBe(true);
+          const v = q.signals[c.signal];
+          expect(c.value === '' ? null : Number(c.value), c.signal).toBe(v);
+          if (v === null) expect(c.title).toMatch(/not measured/);
+          else {
+            expect(c.title).toContain(v.toFixed(2));
+            expect(Math.abs(c.barShare! - v)).toBeLessThan(0.08);
+          }
+        }
+      });
+    }
+    // The legend names every letter's signal.
+    await page.locator('[data-testid=signal-legend] summary').click();
+    const legend = await page.locator('[data-testid=signal-legend] .qs-legend-item').allInnerTexts();
+    expect(legend.map((t) => t.slice(0, 1))).toEqual(['A', 'E', 'F', 'G', 'C', 'P', 'R', 'S']);
+    await page.close();
+  });
+
   it('keeps the item Q selects in view, counts verdicts, filters by verdict and sorts by score', async () => {
     const page = await browser.newPage({ viewport: { width: 1300, height: 700 } });
     await openQueue(page);

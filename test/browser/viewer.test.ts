@@ -123,9 +123,13 @@ describe('viewer (WebGL2 in headless Chromium)', () => {
     // A run shown for the first time is uploaded once (one texture per tile: 3×2 tiles); then kept.
     const swapped = { ...s, runA: 'run2', runB: 'run1' };
     const afterSwap = await call<number>('drawWith', swapped);
-    expect(afterSwap).toBe(afterFirst); // both runs were already on the GPU as A and B
+    // Both runs were already on the GPU as A and B; only the flicker layer's neighbour maps of the
+    // new run A are uploaded, once (previous and next frame: 2 textures × 6 tiles).
+    expect(afterSwap).toBe(afterFirst + 2 * 6);
     const single = await call<number>('drawWith', { ...s, runA: 'run1', runB: null });
-    expect(single).toBe(afterFirst);
+    expect(single).toBe(afterSwap);
+    const flickerOff = await call<number>('drawWith', { ...swapped, flicker: { ...s.flicker, on: false } });
+    expect(flickerOff).toBe(afterSwap);
   });
 
   it('refuses a frame over 8192 pixels on a side with a clear message', async () => {

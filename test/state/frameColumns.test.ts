@@ -11,6 +11,7 @@ import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
 import { scoringTableBuild } from '../../src/core/scoringTable.ts';
 import { frameColumnsAdd, frameColumnsCreate } from '../../src/state/frameColumns.ts';
+import { classFrameColumn, classFrameColumnOf } from '../../src/state/classFrames.ts';
 import { DETAIL_KEEP } from '../../src/state/scoresSlice.ts';
 import { frameOrderSel, frameTableSel } from '../../src/state/selectors.ts';
 import { appStoreCreate } from '../../src/state/store.ts';
@@ -73,6 +74,17 @@ describe('frame columns: the page scoring keeps typed columns, not objects per f
             expect(table.value(i, key), `${run} frame ${i} ${key} at ${w}`).toBe(before[key]);
           }
         });
+      }
+    }
+    // Per-class IoU and Boundary IoU (the drill-down by class) equal those of the frames' digests.
+    const st = store.getState();
+    for (const run of RUNS) {
+      for (const measure of ['iou', 'biou'] as const) {
+        for (const id of [0, 2, 5]) {
+          const fromColumns = classFrameColumnOf(st.columns, [], 5, run, id, measure, 3);
+          const fromDigests = classFrameColumn(st.results, 5, run, id, measure, 3);
+          expect([...fromColumns], `${run} class ${id} ${measure}`).toEqual([...fromDigests]);
+        }
       }
     }
     // Flicker is defined in the middle of the sequence (both neighbours present) and not at its ends.

@@ -39,6 +39,7 @@ export const PACKAGE_LOWEST_LAYER: Record<string, Layer> = {
   'pixi.js': 'src/view',
   'react': 'src/ui',
   'react-dom': 'src/ui',
+  'uplot': 'src/ui',
   'node': 'src/cli',
   'vite': 'src/cli',
   'tsx': 'src/cli',

@@ -13,6 +13,8 @@ export const MARK_KEYS = [
   'dim', // what solo mode dims toward
   'highlight', // box outlines
   'voidFill', // prediction layer where the run predicted the ignore id
+  'flicker', // flicker: run A flips back at this frame (truth a class; the dark cells of the checker over void)
+  'flickerLight', // flicker over void truth: the light cells of the checker
 ] as const;
 export type MarkKey = (typeof MARK_KEYS)[number];
 /** Offset of each mark's r, g, b in `CompositeParams.marks` (4 ints per mark). */
@@ -24,7 +26,7 @@ export type MarkColors = Record<MarkKey, number>;
  * Our own choice of overlay colours, picked by search and held by test/core/composite/markColors.test.ts:
  * the error kinds (dark red vs khaki), fixed vs broke (blue vs vermilion), the band and the outline
  * stay apart under normal vision and simulated protanopia, deuteranopia and tritanopia, and apart
- * from the demo's class colours. The void hatch is a light/dark stripe pair, so it is told by its
+ * from the demo's class colours; so does the flicker's dark aubergine. The void hatch is a light/dark stripe pair, so it is told by its
  * pattern and stays visible over bright and dark photos alike.
  */
 export const MARK_COLORS: Readonly<MarkColors> = {
@@ -39,6 +41,8 @@ export const MARK_COLORS: Readonly<MarkColors> = {
   dim: 0x07080a,
   highlight: 0xffffff,
   voidFill: 0x3b3844,
+  flicker: 0x440033,
+  flickerLight: 0xf0a8dc,
 };
 
 /** Id → colour for every 16-bit id, plus the marks: what both compositing paths colour with. */

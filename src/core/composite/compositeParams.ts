@@ -1,5 +1,5 @@
 import { MARK_KEYS, type CompositePalette } from './compositePalette.ts';
-import type { CompositeFrame } from './compositeFrame.ts';
+import { aroundOf, type CompositeFrame } from './compositeFrame.ts';
 import { BAND_WIDTH_MAX } from '../metrics/bandHistogram.ts';
 import {
   DISAGREE_MODES,
@@ -73,6 +73,7 @@ export function compositeParams(frame: CompositeFrame, layers: LayerSettings, pa
     disagree: runA !== null,
     compare: runA !== null && runB !== null,
     void: true,
+    flicker: runA !== null && aroundOf(frame, runA) !== null,
     highlight: boxCount > 0,
   };
   const out = new Int32Array(LAYER_KEYS.length * 4);

@@ -1,6 +1,6 @@
 import { fail, ok, type Result } from '../result.ts';
 import { MARK_INDEX, type CompositePalette } from './compositePalette.ts';
-import { compositeFrameCheck, type CompositeFrame } from './compositeFrame.ts';
+import { aroundOf, compositeFrameCheck, type CompositeFrame } from './compositeFrame.ts';
 import { compositeParams, LAYER_INDEX } from './compositeParams.ts';
 import type { LayerSettings, PixelBox } from './layerSettings.ts';
 
@@ -42,13 +42,14 @@ export function frameComposite(
   const cmpM = L[LAYER_INDEX.compare], cmpA = L[LAYER_INDEX.compare + 1];
   const voidM = L[LAYER_INDEX.void], voidA = L[LAYER_INDEX.void + 1], period = L[LAYER_INDEX.void + 2];
   const half = period >> 1;
+  const flkM = L[LAYER_INDEX.flicker], flkA = L[LAYER_INDEX.flicker + 1];
   const hlM = L[LAYER_INDEX.highlight], hlA = L[LAYER_INDEX.highlight + 1];
   const soloOn = P.solo[0] === 1, soloC = P.solo[1], soloA = P.solo[2];
   const M = P.marks;
   const bgR = M[MARK_INDEX.background], bgG = M[MARK_INDEX.background + 1], bgB = M[MARK_INDEX.background + 2];
   const oWrong = MARK_INDEX.wrong, oInvalid = MARK_INDEX.invalid, oFixed = MARK_INDEX.fixed, oBroke = MARK_INDEX.broke;
   const oBand = MARK_INDEX.band, oLight = MARK_INDEX.hatchLight, oDark = MARK_INDEX.hatchDark;
-  const oDim = MARK_INDEX.dim, oHl = MARK_INDEX.highlight;
+  const oDim = MARK_INDEX.dim, oHl = MARK_INDEX.highlight, oFlk = MARK_INDEX.flicker, oFlkLight = MARK_INDEX.flickerLight;
   const ignore = P.ignore, curtainX = P.curtainX;
   const pal = palette.rgba;
   const photo = frame.photo ?? new Uint8Array(4);
@@ -57,6 +58,8 @@ export function frameComposite(
   const pa = P.runA !== null ? frame.preds[P.runA].ids : truth;
   const pb = P.runB !== null ? frame.preds[P.runB].ids : truth;
   const bins = frame.bandBins ?? new Uint8Array(0);
+  const around = flkM !== 0 ? aroundOf(frame, P.runA) : null;
+  const before = around ? around.prev.ids : truth, after = around ? around.next.ids : truth;
   const ring = hlM !== 0 ? ringMask(P.boxes, L[LAYER_INDEX.highlight + 3], L[LAYER_INDEX.highlight + 2], rx, ry, rw, rh) : null;
 
   let w = 0;
@@ -106,6 +109,11 @@ export function frameComposite(
       if (voidM & bit && !valid) {
         const o = (x + y) % period < half ? oLight : oDark;
         r = mix8(r, M[o], voidA); g = mix8(g, M[o + 1], voidA); b = mix8(b, M[o + 2], voidA);
+      }
+      if (flkM & bit && before[i] === after[i] && p !== before[i]) {
+        // Flips back: a fill where the truth is a class, a checker of 2-pixel cells where it is not.
+        const o = pal[t * 4 + 3] === 255 || ((x ^ y) & 2) === 0 ? oFlk : oFlkLight;
+        r = mix8(r, M[o], flkA); g = mix8(g, M[o + 1], flkA); b = mix8(b, M[o + 2], flkA);
       }
       if (soloOn && t !== soloC && p !== soloC) {
         r = mix8(r, M[oDim], soloA); g = mix8(g, M[oDim + 1], soloA); b = mix8(b, M[oDim + 2], soloA);

@@ -2,7 +2,7 @@
  * What the frame viewer draws, as a plain object: one entry per layer with its own switch and opacity
  * (integer 0..255, so blending is exact integer math on both the CPU and the GPU path), plus the
  * modes that act across layers (solo class, curtain). Layers compose bottom to top in LAYER_KEYS
- * order; the solo dimming falls between `void` and `highlight`.
+ * order; the solo dimming falls between `flicker` and `highlight`.
  *
  * `LayerLooks` is the part a user sets on the layers themselves; `LayerSettings` adds what the review
  * supplies (the runs, the band width, the boxes to outline) and is what the compositor reads. The app
@@ -10,7 +10,7 @@
  */
 
 /** Layer names in compositing order, bottom first. */
-export const LAYER_KEYS = ['photo', 'truth', 'pred', 'band', 'disagree', 'compare', 'void', 'highlight'] as const;
+export const LAYER_KEYS = ['photo', 'truth', 'pred', 'band', 'disagree', 'compare', 'void', 'flicker', 'highlight'] as const;
 export type LayerKey = (typeof LAYER_KEYS)[number];
 
 /** Which side of the curtain a layer shows on while the curtain is on (ignored while it is off). */
@@ -55,6 +55,12 @@ export interface LayerLooks {
   compare: LayerBase;
   /** Void pixels (truth = ignore) as diagonal stripes, `period` pixels per stripe pair (even, 2..64). */
   void: LayerBase & { period: number };
+  /**
+   * Pixels where run A flips back at this frame: its predictions at the previous and the next frame
+   * of the sequence agree and this frame's differs (a fill where the truth is a class, a checker
+   * where it is void or no class). Drawn nothing at a sequence end.
+   */
+  flicker: LayerBase;
   /** Outlines drawn just outside each box, `thickness` pixels wide (1..16). */
   highlight: LayerBase & { thickness: number };
   /** Dims (by `dim` 0..255 toward the dim colour) every pixel where neither truth nor run A is `classId`. */
@@ -93,6 +99,7 @@ export function layerLooksDefault(): LayerLooks {
     disagree: { on: true, opacity: 220, side: 'both', mode: 'kind' },
     compare: { on: false, opacity: 230, side: 'both' },
     void: { on: true, opacity: 170, side: 'both', period: 8 },
+    flicker: { on: false, opacity: 230, side: 'both' },
     highlight: { on: true, opacity: 255, side: 'both', thickness: 2 },
     solo: { on: false, classId: 0, dim: 190 },
     curtain: { on: false, x: 0 },

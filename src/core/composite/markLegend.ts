@@ -1,8 +1,8 @@
 import type { LayerKey } from './layerSettings.ts';
 import type { MarkKey } from './compositePalette.ts';
 
-/** How a legend entry is drawn: a filled swatch, stripes of two marks, an outline, or class colours. */
-export type LegendLook = 'fill' | 'shade' | 'stripes' | 'outline' | 'classes';
+/** How a legend entry is drawn: a filled swatch, stripes or a checker of two marks, an outline, or class colours. */
+export type LegendLook = 'fill' | 'shade' | 'stripes' | 'checks' | 'outline' | 'classes';
 
 /** One line of the legend: the marks it shows (their colours from MARK_COLORS), how, and what they mean. */
 export interface LegendEntry {
@@ -37,6 +37,10 @@ export const MARK_LEGEND: Readonly<Record<LayerKey, readonly LegendEntry[]>> = {
     { marks: ['broke'], look: 'fill', words: 'broke: B wrong where A was right' },
   ],
   void: [{ marks: ['hatchLight', 'hatchDark'], look: 'stripes', words: 'void in the ground truth' }],
+  flicker: [
+    { marks: ['flicker'], look: 'fill', words: 'flips back: run A before and after agree, this frame differs' },
+    { marks: ['flicker', 'flickerLight'], look: 'checks', words: 'flips back where the ground truth is void' },
+  ],
   highlight: [{ marks: ['highlight'], look: 'outline', words: 'selected region' }],
 };
 

@@ -4,6 +4,7 @@ import { boundaryFWorkCreate, type BoundaryFWork } from './boundaryF.ts';
 import { codeTableBuild, CODE_TABLE_SIZE } from './codes.ts';
 import { distanceWorkCreate, type DistanceWork } from './distanceCapped.ts';
 import { edgeScanCreate, type EdgeScan } from './edgeRows.ts';
+import { labelReadCacheCreate, type LabelReadCache } from '../labelReadCache.ts';
 
 /**
  * Buffers frameScore reuses from frame to frame (one per thread): per-pixel code, column-distance
@@ -32,6 +33,8 @@ export interface ScoreScratch {
    */
   distanceIds: unknown;
   distanceKey: string;
+  /** The last label maps this thread decoded (a frame's neighbours' predictions are read again by the next frames). */
+  reads: LabelReadCache;
 }
 
 /** Returns an empty scratch (buffers are sized by the first frame). */
@@ -52,6 +55,7 @@ export function scoreScratchCreate(): ScoreScratch {
     binKey: '',
     distanceIds: null,
     distanceKey: '',
+    reads: labelReadCacheCreate(0),
   };
 }
 

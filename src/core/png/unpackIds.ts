@@ -10,7 +10,8 @@ export function idsFromPackedRows(
   bytesPerRow: number,
   bitDepth: number,
 ): Uint8Array | Uint16Array {
-  if (bitDepth === 8) return rows.slice(0, width * height); // bytesPerRow === width: rows are the ids
+  // bytesPerRow === width: rows are the ids (kept when they are exactly the image, as pngUnfilter returns them)
+  if (bitDepth === 8) return rows.length === width * height ? rows : rows.slice(0, width * height);
   if (bitDepth === 16) {
     const ids = new Uint16Array(width * height);
     for (let i = 0, o = 0; i < ids.length; i++, o += 2) ids[i] = (rows[o] << 8) | rows[o + 1];

@@ -90,16 +90,24 @@ export function runsLabel(
   t.height = height;
   if (t.rowStart.length < height + 1) t.rowStart = new Int32Array(height + 1);
   const rowStart = t.rowStart;
+  // Pairs mode keeps no run where a and b agree: such pixels are skipped two at a time (32-bit words).
+  const skip = keep === RUN_KEEP.pairs && b !== null;
+  const A2 = skip ? wordsOf(a) : null, B2 = skip && b !== null ? wordsOf(b) : null;
+  const A = b === null ? wordsOf(a) : null, M = match !== null ? wordsOf(match) : null;
   for (let y = 0; y < height; y++) {
     rowStart[y] = t.count;
     const o = y * width;
     let x = 0;
     while (x < width) {
+      if (skip) {
+        x = agreeingSkip(a, b!, A2, B2, o, x, width);
+        if (x >= width) break;
+      }
       const ka = a[o + x];
       const kb = b === null ? 0 : b[o + x];
       let e = x + 1;
       if (b === null) {
-        while (e < width && a[o + e] === ka) e++;
+        e = sameRunEnd(a, A, o, e, width, ka);
       } else {
         while (e < width && a[o + e] === ka && b[o + e] === kb) e++;
       }
@@ -113,7 +121,7 @@ export function runsLabel(
         t.a[r] = ka;
         t.b[r] = kb;
         let same = 0;
-        if (match !== null && ka < k) for (let i = o + x, end = o + e; i < end; i++) if (match[i] === ka) same++;
+        if (match !== null && ka < k) same = matchCount(match, M, o + x, o + e, ka);
         t.same[r] = same;
       }
       x = e;
@@ -121,6 +129,62 @@ export function runsLabel(
   }
   rowStart[height] = t.count;
   runsJoin(t);
+}
+
+/** Returns a 32-bit view (two codes a word) of `c` when it starts on a 4-byte boundary, else null. */
+function wordsOf(c: Uint16Array): Uint32Array | null {
+  return c.byteOffset % 4 === 0 ? new Uint32Array(c.buffer, c.byteOffset, c.length >> 1) : null;
+}
+
+/**
+ * Returns the first column from x on (of the row starting at o) where a and b differ, or `width`.
+ * Hot loop: two pixels per compare where the words line up (a run of agreement is never a region).
+ */
+function agreeingSkip(a: Uint16Array, b: Uint16Array, A2: Uint32Array | null, B2: Uint32Array | null, o: number, x: number, width: number): number {
+  if (A2 !== null && B2 !== null) {
+    for (let i = o + x; x < width; i = o + x) {
+      if ((i & 1) === 0 && x + 1 < width && A2[i >> 1] === B2[i >> 1]) x += 2;
+      else if (a[i] === b[i]) x++;
+      else break;
+    }
+    return x;
+  }
+  while (x < width && a[o + x] === b[o + x]) x++;
+  return x;
+}
+
+/**
+ * Returns the end (exclusive) of the run of code `ka` from column e on, in the row starting at o.
+ * Hot loop: two pixels per compare where the words line up.
+ */
+function sameRunEnd(a: Uint16Array, A: Uint32Array | null, o: number, e: number, width: number, ka: number): number {
+  if (A === null) {
+    while (e < width && a[o + e] === ka) e++;
+    return e;
+  }
+  const pair = (ka | (ka << 16)) >>> 0;
+  for (let i = o + e; e < width; i = o + e) {
+    if ((i & 1) === 0 && e + 1 < width && A[i >> 1] === pair) e += 2;
+    else if (a[i] === ka) e++;
+    else break;
+  }
+  return e;
+}
+
+/** Returns how many of match[from..to) equal `ka`, two at a time where the words line up. */
+function matchCount(match: Uint16Array, M: Uint32Array | null, from: number, to: number, ka: number): number {
+  let same = 0, i = from;
+  if (M !== null) {
+    const pair = (ka | (ka << 16)) >>> 0;
+    if (i & 1 && i < to) same += match[i++] === ka ? 1 : 0;
+    for (; i + 1 < to; i += 2) {
+      const w = M[i >> 1];
+      if (w === pair) same += 2;
+      else same += (match[i] === ka ? 1 : 0) + (match[i + 1] === ka ? 1 : 0);
+    }
+  }
+  for (; i < to; i++) if (match[i] === ka) same++;
+  return same;
 }
 
 /** Joins runs of neighbouring rows with equal keys that touch (8-connected), then numbers components. */

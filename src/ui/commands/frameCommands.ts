@@ -1,6 +1,7 @@
 import type { FrameScoreKey } from '../../state/viewSlice.ts';
 import { extrasASel } from '../../state/extrasScores.ts';
-import { frameOrderSel } from '../../state/selectors.ts';
+import { classColumnSel, classInfoSel, frameOrderSel, shownRunSel } from '../../state/selectors.ts';
+import { CLASS_MEASURES, classWorstRegion, type ClassMeasure } from '../../state/classFrames.ts';
 import type { AppState } from '../../state/store.ts';
 import { cmd, commandTable, type CommandContext } from './registry.ts';
 
@@ -25,6 +26,26 @@ function missedStep(ctx: CommandContext, step: number): void {
   const at = s.focusBox ? boxes.findIndex((b) => b.every((v, k) => v === s.focusBox![k])) : -1;
   const next = at < 0 ? (step > 0 ? 0 : boxes.length - 1) : (at + step + boxes.length) % boxes.length;
   s.focusOn(s.frameIndex, boxes[next]);
+}
+
+/** Applies a class sort (see frames.byClass), then shows the worst frame and its worst region of the class. */
+function classSortApply(ctx: CommandContext, pick: { classId: number; measure?: ClassMeasure } | null): void {
+  const s = ctx.store.getState();
+  if (!pick) {
+    s.frameClassSet(null);
+    return;
+  }
+  const same = s.frameClass?.classId === pick.classId;
+  const measure = pick.measure ?? (same ? CLASS_MEASURES[(CLASS_MEASURES.indexOf(s.frameClass!.measure) + 1) % CLASS_MEASURES.length] : 'iou');
+  s.frameClassSet({ classId: pick.classId, measure });
+  s.sortWorstFirstSet(true);
+  const after = ctx.store.getState();
+  const column = classColumnSel(after);
+  const worst = frameOrderSel(after)[0];
+  if (!column || worst === undefined || Number.isNaN(column[worst])) return;
+  const box = classWorstRegion(after.results[worst], shownRunSel(after), pick.classId);
+  if (box) after.focusOn(worst, box);
+  else after.frameIndexSet(worst);
 }
 
 const hasMissed = ({ store }: CommandContext) => (extrasASel(store.getState()).frame?.missed.length ?? 0) > 0;
@@ -63,11 +84,39 @@ export const FRAME_COMMANDS = commandTable({
     label: 'Sort the frame list', group: 'Frames', keys: [], enabled: () => true,
     run: ({ store }, key) => {
       const s = store.getState();
-      if (s.frameScore === key) s.sortWorstFirstSet(!s.sortWorstFirst);
+      if (s.frameScore === key && !s.frameClass) s.sortWorstFirstSet(!s.sortWorstFirst);
       else {
+        s.frameClassSet(null);
         s.frameScoreSet(key);
         s.sortWorstFirstSet(true);
       }
+    },
+  }),
+  /**
+   * Sorts the frame list by one class's per-frame measure, worst first, goes to the worst frame and
+   * frames run A's worst error region of that class there; the same class without a measure steps to
+   * its next measure (IoU, band IoU, Boundary IoU); null goes back to the list's score.
+   */
+  'frames.byClass': cmd<{ classId: number; measure?: ClassMeasure } | null>({
+    label: 'Sort frames by a class (IoU, band IoU, Boundary IoU) and show its worst region', group: 'Frames', keys: [], enabled: hasFrames,
+    run: (ctx, pick) => classSortApply(ctx, pick),
+  }),
+  'frames.classNext': cmd({
+    label: 'Sort frames by the next class (after the last: back to the list\'s score)', group: 'Frames', keys: ['I'], enabled: hasFrames,
+    run: (ctx) => {
+      const s = ctx.store.getState();
+      const ids = [...classInfoSel(s).keys()];
+      const at = s.frameClass ? ids.indexOf(s.frameClass.classId) : -1;
+      classSortApply(ctx, at + 1 < ids.length ? { classId: ids[at + 1], measure: s.frameClass?.measure ?? 'iou' } : null);
+    },
+  }),
+  'frames.classMeasure': cmd({
+    label: 'Class sort: next measure (IoU, band IoU, Boundary IoU)', group: 'Frames', keys: ['Shift+I'], enabled: hasFrames,
+    run: (ctx) => {
+      const s = ctx.store.getState();
+      const first = [...classInfoSel(s).keys()][0];
+      if (s.frameClass) classSortApply(ctx, { classId: s.frameClass.classId });
+      else if (first !== undefined) classSortApply(ctx, { classId: first, measure: 'iou' });
     },
   }),
   'play.toggle': cmd({

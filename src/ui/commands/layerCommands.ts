@@ -69,6 +69,7 @@ export const LAYER_COMMANDS = commandTable({
   'layer.void': layerToggle('void', 'Void', ['5']),
   'layer.band': layerToggle('band', 'Boundary band', ['6']),
   'layer.compare': layerToggle('compare', 'Fixed / broke (A → B)', ['7']),
+  'layer.flicker': layerToggle('flicker', 'Flicker: run A flips back at this frame', ['8']),
   'layer.set': cmd<LayerChange>({ label: 'Switch a layer or set its opacity', group: 'Layers', keys: [], enabled: () => true, run: layerSet }),
   'layer.colourBy': cmd<DisagreeMode>({
     label: 'Colour disagreement by kind, true or predicted class', group: 'Layers', keys: [], enabled: () => true,

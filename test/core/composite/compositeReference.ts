@@ -64,6 +64,14 @@ export function compositeReference(frame: CompositeFrame, layers: LayerSettings,
         const light = (x + y) % layers.void.period < layers.void.period / 2;
         over(rgbOf(light ? marks.hatchLight : marks.hatchDark), layers.void.opacity);
       }
+      // Flicker: run A's predictions before and after this frame agree and this frame's differs;
+      // a fill over truth that is a class, a checker of 2-pixel cells (light where ⌊x/2⌋+⌊y/2⌋ is odd) elsewhere.
+      const before = A && layers.runA !== null ? frame.around?.prev[layers.runA] : undefined;
+      const after = A && layers.runA !== null ? frame.around?.next[layers.runA] : undefined;
+      if (shows(layers.flicker) && A && before && after && before.ids[i] === after.ids[i] && A.ids[i] !== before.ids[i]) {
+        const light = !isClass(g) && (Math.floor(x / 2) + Math.floor(y / 2)) % 2 === 1;
+        over(rgbOf(light ? marks.flickerLight : marks.flicker), layers.flicker.opacity);
+      }
       if (layers.solo.on && g !== layers.solo.classId && p !== layers.solo.classId) over(rgbOf(marks.dim), layers.solo.dim);
       const inRing = boxes.some((b) => {
         const inOuter = x >= b.x - t && x < b.x + b.width + t && y >= b.y - t && y < b.y + b.height + t;

@@ -129,6 +129,49 @@ describe('comparison layer', () => {
   });
 });
 
+describe('flicker layer', () => {
+  // Hand-worked, from the definition in src/docs/metrics.md "Flicker": a pixel flips back at t when
+  // pred[t-1] == pred[t+1] and pred[t] != pred[t-1]. Pixels, left to right:
+  //   0 steady (1,1,1)          1 flips back (1,2,1)       2 changes for good (1,2,2)
+  //   3 changes and back to another (1,2,3)              4 flips back where truth is void (2,3,2)
+  //   5 flips back where the truth is id 9, no class (1,3,1)
+  const frame: CompositeFrame = {
+    ...frameOf(6, [1, 1, 1, 1, 255, 9], { a: [1, 2, 2, 2, 3, 3] }),
+    around: {
+      prev: { a: { width: 6, height: 1, ids: Uint8Array.of(1, 1, 1, 1, 2, 1) } },
+      next: { a: { width: 6, height: 1, ids: Uint8Array.of(1, 1, 2, 3, 2, 1) } },
+    },
+  };
+  it('marks the pixels that flip back, filled over a class and as a checker elsewhere', () => {
+    const s = allOff();
+    s.flicker.on = true;
+    // Row 0, x = 4 and 5: ⌊x/2⌋ + ⌊y/2⌋ = 2, even: the dark cell of the checker.
+    expect(pixels(frame, s)).toEqual([M.background, M.flicker, M.background, M.background, M.flicker, M.flicker]);
+  });
+  it('draws the checker of 2-pixel cells over void truth', () => {
+    const w = 6, h = 4;
+    const truth = Array(w * h).fill(255);
+    const f: CompositeFrame = {
+      ...frameOf(w, truth, { a: Array(w * h).fill(2) }),
+      around: { prev: { a: { width: w, height: h, ids: new Uint8Array(w * h).fill(1) } }, next: { a: { width: w, height: h, ids: new Uint8Array(w * h).fill(1) } } },
+    };
+    const s = allOff();
+    s.flicker.on = true;
+    const got = pixels(f, s);
+    const rows = [];
+    for (let y = 0; y < h; y++) rows.push(got.slice(y * w, y * w + w).map((c) => (c === M.flicker ? 'D' : c === M.flickerLight ? 'l' : '?')).join(''));
+    expect(rows).toEqual(['DDllDD', 'DDllDD', 'llDDll', 'llDDll']);
+  });
+  it('draws nothing at a sequence end, for another run, or when a neighbour has another size', () => {
+    const s = allOff();
+    s.flicker.on = true;
+    expect(pixels({ ...frame, around: null }, s)).toEqual(Array(6).fill(M.background));
+    expect(pixels({ ...frame, preds: { ...frame.preds, b: frame.preds.a } }, { ...s, runA: 'b' })).toEqual(Array(6).fill(M.background));
+    const small = { width: 3, height: 2, ids: new Uint8Array(6) };
+    expect(pixels({ ...frame, around: { prev: { a: small }, next: frame.around!.next } }, s)).toEqual(Array(6).fill(M.background));
+  });
+});
+
 describe('solo class', () => {
   it('dims every pixel where neither truth nor prediction is the class', () => {
     const frame = frameOf(4, [1, 2, 2, 255], { a: [2, 1, 2, 3] }, Array(16).fill(200));

@@ -48,7 +48,7 @@ export function frameRandom(
   seed: number,
   width: number,
   height: number,
-  opts: { wide?: boolean; runs?: number; photo?: boolean; bins?: boolean } = {},
+  opts: { wide?: boolean; runs?: number; photo?: boolean; bins?: boolean; around?: boolean } = {},
 ): RandomFrame {
   const rnd = seededRandom(seed);
   const wide = opts.wide ?? false;
@@ -86,5 +86,22 @@ export function frameRandom(
     }
   }
   const bandBins = (opts.bins ?? true) ? bandBinsOf(truth) : null;
-  return { frame: { photo, truth, preds, bandBins }, table, strayIds };
+  // Neighbouring frames' predictions (flicker): each run's map with a few blobs changed, and a
+  // share of its pixels copied from the other neighbour so that flips back occur.
+  let around: CompositeFrame['around'] = null;
+  if (opts.around ?? true) {
+    const prev: Record<string, LabelMap> = {}, next: Record<string, LabelMap> = {};
+    for (const [run, map] of Object.entries(preds)) {
+      const a = make(), b = make();
+      a.set(truthIds);
+      blobs(a, width, height, rnd, 2 + Math.floor(area / 500), pickClass);
+      b.set(a);
+      blobs(b, width, height, rnd, 1 + Math.floor(area / 1500), () => (rnd() < 0.3 ? ignore : pickClass()));
+      for (let i = 0; i < area; i++) if (rnd() < 0.1) b[i] = map.ids[i];
+      prev[run] = { width, height, ids: a };
+      next[run] = { width, height, ids: b };
+    }
+    around = { prev, next };
+  }
+  return { frame: { photo, truth, preds, bandBins, around }, table, strayIds };
 }

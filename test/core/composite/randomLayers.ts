@@ -21,6 +21,7 @@ export function layersRandom(seed: number, width: number, height: number, runs: 
   s.disagree = { ...base(0.6), mode: DISAGREE_MODES[int(3)] };
   s.compare = base(0.5);
   s.void = { ...base(0.6), period: 2 * (1 + int(8)) };
+  s.flicker = base(0.6);
   s.highlight = { ...base(0.6), boxes, thickness: 1 + int(4) };
   s.runA = runPick();
   s.runB = runPick();

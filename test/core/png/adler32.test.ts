@@ -34,3 +34,18 @@ describe('adler32', () => {
     expect(py.stdout.trim().split('\n').map(Number)).toEqual(inputs.map((d) => adler32(d)));
   });
 });
+
+describe('adler32 on mostly-zero data (zero words skipped), at every byte offset', () => {
+  it('equals the per-byte definition', () => {
+    const r = seededRandom(77);
+    const data = Uint8Array.from({ length: 20_011 }, () => (r() < 0.03 ? Math.floor(r() * 256) : 0));
+    const big = new Uint8Array(data.length + 8);
+    for (let shift = 0; shift < 4; shift++) {
+      big.set(data, shift);
+      const view = big.subarray(shift, shift + data.length);
+      expect(adler32(view)).toBe(adler32Reference(data));
+      expect(adler32(view.subarray(0, 2))).toBe(adler32Reference(data.subarray(0, 2)));
+      expect(adler32(view.subarray(1, 1))).toBe(1);
+    }
+  });
+});

@@ -3,6 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { colorLookupBuild, colorLookupGet } from '../../../src/core/png/colorLookup.ts';
 import { rgbRowsToIds } from '../../../src/core/png/rgbIds.ts';
 import { idsFromPackedRows } from '../../../src/core/png/unpackIds.ts';
+import { pngUnfilter } from '../../../src/core/png/unfilter.ts';
+import { unfilterPlain } from './unfilterPlain.ts';
 import { seededColors } from './fixtures.ts';
 import { seededIds, seededRandom } from './seeded.ts';
 
@@ -73,6 +75,29 @@ describe('idsFromPackedRows against bit-by-bit reading', () => {
         const rnd = seededRandom(depth * 100 + width);
         const rows = Uint8Array.from({ length: bytesPerRow * height }, () => Math.floor(rnd() * 256));
         expect(Array.from(idsFromPackedRows(rows, width, height, bytesPerRow, depth))).toEqual(unpackReference(rows, width, height, bytesPerRow, depth));
+      }
+    });
+  }
+});
+
+describe('pngUnfilter against the standard per byte (unfilterPlain.ts)', () => {
+  for (const bpp of [1, 2, 3, 4, 6, 8]) {
+    it(`${bpp} byte(s) per pixel, every filter, mostly-zero and random rows, aligned and not`, () => {
+      const rnd = seededRandom(bpp * 31);
+      for (const bytesPerRow of [1, 5, bpp * 13, 203]) {
+        const height = 12;
+        for (const off of [0, 3]) {
+          const raw = new Uint8Array(off + height * (bytesPerRow + 1) + 2);
+          for (let y = 0; y < height; y++) {
+            const r = off + y * (bytesPerRow + 1);
+            raw[r] = y < 5 ? y : Math.floor(rnd() * 5); // each filter on row y < 5, then any
+            // Rows of zeros with a few changes (label-map like), or noise on every third row.
+            for (let x = 0; x < bytesPerRow; x++) raw[r + 1 + x] = y % 3 === 2 || rnd() < 0.05 ? Math.floor(rnd() * 256) : 0;
+          }
+          for (const src of [raw, new Uint8Array([0, ...raw]).subarray(1)]) { // byteOffset 0, and a copy at byteOffset 1
+            expect(Array.from(pngUnfilter(src, off, height, bytesPerRow, bpp))).toEqual(unfilterPlain(src, off, height, bytesPerRow, bpp));
+          }
+        }
       }
     });
   }
