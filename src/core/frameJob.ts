@@ -165,7 +165,9 @@ export function frameJobScore(
     const confidence = confidenceOf(input, d.run, width, height, warnings);
     return { run: d.run, map: d.map, confidence };
   });
-  const regions = frameRegionsCompute({ truth: truth.value, preds, classIds, ignore: settings.ignore, photo }, regionSettings.value, regionScratch);
+  // The truth's boundary distances made for the scores (when a run was scored) serve the regions' band too.
+  const truthDist2 = scratch.distanceIds === truth.value.ids ? scratch.dist2 : null;
+  const regions = frameRegionsCompute({ truth: truth.value, preds, classIds, ignore: settings.ignore, photo, truthDist2 }, regionSettings.value, regionScratch);
   if (!regions.ok) {
     warnings.push(`${input.truth.file}: error regions not computed (${regions.error})`);
     return { ...base, width, height, error: null, runs, grid: null, warnings };

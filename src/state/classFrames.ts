@@ -3,6 +3,7 @@
 // region. Read from the frames' digests the page keeps; a results folder has no per-class frame scores.
 import { digestBandScores } from '../core/metrics/frameDigest.ts';
 import type { FrameCounts } from '../core/metrics/frameSummary.ts';
+import type { FrameColumns } from './frameColumns.ts';
 import type { StoredFrame } from './scoresSlice.ts';
 
 /** The per-class measures the frame list can sort by. */
@@ -19,7 +20,7 @@ export interface FrameClassSort {
 }
 
 /** Returns class `c`'s IoU in a frame from its K × (K+1) confusion: tp / (tp + fp + fn), null when the class is in neither map. */
-function classIoU(d: FrameCounts, c: number): number | null {
+export function classIoU(d: Pick<FrameCounts, 'classIds' | 'confusion'>, c: number): number | null {
   const k = d.classIds.length;
   const m = d.confusion;
   const tp = m[c * (k + 1) + c];
@@ -49,6 +50,22 @@ export function classFrameColumn(results: readonly (StoredFrame | undefined)[], 
     else v = d.biouUnion[c] > 0 ? d.biouInter[c] / d.biouUnion[c] : null;
     if (v !== null) out[i] = v;
   }
+  return out;
+}
+
+/**
+ * Returns every frame's `measure` of class `classId` for run `run` as classFrameColumn, IoU and
+ * Boundary IoU from the page's score columns (every scored frame); band IoU needs a frame's full
+ * counts, which the store holds for its last DETAIL_KEEP frames and the frame on screen only.
+ */
+export function classFrameColumnOf(
+  columns: FrameColumns, results: readonly (StoredFrame | undefined)[], count: number, run: string | null, classId: number, measure: ClassMeasure, w: number,
+): Float64Array {
+  const col = run ? columns.runs[run]?.classes.get(classId) : undefined;
+  if (measure === 'band' || !col) return classFrameColumn(results, count, run, classId, measure, w);
+  const src = measure === 'iou' ? col.iou : col.biou;
+  const out = new Float64Array(count).fill(NaN);
+  out.set(src.subarray(0, Math.min(count, src.length)));
   return out;
 }
 

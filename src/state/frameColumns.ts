@@ -7,6 +7,7 @@ import { digestBandScores, type FrameDigest } from '../core/metrics/frameDigest.
 import { frameSummaryOf } from '../core/metrics/frameSummary.ts';
 import { extrasFrameLine } from '../core/metrics/extrasTotals.ts';
 import type { RunExtras } from '../core/frameExtras.ts';
+import { classIoU } from './classFrames.ts';
 
 /** Per-frame scores held per run (ratios 0..1, pixel counts), in this order. */
 export const FRAME_COLUMN_KEYS = [
@@ -24,6 +25,8 @@ export interface RunFrameColumns {
   band: Float64Array;
   /** Why the frame has no scores for this run (frame or run failed), by frame index (few). */
   errors: Map<number, string>;
+  /** Per class id: the class's IoU and Boundary IoU on each frame (NaN where the class is in neither map or has no boundary). */
+  classes: Map<number, { iou: Float64Array; biou: Float64Array }>;
 }
 
 /** Frame states in `FrameColumns.state`. */
@@ -43,7 +46,7 @@ const nanArray = (n: number) => new Float64Array(n).fill(NaN);
 
 function runColumnsCreate(capacity: number): RunFrameColumns {
   const values = Object.fromEntries(FRAME_COLUMN_KEYS.map((k) => [k, nanArray(capacity)])) as Record<FrameColumnKey, Float64Array>;
-  return { values, band: nanArray(capacity * BAND_STRIDE), errors: new Map() };
+  return { values, band: nanArray(capacity * BAND_STRIDE), errors: new Map(), classes: new Map() };
 }
 
 /** Returns empty columns for a dataset of `total` frames and `runs`. */
@@ -69,6 +72,10 @@ function frameColumnsReserve(c: FrameColumns, index: number): void {
   for (const r of Object.values(c.runs)) {
     for (const k of FRAME_COLUMN_KEYS) r.values[k] = grown(r.values[k], cap, NaN);
     r.band = grown(r.band, cap * BAND_STRIDE, NaN);
+    for (const k of r.classes.values()) {
+      k.iou = grown(k.iou, cap, NaN);
+      k.biou = grown(k.biou, cap, NaN);
+    }
   }
   c.capacity = cap;
 }
@@ -112,6 +119,12 @@ export function frameColumnsAdd(c: FrameColumns, index: number, frameError: stri
     v.flipBackVoid[index] = nan(extras.flipBackVoid);
     v.smallObjectRecall[index] = nan(extras.smallObjectRecall);
     for (let w = 0; w < BAND_STRIDE; w++) col.band[index * BAND_STRIDE + w] = nan(digestBandScores(s, w).meanIoU);
+    s.classIds.forEach((id, k) => {
+      let cc = col.classes.get(id);
+      if (!cc) col.classes.set(id, (cc = { iou: nanArray(c.capacity), biou: nanArray(c.capacity) }));
+      cc.iou[index] = nan(classIoU(s, k));
+      cc.biou[index] = s.biouUnion[k] > 0 ? s.biouInter[k] / s.biouUnion[k] : NaN;
+    });
   }
 }
 

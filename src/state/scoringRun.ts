@@ -12,6 +12,7 @@ import type { ScorePool } from '../workers/scorePool.ts';
 import { fileBlobOf, type FileBlob } from '../workers/blobFiles.ts';
 import { SCORE_COMMANDS, type FrameScoreRequest } from '../workers/scoreJobs.ts';
 import type { LoadedDataset } from './datasetSlice.ts';
+import { frameColumnsHas } from './frameColumns.ts';
 import type { AppStore } from './store.ts';
 
 /**
@@ -159,8 +160,11 @@ export function scoringKeep(store: AppStore, pool: ScorePool): () => void {
   const unsubscribeFrame = store.subscribe((s) => s.frameIndex, (index) => {
     // Frames not started yet go in order of their distance from the frame now on screen.
     waiting = scoreOrder(waiting, index);
-    const { dataset, stored, settings } = store.getState();
-    const built = dataset && stored ? scoringTableResult(dataset, settings) : null;
+    const { dataset, stored, settings, columns, results } = store.getState();
+    // With a results folder the frame on screen is scored live; without one, a frame already scored
+    // whose full result was let go (scoresSlice DETAIL_KEEP) is scored again to show it.
+    const wanted = stored || (frameColumnsHas(columns, index) && !results[index]);
+    const built = dataset && wanted ? scoringTableResult(dataset, settings) : null;
     if (!dataset || !built?.ok || index >= dataset.pairing.frames.length) return;
     const gen = generation;
     live(gen, index, (i) => scoreOne(gen, dataset, built.value, settings, i));

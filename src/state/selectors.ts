@@ -6,14 +6,14 @@
 import type { ClassInfo, ClassTable } from '../core/classTable.ts';
 import { layerSettingsOf, type LayerSettings, type PixelBox } from '../core/composite/layerSettings.ts';
 import { runsCompareCounts, type RunsCompareCounts } from '../core/runsCompare.ts';
-import { suspectQueueOfResults, type Suspect } from '../core/suspects/suspectQueue.ts';
-import { SUSPECT_DEFAULTS } from '../core/suspects/suspectSettings.ts';
+import type { Suspect } from '../core/suspects/suspectQueue.ts';
 import { FRAME_TABLE_EMPTY, frameOrderOf, frameTableOfColumns, type FrameTable } from './frameRows.ts';
 import { datasetScope, frameScope, type ScopeScores } from './scopeScores.ts';
 import { scoringTableOf } from './scoringRun.ts';
+import { queueOfEvidence } from './queueEvidence.ts';
 import { frameTableOfStored, liveCheckOf, storedStaleOf, type LiveCheck } from './storedResults.ts';
 import type { AppState } from './store.ts';
-import { classFrameColumn, classFrameOrder } from './classFrames.ts';
+import { classFrameColumnOf, classFrameOrder } from './classFrames.ts';
 
 type Sel<T> = (s: AppState) => T;
 
@@ -32,7 +32,6 @@ export function selectorOf<I extends readonly unknown[], R>(inputs: { [K in keyo
 }
 
 const datasetIn: Sel<AppState['dataset']> = (s) => s.dataset;
-const resultsIn: Sel<AppState['results']> = (s) => s.results;
 const bandWidthIn: Sel<number> = (s) => s.bandWidth;
 
 /** Returns the class table frames are scored and coloured with (the void id from the settings), or null without a dataset. */
@@ -73,16 +72,17 @@ export const frameOrderSel: Sel<number[]> = selectorOf(
 
 /** Returns every frame's measure of the class the frame list is sorted by (null when it is not sorted by a class). */
 export const classColumnSel: Sel<Float64Array | null> = selectorOf(
-  [(s: AppState) => s.frameClass, resultsIn, frameNamesSel, shownRunSel, bandWidthIn],
-  (byClass, results, names, run, w) => (byClass ? classFrameColumn(results, names.length, run, byClass.classId, byClass.measure, w) : null),
+  [(s: AppState) => s.frameClass, (s: AppState) => s.columns, (s: AppState) => s.results, frameNamesSel, shownRunSel, bandWidthIn],
+  (byClass, columns, results, names, run, w) => (byClass ? classFrameColumnOf(columns, results, names.length, run, byClass.classId, byClass.measure, w) : null),
 );
 
 /**
  * Returns the likely-label-mistake queue over the frames scored so far (most likely first), the same
  * pass the headless scorer runs; rebuilt only when frames land or the class names change.
  */
-export const suspectsSel: Sel<Suspect[]> = selectorOf([datasetIn, resultsIn, (s: AppState) => s.stored, classNameSel], (dataset, results, stored, name) =>
-  !dataset ? [] : stored ? stored.queue : suspectQueueOfResults(results, name, SUSPECT_DEFAULTS),
+export const suspectsSel: Sel<Suspect[]> = selectorOf(
+  [datasetIn, (s: AppState) => s.queueEvidence, (s: AppState) => s.resultsVersion, (s: AppState) => s.stored, classNameSel],
+  (dataset, evidence, _version, stored, name) => (!dataset ? [] : stored ? stored.queue : queueOfEvidence(evidence, name)),
 );
 
 /** Returns how the settings differ from those of the opened results folder (empty while its scores hold, or without one). */

@@ -1,26 +1,10 @@
 import { useMemo, useState } from 'react';
 import type { ClassInfo } from '../core/classTable.ts';
-import type { StoredFrame } from '../state/scoresSlice.ts';
+import { confusionFramesOf } from '../state/confusionFrames.ts';
 import { count, countShort } from './format.ts';
 import type { ScopeScores } from '../state/scopeScores.ts';
 import { useCommand } from './commands/useCommand.tsx';
 import { useApp } from './storeContext.tsx';
-
-/** Returns the frames with the most pixels of truth `g` predicted as column `p` (by id; -1 = invalid). */
-function framesWith(results: readonly (StoredFrame | undefined)[], run: string, gId: number, pId: number, names: string[]): { index: number; name: string; pixels: number }[] {
-  const out: { index: number; name: string; pixels: number }[] = [];
-  results.forEach((r, index) => {
-    const s = r?.runs.find((x) => x.run === run)?.stats;
-    if (!s) return;
-    const k = s.classIds.length;
-    const g = s.classIds.indexOf(gId);
-    const p = pId === -1 ? k : s.classIds.indexOf(pId);
-    if (g < 0 || p < 0) return;
-    const v = s.confusion[g * (k + 1) + p];
-    if (v > 0) out.push({ index, name: names[index], pixels: v });
-  });
-  return out.sort((a, b) => b.pixels - a.pixels).slice(0, 12);
-}
 
 /** Confusion matrix as a row-normalised heat map; hover for counts, click a cell for the frames behind it. */
 export function ConfusionMap({ dataset, frame, classes, run }: { dataset: ScopeScores | null; frame: ScopeScores | null; classes: Map<number, ClassInfo>; run: string | null }) {
@@ -28,7 +12,8 @@ export function ConfusionMap({ dataset, frame, classes, run }: { dataset: ScopeS
   const [scope, setScope] = useState<'dataset' | 'frame'>('dataset');
   const [hover, setHover] = useState<string>('');
   const [picked, setPicked] = useState<{ g: number; p: number } | null>(null);
-  const results = useApp((s) => s.results);
+  const confusionFrames = useApp((s) => s.confusionFrames);
+  const version = useApp((s) => s.resultsVersion);
   const sortedBy = useApp((s) => s.frameClass?.classId ?? null);
   const frames = useApp((s) => s.dataset?.pairing.frames);
   const names = useMemo(() => (frames ?? []).map((f) => f.name), [frames]);
@@ -41,7 +26,11 @@ export function ConfusionMap({ dataset, frame, classes, run }: { dataset: ScopeS
     for (let g = 0; g < k; g++) for (let p = 0; p <= k; p++) if (p !== g && dataset.confusion[g * (k + 1) + p] > 0) cells.push({ g: dataset.classIds[g], p: p === k ? -1 : dataset.classIds[p], v: dataset.confusion[g * (k + 1) + p] });
     return cells.sort((a, b) => b.v - a.v).slice(0, 6);
   }, [dataset]);
-  const list = useMemo(() => (picked && run ? framesWith(results, run, picked.g, picked.p, names) : []), [picked, run, results, names]);
+  // Frames land in place; the version says when the lists changed.
+  const list = useMemo(
+    () => (picked && run ? confusionFramesOf(confusionFrames, run, picked.g, picked.p).map((f) => ({ ...f, name: names[f.index] })) : []),
+    [picked, run, confusionFrames, version, names],
+  );
   if (!sc) return <p className="dim">{scope === 'frame' ? 'This frame has no scores yet.' : 'No frames scored yet.'}</p>;
   const k = sc.classIds.length;
   const cols = [...sc.classIds, -1];

@@ -31,10 +31,18 @@ export function FrameList() {
   const run = useCommand();
   const sortKey = useApp((s) => s.frameScore);
   const worstFirst = useApp((s) => s.sortWorstFirst);
-  const byClass = useApp((s) => s.frameClass !== null);
+  const frameClass = useApp((s) => s.frameClass);
+  const byClass = frameClass !== null;
   const current = useApp((s) => s.frameIndex);
   const table = useApp(frameTableSel);
-  const order = useApp(frameOrderSel);
+  const liveOrder = useApp(frameOrderSel);
+  // While the pointer is over the list its order holds (frames landing would move rows under the
+  // pointer); 'sort now' takes the current order, leaving the list lets it go. A new sort key applies at once.
+  const [held, setHeld] = useState<{ order: number[]; key: FrameScoreKey; worstFirst: boolean; frameClass: typeof frameClass } | null>(null);
+  const holding = held !== null && held.key === sortKey && held.worstFirst === worstFirst && held.frameClass === frameClass;
+  const order = holding ? held.order : liveOrder;
+  const stale = holding && held.order !== liveOrder;
+  const hold = () => setHeld({ order: liveOrder, key: sortKey, worstFirst, frameClass });
   const scroller = useRef<HTMLDivElement>(null);
   const [scrollTop, setScrollTop] = useState(0);
   const [height, setHeight] = useState(400);
@@ -63,10 +71,16 @@ export function FrameList() {
 
 
   return (
-    <div className="frame-list">
+    <div className="frame-list" data-held={holding ? '' : undefined} onPointerEnter={hold} onPointerLeave={() => setHeld(null)}>
       <FrameSortLine />
       <div className="fl-head">
-        <span className="fl-name">frame</span>
+        {stale ? (
+          <button className="fl-resort" onClick={hold} title="The list keeps its order while the pointer is over it; frames scored since would move rows">
+            sort now
+          </button>
+        ) : (
+          <span className="fl-name">frame</span>
+        )}
         {COLUMNS.map((c) => (
           <button key={c.key} className={c.key === sortKey && !byClass ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => run('frames.sortBy', c.key)}>
             {c.key === 'bandIoU' ? `${c.label} ${table.bandWidth}` : c.label}

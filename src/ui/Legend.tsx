@@ -8,6 +8,8 @@ function Swatch({ entry, classColors }: { entry: LegendEntry; classColors: strin
   const [a, b] = entry.marks.map(markCss);
   const style =
     entry.look === 'stripes' ? { background: `repeating-linear-gradient(135deg, ${a} 0 3px, ${b} 3px 6px)` }
+    : entry.look === 'bands' ? { background: `repeating-linear-gradient(180deg, ${a} 0 2px, color-mix(in srgb, ${a} 50%, transparent) 2px 4px)` }
+    : entry.look === 'slashes' ? { background: `repeating-linear-gradient(45deg, ${a} 0 3px, color-mix(in srgb, ${a} 50%, transparent) 3px 6px)` }
     : entry.look === 'checks' ? { background: `repeating-conic-gradient(${a} 0 25%, ${b} 0 50%) 0 0 / 6px 6px` }
     : entry.look === 'outline' ? { border: `2px solid ${a}`, background: 'transparent' }
     : entry.look === 'shade' ? { background: a, opacity: 0.6 }

@@ -93,14 +93,18 @@ void main() {
     ivec4 pp = paletteAt(pa);
     bool isClass = pp.a == 255;
     ivec3 col = isClass ? mark(M_WRONG) : mark(M_INVALID);
+    int a = uLayers[L_DISAGREE].y;
     if (mode == 1) col = paletteAt(t).rgb;
     else if (mode == 2 && isClass) col = pp.rgb;
-    c = mix8(c, col, uLayers[L_DISAGREE].y);
+    else if (!isClass && (p.y & 2) != 0) a = a >> 1;
+    c = mix8(c, col, a);
   }
   if (shows(L_COMPARE, bit) && valid) {
     bool aRight = pa == t;
     bool bRight = idAt(uPredB, lp) == t;
-    if (aRight != bRight) c = mix8(c, bRight ? mark(M_FIXED) : mark(M_BROKE), uLayers[L_COMPARE].y);
+    int a = uLayers[L_COMPARE].y;
+    if (!bRight && ((p.x - p.y) & 7) >= 4) a = a >> 1;
+    if (aRight != bRight) c = mix8(c, bRight ? mark(M_FIXED) : mark(M_BROKE), a);
   }
   if (shows(L_VOID, bit) && !valid) {
     int period = uLayers[L_VOID].z;

@@ -14,7 +14,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { linkSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { classTableFromJson } from '../../src/core/classTable.ts';
@@ -79,24 +79,44 @@ function linkedDataset(root: string, frames: number): string {
   return dir;
 }
 
-/** Wall seconds of one `npm run score` over `dir` with `workers` threads. */
-function cliRun(root: string, dir: string, workers: number): number {
+/** Seconds of `0m1.234s` as bash's `times` prints them. */
+const timesSeconds = (t: string) => {
+  const m = /^(\d+)m([\d.]+)s$/.exec(t);
+  if (!m) throw new Error(`cannot read times output "${t}"`);
+  return Number(m[1]) * 60 + Number(m[2]);
+};
+
+/**
+ * Wall seconds and CPU seconds (user + system of the scorer and its threads, from bash's `times`) of
+ * one `npm run score` over `dir` with `workers` threads. The CPU figure is what a frame costs however
+ * busy the machine is; the wall figure is what the targets are about.
+ */
+function cliRun(root: string, dir: string, workers: number): { wall: number; cpu: number } {
+  const args = ['--import', 'tsx', 'src/cli/score.ts', '--truth', join(dir, 'truth'), '--pred', join(dir, 'pred'),
+    '--classes', join(root, 'classes.json'), '--out', join(dir, 'report.json'), '--workers', String(workers)];
   const t0 = process.hrtime.bigint();
-  const r = spawnSync(process.execPath, ['--import', 'tsx', 'src/cli/score.ts', '--truth', join(dir, 'truth'), '--pred', join(dir, 'pred'),
-    '--classes', join(root, 'classes.json'), '--out', join(dir, 'report.json'), '--workers', String(workers)], { encoding: 'utf8' });
-  const s = Number(process.hrtime.bigint() - t0) / 1e9;
+  const r = spawnSync('bash', ['-c', '"$0" "$@" >/dev/null; rc=$?; times; exit $rc', process.execPath, ...args], { encoding: 'utf8' });
+  const wall = Number(process.hrtime.bigint() - t0) / 1e9;
   if (r.status !== 0) throw new Error(`scorer failed (${r.status}): ${r.stderr}`);
-  return s;
+  const children = r.stdout.trim().split('\n').at(-1)!.trim().split(/\s+/);
+  return { wall, cpu: timesSeconds(children[0]) + timesSeconds(children[1]) };
 }
 
-/** Marginal ms per frame of the CLI with `workers` threads: median over `reps` of (t(big) − t(small)) / (big − small). */
-function cliPerFrame(root: string, workers: number, small: number, big: number, reps: number): number {
+/**
+ * Marginal ms per frame of the CLI with `workers` threads: median over `reps` of (t(big) − t(small)) / (big − small),
+ * in wall time and in CPU time.
+ */
+function cliPerFrame(root: string, workers: number, small: number, big: number, reps: number): { wall: number; cpu: number } {
   const a = linkedDataset(root, small), b = linkedDataset(root, big);
-  const per: number[] = [];
-  for (let i = 0; i < reps; i++) per.push(((cliRun(root, b, workers) - cliRun(root, a, workers)) * 1000) / (big - small));
+  const wall: number[] = [], cpu: number[] = [];
+  for (let i = 0; i < reps; i++) {
+    const tb = cliRun(root, b, workers), ta = cliRun(root, a, workers);
+    wall.push(((tb.wall - ta.wall) * 1000) / (big - small));
+    cpu.push(((tb.cpu - ta.cpu) * 1000) / (big - small));
+  }
   rmSync(a, { recursive: true });
   rmSync(b, { recursive: true });
-  return median(per);
+  return { wall: median(wall), cpu: median(cpu) };
 }
 
 const STATS_KEYS = ['confusion', 'band', 'biouInter', 'biouUnion', 'bfPredMatched', 'bfPredTotal', 'bfTruthMatched', 'bfTruthTotal'] as const;
@@ -178,9 +198,12 @@ try {
   }
 
   if (!process.argv.includes('--no-cli')) {
-    const cli1 = cliPerFrame(root, 1, 4, 20, Math.max(1, Math.min(3, REPS)));
-    const cli2 = cliPerFrame(root, 2, 8, 40, Math.max(1, Math.min(3, REPS)));
+    const run1 = cliPerFrame(root, 1, 4, 20, Math.max(1, Math.min(3, REPS)));
+    const run2 = cliPerFrame(root, 2, 8, 40, Math.max(1, Math.min(3, REPS)));
+    const cli1 = run1.wall, cli2 = run2.wall;
     console.log(`Hairline CLI (npm run score, decode + scores + regions, marginal per frame): 1 worker ${cli1.toFixed(1)} ms, 2 workers ${cli2.toFixed(1)} ms (${(1000 / cli2).toFixed(1)} frames/s)`);
+    console.log(`  CPU time per frame (all threads, user + system): 1 worker ${run1.cpu.toFixed(1)} ms, 2 workers ${run2.cpu.toFixed(1)} ms; ` +
+      `load average ${loadavg().map((v) => v.toFixed(1)).join(' ')} (a wall figure well above the CPU figure means the machine was busy)`);
 
     rows.push({
       target: 'headless end to end, 1 worker, per frame vs peer decode + scores: ≥ 4× faster',

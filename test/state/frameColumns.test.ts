@@ -11,6 +11,8 @@ import { DEFAULT_SCORE_SETTINGS } from '../../src/core/metrics/settings.ts';
 import { labelMapToPng } from '../../src/core/png/encode.ts';
 import { scoringTableBuild } from '../../src/core/scoringTable.ts';
 import { frameColumnsAdd, frameColumnsCreate } from '../../src/state/frameColumns.ts';
+import { classFrameColumn, classFrameColumnOf } from '../../src/state/classFrames.ts';
+import { DETAIL_KEEP } from '../../src/state/scoresSlice.ts';
 import { frameOrderSel, frameTableSel } from '../../src/state/selectors.ts';
 import { appStoreCreate } from '../../src/state/store.ts';
 import { harbourPrediction, harbourTruth, HARBOUR_CLASSES } from '../support/harbourScene.ts';
@@ -74,6 +76,17 @@ describe('frame columns: the page scoring keeps typed columns, not objects per f
         });
       }
     }
+    // Per-class IoU and Boundary IoU (the drill-down by class) equal those of the frames' digests.
+    const st = store.getState();
+    for (const run of RUNS) {
+      for (const measure of ['iou', 'biou'] as const) {
+        for (const id of [0, 2, 5]) {
+          const fromColumns = classFrameColumnOf(st.columns, [], 5, run, id, measure, 3);
+          const fromDigests = classFrameColumn(st.results, 5, run, id, measure, 3);
+          expect([...fromColumns], `${run} class ${id} ${measure}`).toEqual([...fromDigests]);
+        }
+      }
+    }
     // Flicker is defined in the middle of the sequence (both neighbours present) and not at its ends.
     const table = frameTableSel(store.getState());
     expect(table.value(1, 'flipBack')).not.toBeNull();
@@ -107,5 +120,24 @@ describe('frame columns: the page scoring keeps typed columns, not objects per f
     expect(Number.isNaN(c.runs.a.values.meanIoU[4])).toBe(true);
     frameColumnsAdd(c, 999, null, [{ run: 'a', stats, error: null }]);
     expect(c.capacity).toBe(1000);
+  });
+});
+
+describe('full results kept for a short window only', () => {
+  it('holds DETAIL_KEEP frames plus the frame on screen; a frame scored again to show it adds nothing to the sums', () => {
+    const n = DETAIL_KEEP + 44;
+    const store = storeOf(n);
+    const fail = (i: number) => ({ name: `f${i}`, width: 4, height: 2, error: null, runs: [{ run: 'a', stats: null, error: `f${i}: a unreadable` }, { run: 'b', stats: null, error: null }] });
+    for (let i = 0; i < n; i += 10) store.getState().scoringFramesDone(1, Array.from({ length: Math.min(10, n - i) }, (_, k) => ({ index: i + k, result: fail(i + k) })));
+    const s = store.getState();
+    expect(s.scoring.done).toBe(n);
+    // Frame 0 is on screen, so it stays; of the rest only the last DETAIL_KEEP to land.
+    const held = s.results.flatMap((r, i) => (r ? [i] : []));
+    expect(held).toEqual([0, ...Array.from({ length: DETAIL_KEEP - 1 }, (_, k) => n - DETAIL_KEEP + 1 + k)]);
+    expect(frameTableSel(s).error(5)).toBe('f5: a unreadable');
+    s.scoringFramesDone(1, [{ index: 5, result: fail(5) }]);
+    expect(store.getState().results[5]).toBeDefined();
+    expect(store.getState().scoring.done).toBe(n);
+    expect(store.getState().scoring.failed).toBe(s.scoring.failed);
   });
 });

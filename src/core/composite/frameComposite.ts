@@ -89,21 +89,25 @@ export function frameComposite(
       }
       if (disM & bit && valid && p !== t) {
         const isClass = pal[p * 4 + 3] === 255;
-        let cr: number, cg: number, cb: number;
+        let cr: number, cg: number, cb: number, a = disA;
         if (disMode === 1 || (disMode === 2 && isClass)) {
           const o = (disMode === 1 ? t : p) * 4; // colour by the truth / the predicted class
           cr = pal[o]; cg = pal[o + 1]; cb = pal[o + 2];
         } else {
           const o = isClass ? oWrong : oInvalid;
           cr = M[o]; cg = M[o + 1]; cb = M[o + 2];
+          // Not a class: horizontal bands, every other pair of rows at half strength.
+          if (!isClass && (y & 2) !== 0) a = disA >> 1;
         }
-        r = mix8(r, cr, disA); g = mix8(g, cg, disA); b = mix8(b, cb, disA);
+        r = mix8(r, cr, a); g = mix8(g, cg, a); b = mix8(b, cb, a);
       }
       if (cmpM & bit && valid) {
         const aRight = p === t, bRight = pb[i] === t;
         if (aRight !== bRight) {
           const o = bRight ? oFixed : oBroke;
-          r = mix8(r, M[o], cmpA); g = mix8(g, M[o + 1], cmpA); b = mix8(b, M[o + 2], cmpA);
+          // Broke: stripes rising to the right (the void's fall), half strength where (x − y) mod 8 ≥ 4.
+          const a = !bRight && ((x - y) & 7) >= 4 ? cmpA >> 1 : cmpA;
+          r = mix8(r, M[o], a); g = mix8(g, M[o + 1], a); b = mix8(b, M[o + 2], a);
         }
       }
       if (voidM & bit && !valid) {

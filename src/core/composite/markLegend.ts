@@ -1,8 +1,11 @@
 import type { LayerKey } from './layerSettings.ts';
 import type { MarkKey } from './compositePalette.ts';
 
-/** How a legend entry is drawn: a filled swatch, stripes or a checker of two marks, an outline, or class colours. */
-export type LegendLook = 'fill' | 'shade' | 'stripes' | 'checks' | 'outline' | 'classes';
+/**
+ * How a legend entry is drawn: a filled swatch, stripes or a checker of two marks, one mark in
+ * horizontal bands or in diagonal stripes (full and half strength), an outline, or class colours.
+ */
+export type LegendLook = 'fill' | 'shade' | 'stripes' | 'checks' | 'bands' | 'slashes' | 'outline' | 'classes';
 
 /** One line of the legend: the marks it shows (their colours from MARK_COLORS), how, and what they mean. */
 export interface LegendEntry {
@@ -28,13 +31,13 @@ export const MARK_LEGEND: Readonly<Record<LayerKey, readonly LegendEntry[]>> = {
   band: [{ marks: ['band'], look: 'shade', words: 'boundary band' }],
   disagree: [
     { marks: ['wrong'], look: 'fill', words: 'predicted another class', mode: 'kind' },
-    { marks: ['invalid'], look: 'fill', words: 'predicted an id that is not a class', mode: 'kind' },
+    { marks: ['invalid'], look: 'bands', words: 'predicted an id that is not a class (banded)', mode: 'kind' },
     { marks: [], look: 'classes', words: 'disagreement in the true class colour', mode: 'truth' },
     { marks: [], look: 'classes', words: 'disagreement in the predicted class colour', mode: 'pred' },
   ],
   compare: [
     { marks: ['fixed'], look: 'fill', words: 'fixed: B right where A was wrong' },
-    { marks: ['broke'], look: 'fill', words: 'broke: B wrong where A was right' },
+    { marks: ['broke'], look: 'slashes', words: 'broke: B wrong where A was right (striped)' },
   ],
   void: [{ marks: ['hatchLight', 'hatchDark'], look: 'stripes', words: 'void in the ground truth' }],
   flicker: [

@@ -22,6 +22,12 @@ export interface RegionFrameInput {
   classIds: readonly number[];
   ignore: number;
   photo: RgbaImage | null;
+  /**
+   * Squared distance (pixels²) of every pixel to the nearest truth boundary pixel, exact at least up
+   * to BAND_WIDTH_MAX² (frameScore's, src/core/metrics/distanceBand.ts; the same boundary as
+   * truthEdgeReach's): when given, band membership is read from it instead of found again.
+   */
+  truthDist2?: Uint16Array | null;
 }
 
 /** The frame's grid, per run in input order its regions (null where the run had no map), and its classes' appearance (null without a photo). */
@@ -70,7 +76,9 @@ export function frameRegionsCompute(
 
   const tc = s.truthCodes;
   labelCodesFill(truth.ids, s.truthTable, tc, 0, n);
-  truthEdgeReach(tc, width, height, s.edgeReach);
+  const dist2 = input.truthDist2 ?? null;
+  // The along-row reach serves band membership when no distances are given, and the photo's appearance always.
+  if (!dist2 || photo) truthEdgeReach(tc, width, height, s.edgeReach);
   runsLabel(tc, null, null, width, height, k, RUN_KEEP.all, s.truthRuns);
   componentStatsFill(s.truthRuns, s.truthSegments);
   const grid: FrameGrid = { ...shape, truth: gridDominant(s.truthRuns, k, classIds, ignore, shape) };
@@ -90,7 +98,7 @@ export function frameRegionsCompute(
   const runs = input.preds.map((p, index) => {
     if (!p) return null;
     const others = present.filter((o) => o.index !== index);
-    return runRegions({ width, height, classIds, index, others, confidence: p.confidence, photo: photoMaps, grid: shape }, s, settings);
+    return runRegions({ width, height, classIds, index, others, confidence: p.confidence, photo: photoMaps, grid: shape, truthDist2: dist2 }, s, settings);
   });
   const appearance = photoMaps && present.length
     ? classAppearanceOfFrame(width, height, tc, present.map((p) => s.predCodes[p.index]), s.edgeReach, photoMaps, classIds)

@@ -12,7 +12,7 @@ import {
   GRID_NOT_A_CLASS, REGION_KINDS, type ConfidenceTotals, type ErrorRegion, type RegionCounts, type RegionKind, type RunRegions, type VoidSpillRegion,
 } from './regionTypes.ts';
 import { RUN_KEEP, runAt, runsLabel } from './runLabel.ts';
-import { bandCountRun, bandReach } from './truthBand.ts';
+import { bandCountDist2, bandCountRun, bandReach } from './truthBand.ts';
 
 /** One run's inputs on a frame whose truth codes, band distances and truth segments are in the scratch. */
 export interface RunRegionsInput {
@@ -26,6 +26,8 @@ export interface RunRegionsInput {
   /** The photo's luma and its gradient computed so far (gradientAt), or null. */
   photo: AppearancePhoto | null;
   grid: GridShape;
+  /** The truth's squared boundary distances (RegionFrameInput.truthDist2), or null: band membership from scratch.edgeReach. */
+  truthDist2: Uint16Array | null;
 }
 
 /** Returns the per-class confidence sums where truth and prediction agree (confident learning's per-class threshold inputs). */
@@ -60,12 +62,14 @@ export function runRegions(input: RunRegionsInput, s: RegionScratch, settings: R
   const t = s.pairRuns, cs = s.pairs;
   componentStatsFill(t, cs);
 
-  const w = settings.bandWidth, reach = bandReach(w);
+  const w = settings.bandWidth, reach = bandReach(w), dist2 = input.truthDist2;
   const inBand = new Int32Array(cs.count);
   for (let r = 0; r < t.count; r++) {
     // Void-spill areas and tiny regions are never measured against the band.
     if (t.a[r] >= k || cs.area[t.comp[r]] < settings.minArea) continue;
-    inBand[t.comp[r]] += bandCountRun(s.edgeReach, width, height, t.y[r], t.x0[r], t.x1[r], w, reach);
+    inBand[t.comp[r]] += dist2
+      ? bandCountDist2(dist2, t.y[r] * width + t.x0[r], t.y[r] * width + t.x1[r], w * w)
+      : bandCountRun(s.edgeReach, width, height, t.y[r], t.x0[r], t.x1[r], w, reach);
   }
 
   const idOf = (code: number) => (code < k ? classIds[code] : null);

@@ -41,20 +41,7 @@ export function evidenceWindowCreate<T>(
   };
   const finishFrame = (f: number) => {
     const here = held.get(f)!;
-    const lo = Math.max(0, f - w), hi = Math.min(total - 1, f + w);
-    const slice: (FrameGrids | null)[] = [];
-    const near: SuspectCandidate[] = [];
-    for (let t = lo; t <= hi; t++) {
-      const h = held.get(t);
-      slice.push(h?.grids ?? null);
-      if (h) near.push(...h.candidates);
-    }
-    const index = candidateIndexBuild(near);
-    const scored = (t: number, run: string) => t >= lo && t <= hi && !!slice[t - lo]?.runs[run];
-    const evidence = here.candidates.map((c) => ({
-      flip: temporalFlip(slice, f - lo, c.run, c.cells, c.truthClass, c.predictedClass, w, s.temporalReach),
-      steady: steadyDisagreement(c, index, w, scored),
-    }));
+    const evidence = frameEvidenceOf(f, total, s, (t) => held.get(t));
     if (here.payload !== null) finish(f, here.payload, here.candidates, evidence);
   };
   return {
@@ -69,4 +56,28 @@ export function evidenceWindowCreate<T>(
     },
     held: () => held.size,
   };
+}
+
+/**
+ * Returns the temporal evidence of frame `f`'s candidates (label flips, steady disagreement) from the
+ * frames within temporalWindow of it, as `at` gives them (undefined: not read or not scored).
+ */
+export function frameEvidenceOf(
+  f: number, total: number, s: SuspectSettings, at: (t: number) => { grids: FrameGrids | null; candidates: readonly SuspectCandidate[] } | undefined,
+): CandidateEvidence[] {
+  const w = s.temporalWindow;
+  const lo = Math.max(0, f - w), hi = Math.min(total - 1, f + w);
+  const slice: (FrameGrids | null)[] = [];
+  const near: SuspectCandidate[] = [];
+  for (let t = lo; t <= hi; t++) {
+    const h = at(t);
+    slice.push(h?.grids ?? null);
+    if (h) near.push(...h.candidates);
+  }
+  const index = candidateIndexBuild(near);
+  const scored = (t: number, run: string) => t >= lo && t <= hi && !!slice[t - lo]?.runs[run];
+  return (at(f)?.candidates ?? []).map((c) => ({
+    flip: temporalFlip(slice, f - lo, c.run, c.cells, c.truthClass, c.predictedClass, w, s.temporalReach),
+    steady: steadyDisagreement(c, index, w, scored),
+  }));
 }

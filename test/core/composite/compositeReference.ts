@@ -53,12 +53,17 @@ export function compositeReference(frame: CompositeFrame, layers: LayerSettings,
       if (shows(layers.disagree) && p !== undefined && valid && p !== g) {
         const mode = layers.disagree.mode;
         const kind = isClass(p) ? rgbOf(marks.wrong) : rgbOf(marks.invalid);
-        over(mode === 'truth' ? colorOf(g) : mode === 'pred' && isClass(p) ? colorOf(p) : kind, layers.disagree.opacity);
+        const byClass = mode === 'truth' || (mode === 'pred' && isClass(p));
+        // Not a class in its own colour: rows in pairs, the odd pairs (⌊y/2⌋ odd) at half opacity, rounded down.
+        const halfRow = !byClass && !isClass(p) && Math.floor(y / 2) % 2 === 1;
+        over(mode === 'truth' ? colorOf(g) : byClass ? colorOf(p) : kind, halfRow ? Math.floor(layers.disagree.opacity / 2) : layers.disagree.opacity);
       }
       if (shows(layers.compare) && A && B && valid) {
         const aRight = A.ids[i] === g, bRight = B.ids[i] === g;
         if (!aRight && bRight) over(rgbOf(marks.fixed), layers.compare.opacity);
-        if (aRight && !bRight) over(rgbOf(marks.broke), layers.compare.opacity);
+        // Broke: diagonal stripes, half opacity (rounded down) where (x − y) mod 8 (non-negative) is 4..7.
+        const halfStripe = (((x - y) % 8) + 8) % 8 >= 4;
+        if (aRight && !bRight) over(rgbOf(marks.broke), halfStripe ? Math.floor(layers.compare.opacity / 2) : layers.compare.opacity);
       }
       if (shows(layers.void) && !valid) {
         const light = (x + y) % layers.void.period < layers.void.period / 2;

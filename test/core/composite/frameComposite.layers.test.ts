@@ -129,6 +129,38 @@ describe('comparison layer', () => {
   });
 });
 
+describe('patterns where colour alone cannot carry it', () => {
+  const half = (over: number, mark: number) => {
+    // mix8 at opacity 127 (255 >> 1): round((127·src + 128·dst) / 255) per channel, worked by hand.
+    const ch = (sh: number) => Math.floor((127 * ((mark >> sh) & 255) + 128 * ((over >> sh) & 255) + 127) / 255);
+    return (ch(16) << 16) | (ch(8) << 8) | ch(0);
+  };
+  it('not a class: full strength on rows 0-1, half on rows 2-3, and so on (horizontal bands)', () => {
+    const w = 3, h = 8;
+    const truth = Array(w * h).fill(1);
+    const s = allOff();
+    s.disagree.on = true;
+    const got = pixels(frameOf(w, truth, { a: Array(w * h).fill(9) }), s);
+    for (let y = 0; y < h; y++) {
+      for (let x = 0; x < w; x++) expect(got[y * w + x], `(${x}, ${y})`).toBe(y % 4 < 2 ? M.invalid : half(M.background, M.invalid));
+    }
+    // Another class stays a plain fill.
+    expect(new Set(pixels(frameOf(w, truth, { a: Array(w * h).fill(2) }), s))).toEqual(new Set([M.wrong]));
+  });
+  it('broke: stripes along x − y, half strength where (x − y) mod 8 is 4..7; fixed stays a fill', () => {
+    const w = 10, h = 3;
+    const truth = Array(w * h).fill(1);
+    const s = allOff();
+    s.compare.on = true;
+    s.runB = 'b';
+    const got = pixels(frameOf(w, truth, { a: truth, b: Array(w * h).fill(2) }), s);
+    const rows = [];
+    for (let y = 0; y < h; y++) rows.push(got.slice(y * w, y * w + w).map((c) => (c === M.broke ? 'B' : c === half(M.background, M.broke) ? 'b' : '?')).join(''));
+    expect(rows).toEqual(['BBBBbbbbBB', 'bBBBBbbbbB', 'bbBBBBbbbb']);
+    expect(new Set(pixels(frameOf(w, truth, { a: Array(w * h).fill(2), b: truth }), s))).toEqual(new Set([M.fixed]));
+  });
+});
+
 describe('flicker layer', () => {
   // Hand-worked, from the definition in src/docs/metrics.md "Flicker": a pixel flips back at t when
   // pred[t-1] == pred[t+1] and pred[t] != pred[t-1]. Pixels, left to right:

@@ -9,6 +9,9 @@ import { RUN_KEEP, runTableCreate, runsLabel } from '../../../src/core/regions/r
 import { regionSettingsCheck, type RegionSettings } from '../../../src/core/regions/regionSettings.ts';
 import type { ErrorRegion, RunRegions } from '../../../src/core/regions/regionTypes.ts';
 import { randomPair } from '../../support/randomMaps.ts';
+import { frameScore } from '../../../src/core/metrics/frameScore.ts';
+import { scoreScratchCreate } from '../../../src/core/metrics/scratch.ts';
+import { DEFAULT_SCORE_SETTINGS } from '../../../src/core/metrics/settings.ts';
 import { refBandShare, refBoundary, refRegions, refSegments, refThickness } from './regionsReference.ts';
 
 // Region extraction against the plain reference in regionsReference.ts (breadth-first flood fill,
@@ -24,8 +27,8 @@ function settingsOf(partial: Partial<RegionSettings>): RegionSettings {
 }
 const ALL = settingsOf({ minArea: 0, listMax: 1e9 });
 
-function regionsOf(truth: LabelMap, pred: LabelMap, settings = ALL, classIds = IDS): RunRegions {
-  const r = frameRegionsCompute({ truth, preds: [{ run: 'a', map: pred, confidence: null }], classIds, ignore: 255, photo: null }, settings);
+function regionsOf(truth: LabelMap, pred: LabelMap, settings = ALL, classIds = IDS, truthDist2: Uint16Array | null = null): RunRegions {
+  const r = frameRegionsCompute({ truth, preds: [{ run: 'a', map: pred, confidence: null }], classIds, ignore: 255, photo: null, truthDist2 }, settings);
   if (!r.ok) throw new Error(r.error);
   return r.value.runs[0]!;
 }
@@ -38,6 +41,14 @@ describe('frameRegionsCompute against a brute-force flood fill (random maps)', (
         const { truth, pred } = randomPair(w, h, 40 * s + seed, { classIds: IDS, ignore: 255, invalidIds: [4, 200, 255], voids: true, shapes: 8 + s * 2 });
         const got = regionsOf(truth, pred);
         const ref = refRegions(truth, pred, IDS, 255);
+        // Band membership read from the scores' truth distances (as frameJobScore passes them) gives the same regions, at several band widths.
+        const scratch = scoreScratchCreate();
+        if (!frameScore(truth, pred, IDS, { ...DEFAULT_SCORE_SETTINGS, ignore: 255 }, scratch).ok) throw new Error('frameScore failed');
+        expect(regionsOf(truth, pred, ALL, IDS, scratch.dist2)).toEqual(got);
+        for (const bandWidth of [0, 7]) {
+          const other = settingsOf({ minArea: 0, listMax: 1e9, bandWidth });
+          expect(regionsOf(truth, pred, other, IDS, scratch.dist2)).toEqual(regionsOf(truth, pred, other));
+        }
         const boundary = refBoundary(truth);
         const truthSegs = refSegments(truth, null);
         const predSegs = refSegments(pred, IDS);
