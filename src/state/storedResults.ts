@@ -40,7 +40,7 @@ export function frameTableOfStored(stored: StoredResults, names: readonly string
     pending: () => false,
     error,
     value: (i, key) => {
-      if (!c || key === 'flipBack' || key === 'flipBackVoid' || key === 'smallObjectRecall' || error(i) !== null) return null;
+      if (!c || error(i) !== null) return null;
       const v = c[key][i];
       return Number.isNaN(v) ? null : v;
     },

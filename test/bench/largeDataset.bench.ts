@@ -1,7 +1,8 @@
 /**
  * The app on a large served dataset: N frames (4 distinct 320×160 frames hard-linked under many
  * names, each read, decoded and scored for real), scored in the page's workers; prints the page's JS
- * heap and the time to score all frames at two sizes, so the growth per frame can be read off.
+ * heap and the time to score all frames at two sizes, and the heap's growth per frame between them
+ * (the page keeps per-frame scores in typed columns and full results for its last 256 frames only).
  * Run: npx tsx test/bench/largeDataset.bench.ts [small=1000] [large=10000]
  */
 import { spawnSync } from 'node:child_process';
@@ -32,6 +33,7 @@ async function main(): Promise<void> {
     await build({ configFile: 'vite.config.ts', logLevel: 'warn', build: { outDir: '../dist-bench', emptyOutDir: true } });
     const browser = await browserLaunch();
     console.log('app on a served dataset of 320×160 frames, two runs, scored in the page');
+    const heaps: number[] = [];
     for (const n of [small, large]) {
       const root = join(tmp, `ds${n}`);
       datasetMake(root, seed, n);
@@ -49,11 +51,13 @@ async function main(): Promise<void> {
       await cdp.send('HeapProfiler.collectGarbage');
       const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] };
       const heap = metrics.find((m) => m.name === 'JSHeapUsedSize')?.value ?? NaN;
+      heaps.push(heap);
       console.log(`  ${String(n).padStart(6)} frames: scored in ${seconds.toFixed(0)} s (${(n / seconds).toFixed(1)} frames/s), page JS heap ${(heap / 1e6).toFixed(0)} MB (${((heap / n) / 1e3).toFixed(1)} kB per frame)`);
       await page.close();
       server.close();
     }
     await browser.close();
+    console.log(`  page JS heap growth ${small} → ${large} frames: ${((heaps[1] - heaps[0]) / 1e6).toFixed(1)} MB (${((heaps[1] - heaps[0]) / (large - small) / 1e3).toFixed(1)} kB per frame)`);
   } finally {
     rmSync(tmp, { recursive: true, force: true });
   }

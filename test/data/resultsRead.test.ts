@@ -43,7 +43,7 @@ describe('results folder read in the page', () => {
       const c = stored.runs[r.run as string];
       const i = r.frameIndex as number;
       expect(c.present[i]).toBe(1);
-      for (const k of ['meanIoU', 'pixelAccuracy', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels', 'validPixels'] as const) expect(c[k][i]).toBe(r[k] ?? NaN);
+      for (const k of ['meanIoU', 'pixelAccuracy', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels', 'validPixels', 'flipBack', 'flipBackVoid', 'smallObjectRecall'] as const) expect(c[k][i]).toBe(r[k] ?? NaN);
     }
     expect(stored.totals.a.frames).toBe(FRAMES);
     expect(stored.queue.length).toBe(data.summary.rows.queue);

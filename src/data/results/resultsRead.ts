@@ -27,6 +27,10 @@ export interface RunColumns {
   boundaryF: Float64Array;
   errorPixels: Float64Array;
   validPixels: Float64Array;
+  /** Flip-back rates over non-void and void truth, and small-object recall (NaN where undefined, or all NaN in a table without them). */
+  flipBack: Float64Array;
+  flipBackVoid: Float64Array;
+  smallObjectRecall: Float64Array;
   /** 1 where the frame has a row for this run, 0 where none was found. */
   present: Uint8Array;
   /** Why the frame failed, by frame index (few). */
@@ -34,7 +38,9 @@ export interface RunColumns {
 }
 
 /** The per-frame score columns of a run, in the frame list's order of keys. */
-export const RESULT_SCORE_KEYS = ['meanIoU', 'pixelAccuracy', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels', 'validPixels'] as const;
+export const RESULT_SCORE_KEYS = [
+  'meanIoU', 'pixelAccuracy', 'bandIoU', 'boundaryIoU', 'boundaryF', 'errorPixels', 'validPixels', 'flipBack', 'flipBackVoid', 'smallObjectRecall',
+] as const;
 export type ResultScoreKey = (typeof RESULT_SCORE_KEYS)[number];
 
 /** A results folder as the page holds it. */
@@ -170,6 +176,7 @@ function runColumnsCreate(n: number): RunColumns {
   const f = () => new Float64Array(n).fill(NaN);
   return {
     meanIoU: f(), pixelAccuracy: f(), bandIoU: f(), boundaryIoU: f(), boundaryF: f(), errorPixels: f(), validPixels: f(),
+    flipBack: f(), flipBackVoid: f(), smallObjectRecall: f(),
     present: new Uint8Array(n), errors: new Map(),
   };
 }
@@ -180,13 +187,16 @@ async function frameColumnsRead(file: AsyncBuffer, where: string, frames: number
   const rows = Number(metadata.num_rows);
   const frameIndex = new Int32Array(rows);
   const runOf = new Uint8Array(rows);
-  const values: Record<ResultScoreKey, Float64Array> = Object.fromEntries(RESULT_SCORE_KEYS.map((k) => [k, new Float64Array(rows)])) as Record<ResultScoreKey, Float64Array>;
+  // A table written before the flicker columns existed has none: those stay NaN.
+  const names = new Set(metadata.schema.map((e) => e.name));
+  const keys = RESULT_SCORE_KEYS.filter((k) => names.has(k));
+  const values: Record<ResultScoreKey, Float64Array> = Object.fromEntries(RESULT_SCORE_KEYS.map((k) => [k, new Float64Array(rows).fill(NaN)])) as Record<ResultScoreKey, Float64Array>;
   const errors = new Map<number, string>();
   const runIndex = new Map(runNames.map((r, i) => [r, i]));
   let badRun: string | null = null;
   await parquetRead({
     file, metadata,
-    columns: ['frameIndex', 'run', 'error', ...RESULT_SCORE_KEYS],
+    columns: ['frameIndex', 'run', 'error', ...keys],
     onChunk: ({ columnName, columnData, rowStart }) => {
       const n = columnData.length;
       if (columnName === 'frameIndex') for (let i = 0; i < n; i++) frameIndex[rowStart + i] = Number(columnData[i]);
