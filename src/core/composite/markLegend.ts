@@ -34,6 +34,7 @@ export const MARK_LEGEND: Readonly<Record<LayerKey, readonly LegendEntry[]>> = {
     { marks: ['invalid'], look: 'bands', words: 'predicted an id that is not a class (banded)', mode: 'kind' },
     { marks: [], look: 'classes', words: 'disagreement in the true class colour', mode: 'truth' },
     { marks: [], look: 'classes', words: 'disagreement in the predicted class colour', mode: 'pred' },
+    { marks: ['invalid'], look: 'bands', words: 'predicted an id that is not a class (banded)', mode: 'pred' },
   ],
   compare: [
     { marks: ['fixed'], look: 'fill', words: 'fixed: B right where A was wrong' },
