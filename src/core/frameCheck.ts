@@ -1,5 +1,6 @@
 import { classTableMaxId, type ClassTable } from './classTable.ts';
 import { countText, pixelCountText } from './countText.ts';
+import { idRunEnd, idWords } from './idRuns.ts';
 import type { LabelMap } from './labelMap.ts';
 import { fail, ok, type Result } from './result.ts';
 
@@ -26,11 +27,11 @@ export function labelMapIdsCheck(map: LabelMap, table: ClassTable, file: string,
   if (role === 'prediction' || table.generated) return ok(undefined);
   const ids = map.ids;
   const hist = new Uint32Array(ids instanceof Uint8Array ? 256 : 65536);
+  const words = idWords(ids);
   for (let i = 0, n = ids.length; i < n;) {
     // Runs of one id counted in a register and added once (regions are long runs of one id).
     const v = ids[i];
-    let j = i + 1;
-    while (j < n && ids[j] === v) j++;
+    const j = idRunEnd(ids, words, i + 1, n, v);
     hist[v] += j - i;
     i = j;
   }

@@ -1,4 +1,5 @@
 import { countText } from './countText.ts';
+import { idPairRunEnd, idWords } from './idRuns.ts';
 import type { LabelMap } from './labelMap.ts';
 
 /**
@@ -29,11 +30,11 @@ export function idCensusOf(truth: LabelMap, pred: LabelMap, ignore: number): IdC
   // Neighbouring pixels mostly repeat the same (truth, prediction) pair: count runs of a pair in a
   // register and add each run once (an increment per pixel chains every store behind the last).
   const n = t.length;
+  const tw = idWords(t), pw = idWords(p);
   let i = 0;
   while (i < n) {
     const a = t[i], b = p[i];
-    let j = i + 1;
-    while (j < n && t[j] === a && p[j] === b) j++;
+    const j = idPairRunEnd(t, tw, p, pw, i + 1, n, a, b);
     const run = j - i;
     i = j;
     if (a === ignore) continue;

@@ -9,6 +9,8 @@ import type { AppStore } from './store.ts';
 
 /** Neighbours decoded ahead of the cursor, nearest first (forward is the usual direction of review). */
 const PREFETCH = [1, -1, 2];
+/** Neighbours whose textures the viewer uploads ahead: the frames → and ← show. */
+const NEARBY = [1, -1];
 
 /**
  * Keeps `shown` in step with the frame index: decodes the wanted frame in the view pool (cache first),
@@ -46,6 +48,7 @@ export function shownKeep(store: AppStore, pool: ViewPool): () => void {
         store.getState().shownSet(index, frame.ok ? frame.value : null, frame.ok ? null : frame.error);
         if (frame.ok) aroundFetch(c, index);
         for (const d of PREFETCH) c.prefetch(index + d);
+        if (frame.ok) nearbyFetch(c, index);
       },
       (e: Error) => {
         if (cache !== c || wanted !== index) return;
@@ -62,6 +65,18 @@ export function shownKeep(store: AppStore, pool: ViewPool): () => void {
     void Promise.all([c.get(place.prev), c.get(place.next)]).then(
       ([prev, next]) => {
         if (cache === c && wanted === index) store.getState().shownAroundSet(index, { prev: preds(prev), next: preds(next) });
+      },
+      () => {},
+    );
+  }
+
+  // The frames a key press shows next, handed on once decoded so the viewer can upload them ahead.
+  function nearbyFetch(c: FrameCache, index: number): void {
+    const n = store.getState().dataset?.pairing.frames.length ?? 0;
+    const near = NEARBY.map((d) => index + d).filter((i) => i >= 0 && i < n);
+    void Promise.all(near.map((i) => c.get(i))).then(
+      (frames) => {
+        if (cache === c && wanted === index) store.getState().shownNearbySet(index, frames.flatMap((f) => (f.ok ? [f.value] : [])));
       },
       () => {},
     );

@@ -15,9 +15,13 @@ export interface ShownSlice {
    * layer), once both are decoded; null at a sequence end or until then.
    */
   shownAround: FrameAround | null;
+  /** The frames next to `shown` (after, before), once decoded: the viewer uploads their textures ahead of the key press. */
+  shownNearby: DecodedFrame[];
   shownSet(index: number, frame: DecodedFrame | null, error: string | null): void;
   /** Sets the neighbours of the frame at `index`; ignored when another frame is shown by then. */
   shownAroundSet(index: number, around: FrameAround | null): void;
+  /** Sets the decoded frames next to the frame at `index`; ignored when another frame is shown by then. */
+  shownNearbySet(index: number, frames: DecodedFrame[]): void;
 }
 
 /** Returns the slice holding the decoded frame on screen. */
@@ -26,8 +30,12 @@ export const shownSlice: StateCreator<AppState, [], [], ShownSlice> = (set, get)
   shownIndex: -1,
   shownError: null,
   shownAround: null,
+  shownNearby: [],
   shownSet: (shownIndex, shown, shownError) => set({ shownIndex, shown, shownError, shownAround: null }),
   shownAroundSet: (index, shownAround) => {
     if (get().shownIndex === index && get().shown) set({ shownAround });
+  },
+  shownNearbySet: (index, shownNearby) => {
+    if (get().shownIndex === index) set({ shownNearby });
   },
 });

@@ -74,7 +74,10 @@ export function BandCurve({ runA, runB, a, aFrame, b, w }: { runA: string | null
       <ul className="legend">
         {curves.map((c, i) => (
           <li key={i}>
-            <span className={`key ${c.cls}`} /> {c.label}: <b>{pct(at(c.curve, c.key))}</b> at {w} px
+            <svg className="key" width={24} height={8} aria-hidden="true">
+              <line x1={0} y1={4} x2={24} y2={4} className={`curve ${c.cls}`} />
+            </svg>{' '}
+            {c.label}: <b>{pct(at(c.curve, c.key))}</b> at {w} px
           </li>
         ))}
       </ul>

@@ -46,7 +46,11 @@ export function SettingsTab() {
       <NumberField label="Boundary F tolerance" value={settings.bfTolerance} step={0.0025} min={0.0001} max={1} note={`of the image diagonal (0.0075 is the usual default)${tol}`} onCommit={(v) => run('settings.set', { bfTolerance: v }) ?? null} />
       <label className="setting">
         <span>class table</span>
+        <span className="file-pick" role="button" tabIndex={0} title="Load another classes.json" onKeyDown={(e) => (e.key === 'Enter' || e.key === ' ') && (e.currentTarget.nextElementSibling as HTMLInputElement | null)?.click()}>
+          choose file…
+        </span>
         <input
+          className="file-hidden"
           type="file"
           accept=".json,application/json"
           onChange={async (e) => {

@@ -1,6 +1,7 @@
 import { useEffect, useMemo, useRef } from 'react';
 import { frameTableColumn, higherIsBetter } from '../state/frameRows.ts';
 import { frameTableSel } from '../state/selectors.ts';
+import type { FrameScoreKey } from '../state/viewSlice.ts';
 import { scoreColor } from './format.ts';
 import { commandKeys } from './commands/appCommands.ts';
 import { useCommand } from './commands/useCommand.tsx';
@@ -14,6 +15,11 @@ interface StripRow {
 }
 
 const FAILED_COLOR = '#ff3b30';
+
+/** The score the strip is coloured by, in words (the legend). */
+const SCORE_WORDS: Record<FrameScoreKey, string> = {
+  meanIoU: 'mean IoU', bandIoU: 'band IoU', boundaryIoU: 'Boundary IoU', boundaryF: 'Boundary F', errorPixels: 'wrong pixels', flipBack: 'flip-back', smallObjectRecall: 'small-object recall',
+};
 
 /**
  * Returns the score strip's row: each frame's chosen score placed between the dataset's worst and best
@@ -149,6 +155,12 @@ export function Timeline() {
           />
         ))}
       </div>
+      <span className="tl-scale" data-testid="timeline-scale" title={`Each cell is a frame, coloured by ${SCORE_WORDS[key]} of run A between the dataset's worst and best frames; a red cell failed. The row under it: run A's flicker over non-void and void truth, brighter is more.`}>
+        <span className="tl-scale-end">worst</span>
+        <span className="tl-scale-bar" style={{ background: `linear-gradient(to right, ${[0, 0.25, 0.45, 0.6, 0.75, 0.9, 1].map((t) => scoreColor(t)).join(', ')})` }} />
+        <span className="tl-scale-end">best</span>
+        <span className="tl-scale-key">{SCORE_WORDS[key]}</span>
+      </span>
       <span className="tl-pos">
         {count ? current + 1 : 0} / {count}
       </span>

@@ -92,7 +92,7 @@ function Panes({ viewPool, onViewer }: { viewPool: ViewPool; onViewer: (v: Viewe
       <OpenedNotice />
       <ResultsBar />
       {hasDataset ? (
-        <div className="panes" style={{ gridTemplateColumns: `${widths.left}px 0 minmax(0, 1fr) 0 ${widths.right}px` }}>
+        <div className="panes" style={{ gridTemplateColumns: `min(${widths.left}px, max(180px, calc(100vw - min(${widths.right}px, 40vw) - 280px))) 0 minmax(0, 1fr) 0 min(${widths.right}px, 40vw)` }}>
           <aside className="left">
             <LeftPane />
           </aside>

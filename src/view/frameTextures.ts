@@ -1,10 +1,12 @@
 // GPU textures of one frame, per tile: label maps as integer ids (r8 for 8-bit maps, rg8 low byte
-// first for 16-bit maps), the photo as rgba8, band bins as r8. Made once per frame; a prediction run
-// is uploaded the first time it is shown and then kept, so switching runs only rebinds textures.
+// first for 16-bit maps), the photo as rgba8, band bins as r8. They come from a TextureKeep, so a
+// frame seen before (or prefetched) and maps shared with neighbouring frames are not uploaded again;
+// a prediction run is made the first time it is shown.
 import { BufferImageSource, type TextureSource } from 'pixi.js';
 import { aroundOf, type CompositeFrame, type FrameAround } from '../core/composite/compositeFrame.ts';
 import type { PixelBox } from '../core/composite/layerSettings.ts';
 import type { LabelMap } from '../core/labelMap.ts';
+import type { TextureKeep } from './textureKeep.ts';
 import { tileBytes } from './tiles.ts';
 
 type Format = 'r8unorm' | 'rg8unorm' | 'rgba8unorm';
@@ -30,66 +32,77 @@ function labelBytes(map: LabelMap): { bytes: Uint8Array; bpp: number; format: Fo
   return { bytes: ids, bpp: 1, format: 'r8unorm' };
 }
 
-/** Returns one texture per tile of `map`. */
-export function labelTextures(map: LabelMap, tiles: PixelBox[]): TextureSource[] {
-  const { bytes, bpp, format } = labelBytes(map);
-  return tiles.map((t) => textureRaw(tileBytes(bytes, map.width, bpp, t), t.width, t.height, format));
+/** Returns a name for a frame size cut into `tiles`: textures are shared only between frames cut alike. */
+export function layoutOf(width: number, height: number, tiles: PixelBox[]): string {
+  return `${width}x${height}/${tiles.map((t) => `${t.x},${t.y},${t.width},${t.height}`).join(';')}`;
 }
 
-/** Textures of one frame, per tile. */
+/** Textures of one frame, per tile, taken from `keep`. */
 export class FrameTextures {
   readonly truth: TextureSource[];
   readonly photo: TextureSource[] | null;
   readonly bins: TextureSource[] | null;
-  private readonly runs = new Map<string, TextureSource[]>();
-  private readonly arounds = new Map<string, { prev: TextureSource[]; next: TextureSource[] } | null>();
+  private readonly layout: string;
 
   constructor(
     private frame: CompositeFrame,
     readonly tiles: PixelBox[],
+    private readonly keep: TextureKeep,
   ) {
     const w = frame.truth.width;
-    this.truth = labelTextures(frame.truth, tiles);
+    this.layout = layoutOf(w, frame.truth.height, tiles);
+    this.truth = this.label(frame.truth);
     const photo = frame.photo;
-    this.photo = photo ? tiles.map((t) => textureRaw(tileBytes(photo, w, 4, t), t.width, t.height, 'rgba8unorm')) : null;
+    this.photo = photo ? keep.get(photo, this.layout, () => tiles.map((t) => textureRaw(tileBytes(photo, w, 4, t), t.width, t.height, 'rgba8unorm'))) : null;
     const bins = frame.bandBins;
-    this.bins = bins ? tiles.map((t) => textureRaw(tileBytes(bins, w, 1, t), t.width, t.height, 'r8unorm')) : null;
+    this.bins = bins ? keep.get(bins, this.layout, () => tiles.map((t) => textureRaw(tileBytes(bins, w, 1, t), t.width, t.height, 'r8unorm'))) : null;
+  }
+
+  private label(map: LabelMap): TextureSource[] {
+    return this.keep.get(map.ids, this.layout, () => {
+      const { bytes, bpp, format } = labelBytes(map);
+      return this.tiles.map((t) => textureRaw(tileBytes(bytes, map.width, bpp, t), t.width, t.height, format));
+    });
   }
 
   /** Returns the tiles of prediction `run`, made on first use. */
   run(run: string): TextureSource[] {
-    let t = this.runs.get(run);
-    if (!t) {
-      t = labelTextures(this.frame.preds[run], this.tiles);
-      this.runs.set(run, t);
-    }
-    return t;
+    return this.label(this.frame.preds[run]);
   }
 
-  /** Returns the tiles of `run` at the neighbouring frames (for flicker), made on first use; null when the frame has none. */
+  /** Returns the tiles of `run` at the neighbouring frames (for flicker); null when the frame has none. */
   around(run: string): { prev: TextureSource[]; next: TextureSource[] } | null {
-    if (!this.arounds.has(run)) {
-      const maps = aroundOf(this.frame, run);
-      this.arounds.set(run, maps && { prev: labelTextures(maps.prev, this.tiles), next: labelTextures(maps.next, this.tiles) });
-    }
-    return this.arounds.get(run)!;
+    const maps = aroundOf(this.frame, run);
+    return maps && { prev: this.label(maps.prev), next: this.label(maps.next) };
   }
 
-  /** Takes new neighbours for the frame; the textures of the old ones are freed. */
+  /** Takes new neighbours for the frame. */
   aroundSet(around: FrameAround | null): void {
-    this.aroundFree();
     this.frame = { ...this.frame, around };
   }
 
-  private aroundFree(): void {
-    for (const a of this.arounds.values()) for (const s of a ? [...a.prev, ...a.next] : []) s.destroy();
-    this.arounds.clear();
+  /** The frame these textures are of (with its current neighbours). */
+  get of(): CompositeFrame {
+    return this.frame;
   }
 
-  /** Frees every texture of the frame on the GPU. */
-  destroy(): void {
-    this.aroundFree();
-    for (const list of [this.truth, this.photo ?? [], this.bins ?? [], ...this.runs.values()]) for (const s of list) s.destroy();
-    this.runs.clear();
+  /** Every texture made so far for this frame's own arrays, for uploading ahead. */
+  all(runs: string[]): TextureSource[] {
+    return [...this.truth, ...(this.photo ?? []), ...(this.bins ?? []), ...runs.filter((r) => Object.hasOwn(this.frame.preds, r)).flatMap((r) => this.run(r))];
   }
+
+}
+
+/** The arrays whose textures `frame` draws from with these runs shown (to pin in the keep while it is on screen). */
+export function frameSources(frame: CompositeFrame, runs: (string | null)[]): object[] {
+  const out: object[] = [frame.truth.ids];
+  if (frame.photo) out.push(frame.photo);
+  if (frame.bandBins) out.push(frame.bandBins);
+  for (const r of runs) {
+    if (r === null) continue;
+    if (Object.hasOwn(frame.preds, r)) out.push(frame.preds[r].ids);
+    const a = aroundOf(frame, r);
+    if (a) out.push(a.prev.ids, a.next.ids);
+  }
+  return out;
 }

@@ -18,7 +18,8 @@ import { LAYER_INDEX, type CompositeParams } from '../core/composite/compositePa
 import { HIGHLIGHT_BOXES_MAX, LAYER_KEYS, type PixelBox } from '../core/composite/layerSettings.ts';
 import { MARK_KEYS } from '../core/composite/compositePalette.ts';
 import { fail, ok, type Result } from '../core/result.ts';
-import { FrameTextures, textureRaw } from './frameTextures.ts';
+import { FrameTextures, frameSources, layoutOf, textureRaw } from './frameTextures.ts';
+import { TextureKeep } from './textureKeep.ts';
 import { FRAGMENT_SOURCE, VERTEX_SOURCE } from './shaderSource.ts';
 import { tilesOf } from './tiles.ts';
 import { viewOrigin, type ViewState } from './viewTransform.ts';
@@ -47,6 +48,11 @@ export class GlStage {
   private palette: TextureSource = textureRaw(new Uint8Array(65536 * 4), 256, 256, 'rgba8unorm');
   private paletteBytes: Uint8Array | null = null;
   private textures: FrameTextures | null = null;
+  /** Textures of frames seen or prefetched, by the arrays they were made from. */
+  private readonly keep = new TextureKeep();
+  /** How the frame on screen is cut into tiles (the meshes are reused while it stays the same). */
+  private layout = '';
+
   private draws: TileDraw[] = [];
   private runA: string | null = null;
   private runB: string | null = null;
@@ -61,49 +67,83 @@ export class GlStage {
     this.stage.addChild(this.world);
   }
 
-  /** Uploads the frame's textures and builds its tiles; returns the tiles. */
+  /**
+   * Shows `frame`: its textures come from the keep (uploaded when not kept), and the tile meshes of
+   * the last frame are reused when the new one is cut the same way. Returns the tiles.
+   */
   frameSet(frame: CompositeFrame | null): PixelBox[] {
+    this.runA = this.runB = null;
+    this.flickerRun = undefined;
+    if (!frame) {
+      this.drawsFree();
+      this.textures = null;
+      this.keep.pin([]);
+      return [];
+    }
+    const tiles = tilesOf(frame.truth.width, frame.truth.height, this.tileSize);
+    const layout = layoutOf(frame.truth.width, frame.truth.height, tiles);
+    this.keep.pin(frameSources(frame, []));
+    const tex = new FrameTextures(frame, tiles, this.keep);
+    this.textures = tex;
+    if (layout !== this.layout) {
+      this.drawsFree();
+      this.layout = layout;
+      this.draws = tiles.map((t) => this.drawMake(t));
+    }
+    this.draws.forEach((d, i) => {
+      const r = d.shader.resources;
+      r.uPhoto = tex.photo ? tex.photo[i] : this.blankRgba;
+      r.uTruth = tex.truth[i];
+      r.uBins = tex.bins ? tex.bins[i] : this.blank8;
+      r.uPredA = r.uPredB = r.uPrevA = r.uNextA = this.blank8;
+    });
+    return tiles;
+  }
+
+  /**
+   * Makes `frame`'s textures (and those of `runs`) and uploads them now, so that showing it later
+   * uploads nothing; kept as long as the keep's budget allows.
+   */
+  prefetch(frame: CompositeFrame, runs: string[]): void {
+    const tiles = tilesOf(frame.truth.width, frame.truth.height, this.tileSize);
+    for (const s of new FrameTextures(frame, tiles, this.keep).all(runs)) this.renderer.texture.initSource(s);
+  }
+
+  private drawMake(t: PixelBox): TileDraw {
+    const geometry = new MeshGeometry({
+      positions: Float32Array.of(0, 0, t.width, 0, t.width, t.height, 0, t.height),
+      uvs: Float32Array.of(0, 0, 1, 0, 1, 1, 0, 1),
+      indices: Uint32Array.of(0, 1, 2, 0, 2, 3),
+    });
+    const shader = new Shader({
+      glProgram: this.program,
+      resources: {
+        layers: this.layerGroup,
+        tile: new UniformGroup({ uTile: { value: Int32Array.of(t.x, t.y, t.width, t.height), type: 'vec4<i32>' } }),
+        uPhoto: this.blankRgba,
+        uTruth: this.blank8,
+        uPredA: this.blank8,
+        uPredB: this.blank8,
+        uPrevA: this.blank8,
+        uNextA: this.blank8,
+        uBins: this.blank8,
+        uPalette: this.palette,
+      },
+    });
+    const mesh = new Mesh({ geometry, shader });
+    mesh.position.set(t.x, t.y);
+    this.world.addChild(mesh);
+    return { mesh, geometry, shader };
+  }
+
+  private drawsFree(): void {
     for (const d of this.draws) {
       d.mesh.destroy(); // leaves geometry and shader alive: free them too
       d.geometry.destroy();
       d.shader.destroy();
     }
     this.draws = [];
-    this.textures?.destroy();
-    this.textures = null;
-    this.runA = this.runB = null;
-    this.flickerRun = undefined;
-    if (!frame) return [];
-    const tiles = tilesOf(frame.truth.width, frame.truth.height, this.tileSize);
-    const tex = new FrameTextures(frame, tiles);
-    this.textures = tex;
-    this.draws = tiles.map((t, i) => {
-      const geometry = new MeshGeometry({
-        positions: Float32Array.of(0, 0, t.width, 0, t.width, t.height, 0, t.height),
-        uvs: Float32Array.of(0, 0, 1, 0, 1, 1, 0, 1),
-        indices: Uint32Array.of(0, 1, 2, 0, 2, 3),
-      });
-      const shader = new Shader({
-        glProgram: this.program,
-        resources: {
-          layers: this.layerGroup,
-          tile: new UniformGroup({ uTile: { value: Int32Array.of(t.x, t.y, t.width, t.height), type: 'vec4<i32>' } }),
-          uPhoto: tex.photo ? tex.photo[i] : this.blankRgba,
-          uTruth: tex.truth[i],
-          uPredA: this.blank8,
-          uPredB: this.blank8,
-          uPrevA: this.blank8,
-          uNextA: this.blank8,
-          uBins: tex.bins ? tex.bins[i] : this.blank8,
-          uPalette: this.palette,
-        },
-      });
-      const mesh = new Mesh({ geometry, shader });
-      mesh.position.set(t.x, t.y);
-      this.world.addChild(mesh);
-      return { mesh, geometry, shader };
-    });
-    return tiles;
+    this.layout = '';
   }
 
   /** Takes the neighbours' predictions for the flicker layer; they are uploaded when the layer is drawn. */
@@ -130,6 +170,8 @@ export class GlStage {
     u.uMisc.set([p.curtainX, p.ignore, 0, 0]);
     u.uMarks.set(p.marks);
     u.uBoxes.set(p.boxes);
+    // Everything the frame on screen may draw from stays on the GPU while it is shown.
+    if (this.textures) this.keep.pin(frameSources(this.textures.of, [p.runA, p.runB]));
     if (p.runA !== this.runA) {
       this.runA = p.runA;
       this.runBind('uPredA', p.runA);
@@ -193,9 +235,10 @@ export class GlStage {
     return ok(out);
   }
 
-  /** Frees the frame, the palette and the renderer. */
+  /** Frees the frame, the kept textures, the palette and the renderer. */
   destroy(): void {
     this.frameSet(null);
+    this.keep.clear();
     this.palette.destroy();
     this.blank8.destroy();
     this.blankRgba.destroy();

@@ -6,6 +6,7 @@
  *   v.paletteSet(palette)       colours: compositePaletteFromTable(table, marks?) from src/core/composite
  *   v.frameSet(frame)           CompositeFrame | null → Result<{ width, height, tiles }>; refuses > 8192 px
  *   v.aroundSet(around)         the run predictions at the frame's sequence neighbours (flicker layer), or null
+ *   v.prefetch(frames, runs)    uploads these frames' textures (and those runs') now, so showing them uploads nothing
  *   v.layersSet(layers)         LayerSettings: switches, opacities, runs, solo, curtain, band width, boxes
  *   v.viewFit() / v.viewOneToOne() / v.zoomBy(factor, cssX?, cssY?) / v.viewGet() / v.viewSet(view)
  *   v.gridSet(on)               pixel grid (shown from GRID_MIN_SCALE device px per image px)
@@ -64,6 +65,7 @@ export interface Viewer {
   paletteSet(palette: CompositePalette): void;
   layersSet(layers: LayerSettings): void;
   aroundSet(around: FrameAround | null): void;
+  prefetch(frames: CompositeFrame[], runs: string[]): void;
   compositeSet(rgba: Uint8Array | null): Result<void>;
   viewFit(): void;
   viewOneToOne(): void;
@@ -175,6 +177,11 @@ class ViewerImpl implements Viewer {
   layersSet(layers: LayerSettings): void {
     this.layers = layers;
     this.invalidate();
+  }
+
+  prefetch(frames: CompositeFrame[], runs: string[]): void {
+    if (!this.gl) return;
+    for (const f of frames) if (compositeFrameCheck(f).ok) this.gl.prefetch(f, runs);
   }
 
   aroundSet(around: FrameAround | null): void {

@@ -9,7 +9,7 @@ import type { Viewer } from './viewer.ts';
 /** The part of a viewer the binding drives (a test can hand in a stand-in). */
 export type BindableViewer = Pick<
   Viewer,
-  'mode' | 'frameSet' | 'aroundSet' | 'paletteSet' | 'layersSet' | 'compositeSet' | 'gridSet' | 'viewFit' | 'viewGet' | 'viewSet' | 'onViewChange'
+  'mode' | 'frameSet' | 'aroundSet' | 'prefetch' | 'paletteSet' | 'layersSet' | 'compositeSet' | 'gridSet' | 'viewFit' | 'viewGet' | 'viewSet' | 'onViewChange'
 >;
 
 export interface ViewerBindOptions {
@@ -57,6 +57,9 @@ export function viewOfBox(
   };
   return { cx: centre((x0 + x1) / 2, size.width, frame.width), cy: centre((y0 + y1) / 2, size.height, frame.height), scale };
 }
+
+/** Wait after the neighbours are decoded before uploading them, ms: lets the frame on screen paint first. */
+const PREFETCH_AFTER_MS = 100;
 
 /** Image pixels shown at least around a focused box, and the closest a focus zooms (screen px per image px). */
 const FOCUS_CONTEXT = 64;
@@ -115,6 +118,17 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
     viewer.viewSet(viewOfBox(s.focusBox, options.canvasSize(), s.shown));
   };
 
+  // The neighbours' textures go up after the frame on screen is painted, never before it.
+  let prefetchTimer: ReturnType<typeof setTimeout> | undefined;
+  const prefetchApply = () => {
+    clearTimeout(prefetchTimer);
+    prefetchTimer = setTimeout(() => {
+      const s = store.getState();
+      const runs = [s.runA, s.runB].filter((r): r is string => r !== null);
+      if (s.shownNearby.length) viewer.prefetch(s.shownNearby, runs);
+    }, PREFETCH_AFTER_MS);
+  };
+
   paletteApply();
   frameApply();
   viewer.layersSet(layerSettingsSel(store.getState()));
@@ -127,6 +141,7 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
     store.subscribe((s) => [s.dataset, s.settings.ignore] as const, paletteApply, { equalityFn: shallow }),
     store.subscribe((s) => s.shown, frameApply),
     store.subscribe((s) => s.shownAround, (a) => viewer.aroundSet(a)),
+    store.subscribe((s) => s.shownNearby, prefetchApply),
     store.subscribe(layerSettingsSel, (l) => viewer.layersSet(l), { equalityFn: layersLookAlike }),
     store.subscribe((s) => s.pixelGrid, (on) => viewer.gridSet(on)),
     store.subscribe((s) => s.place, placeApply),
@@ -141,6 +156,7 @@ export function viewerBind(store: AppStore, viewer: BindableViewer, options: Vie
       timer = setTimeout(() => store.getState().placeSet({ cx: v.cx, cy: v.cy, scale: v.scale }), options.settleMs ?? 150);
     }),
     () => clearTimeout(timer),
+    () => clearTimeout(prefetchTimer),
   );
   return () => stops.forEach((stop) => stop());
 }

@@ -24,6 +24,7 @@ function fakeViewer(mode: 'webgl' | 'none' = 'webgl', refuse: string | null = nu
       return refuse && d ? { ok: false, error: refuse } : { ok: true, value: { width: d?.width ?? 0, height: d?.height ?? 0, tiles: 1 } };
     },
     aroundSet: (a) => void calls.push(`around ${a === null ? null : Object.keys(a.prev).join(',')}`),
+    prefetch: (fs) => void calls.push(`prefetch ${fs.length}`),
     paletteSet: () => void calls.push('palette'),
     layersSet: (l) => void (calls.push('layers'), layers.push(l)),
     compositeSet: (rgba) => (composites.push(rgba), { ok: true, value: undefined }),
