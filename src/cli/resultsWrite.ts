@@ -77,7 +77,7 @@ export interface ResultsWriter {
 }
 
 /** Frames between two full garbage collections (heapTrim.ts). */
-const TRIM_FRAMES = 200;
+const TRIM_FRAMES = 50;
 
 /** Checks that `dir` can take a results folder: absent, empty, or an earlier results folder. */
 export async function resultsDirCheck(dir: string, what = '--results'): Promise<void> {

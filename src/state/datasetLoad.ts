@@ -13,7 +13,7 @@ import type { AppStore } from './store.ts';
  * was expected and what was found when no frame pairs, so a folder that is no dataset never opens blank.
  */
 export function datasetFromSource(source: DatasetSource): LoadedDataset {
-  let pairing = datasetPair(source.listing, source.pair);
+  let pairing = source.paired ?? datasetPair(source.listing, source.pair);
   if (pairing.frames.length === 0) {
     const truth = source.listing.truth.length;
     throw new Error(

@@ -68,7 +68,9 @@ describe('scoringKeep: the pipeline that keeps scores in step with the dataset a
     // Two jobs are handed out before the link's frame is known (frames 0 and 1); then frame 20, then its
     // neighbours (two jobs in flight at a time may finish in either order).
     expect(new Set(delivered.slice(0, 2))).toEqual(new Set([0, 1]));
-    expect(delivered[2]).toBe(20);
+    // Frames reach the store in batches (every 60 ms) and this list reads each batch in frame order, so
+    // on a busy machine frame 20 may share its batch with a neighbour scored just after it.
+    expect(delivered.slice(2, 4)).toContain(20);
     for (const i of delivered.slice(3, 9)) expect(Math.abs(i - 20)).toBeLessThanOrEqual(4);
     expect(delivered).toHaveLength(30);
   });

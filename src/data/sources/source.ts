@@ -1,5 +1,5 @@
 import { dictCreate } from '../../core/dict.ts';
-import type { DatasetListing, PairOptions } from '../pairing.ts';
+import type { DatasetListing, PairOptions, Pairing } from '../pairing.ts';
 
 /** Where a dataset's files come from: the built-in demo, a folder served by `npm start`, or a folder dropped on the page. */
 export interface DatasetSource {
@@ -13,6 +13,8 @@ export interface DatasetSource {
   pair?: PairOptions;
   /** Text of the list file of frames to use, or null / absent for every frame. */
   listText?: string | null;
+  /** The pairing of `listing` with `pair`, when opening the source made it already (absent: pair when loading). */
+  paired?: Pairing;
   /** How the folders were found ("hairline.json" or "folder names"), for the "opened" panel. */
   how?: string;
   /** Returns the bytes of `path` inside `folder` (`images`, `truth`, `predictions/<run>`, `confidence/<run>`). */

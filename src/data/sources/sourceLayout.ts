@@ -2,6 +2,7 @@ import { DESCRIPTION_FILE, descriptionFromText } from '../description.ts';
 import { classTableFromText } from '../../core/classTable.ts';
 import { dictCreate } from '../../core/dict.ts';
 import { datasetPairProbed } from '../labelGroups.ts';
+import type { Pairing } from '../pairing.ts';
 import { layoutFromPaths, type DatasetLayout } from '../layout.ts';
 import type { DatasetSource } from './source.ts';
 
@@ -9,6 +10,8 @@ import type { DatasetSource } from './source.ts';
 export interface SourceLayout extends DatasetLayout {
   classesText: string | null;
   listText: string | null;
+  /** The pairing made while opening, when a plain folder (no suffix groups) makes it final: reused, not made again. */
+  paired?: Pairing;
 }
 
 /**
@@ -46,7 +49,9 @@ export async function sourceLayoutOpen(
     lay.pair.chosen = { ...lay.pair.chosen, [g.folder]: g.chosen };
     why[g.folder] = g.why;
   }
-  return { ...lay, pair: { ...lay.pair, why }, classesText, listText };
+  // Pairing 10^5 files takes a while: without suffix groups the probe's pairing is the dataset's.
+  const paired = (probed.groups ?? []).length === 0 ? probed : undefined;
+  return { ...lay, pair: { ...lay.pair, why }, classesText, listText, paired };
 }
 
 /** Returns the path under the root of `path` inside a layout folder (`truth`, `predictions/<run>`, …). */
@@ -57,6 +62,6 @@ export function layoutPath(layout: Pick<DatasetLayout, 'dirs'>, folder: string, 
 }
 
 /** Returns the fields a served or dropped source takes from its layout. */
-export function sourceFieldsOf(layout: SourceLayout): Pick<DatasetSource, 'listing' | 'classesText' | 'pair' | 'listText' | 'how'> {
-  return { listing: layout.listing, classesText: layout.classesText, pair: layout.pair, listText: layout.listText, how: layout.how };
+export function sourceFieldsOf(layout: SourceLayout): Pick<DatasetSource, 'listing' | 'classesText' | 'pair' | 'listText' | 'how' | 'paired'> {
+  return { listing: layout.listing, classesText: layout.classesText, pair: layout.pair, listText: layout.listText, how: layout.how, paired: layout.paired };
 }
