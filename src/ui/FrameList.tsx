@@ -82,7 +82,7 @@ export function FrameList() {
           <span className="fl-name">frame</span>
         )}
         {COLUMNS.map((c) => (
-          <button key={c.key} className={c.key === sortKey && !byClass ? 'fl-col fl-sorted' : 'fl-col'} title={c.title} onClick={() => run('frames.sortBy', c.key)}>
+          <button key={c.key} className={`fl-col fl-c-${c.key}${c.key === sortKey && !byClass ? ' fl-sorted' : ''}`} title={c.title} onClick={() => run('frames.sortBy', c.key)}>
             {c.key === 'bandIoU' ? `${c.label} ${table.bandWidth}` : c.label}
             {c.key === sortKey && !byClass ? (worstFirst ? ' ▲' : ' ▼') : ''}
           </button>
@@ -107,7 +107,7 @@ export function FrameList() {
                   <span className="fl-err">failed</span>
                 ) : (
                   COLUMNS.map((c) => (
-                    <span key={c.key} className="fl-col">
+                    <span key={c.key} className={`fl-col fl-c-${c.key}`}>
                       {cell(table, index, c.key)}
                     </span>
                   ))

@@ -87,6 +87,38 @@ describe('review workspace layout (real Chromium)', () => {
     await page.close();
   });
 
+  it('fits the frame list at narrow and wide panes: no number runs into the next, the name keeps its room, fewer columns when narrow', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 860 } });
+    await openQueue(page);
+    await page.locator('.left-pane .tab', { hasText: /^Frames$/ }).first().click();
+    const shown: number[] = [];
+    for (const width of [180, 260, 600]) {
+      await leftPaneDrag(page, width);
+      const rows = await page.$$eval('.fl-head, .fl-row', (els) => els.map((row) => {
+        const box = row.getBoundingClientRect();
+        const cells = [...row.children].filter((c) => getComputedStyle(c).display !== 'none').map((c) => {
+          const r = c.getBoundingClientRect();
+          return { text: c.textContent ?? '', left: r.left, right: r.right, whole: c.scrollWidth <= c.clientWidth + 1, name: c.classList.contains('fl-name') || c.classList.contains('fl-resort') };
+        });
+        return { left: box.left, right: box.right, cells };
+      }));
+      expect(rows.length).toBeGreaterThan(1);
+      for (const row of rows) {
+        for (const [i, c] of row.cells.entries()) {
+          expect(c.left, `${width}px: ${c.text}`).toBeGreaterThanOrEqual(row.left - 0.5);
+          expect(c.right, `${width}px: ${c.text}`).toBeLessThanOrEqual(row.right + 0.5);
+          expect(c.whole, `${width}px: '${c.text}' cut off`).toBe(true);
+          if (i > 0) expect(c.left, `${width}px: '${c.text}' overlaps the cell before it`).toBeGreaterThanOrEqual(row.cells[i - 1].right);
+          if (c.name) expect(c.right - c.left).toBeGreaterThanOrEqual(46);
+        }
+      }
+      shown.push(rows[1].cells.length);
+    }
+    // 180 px shows the name and three scores, 260 px the same, 600 px every column.
+    expect(shown).toEqual([4, 4, 8]);
+    await page.close();
+  });
+
   it('shows each Doubts item\'s signals as a strip that fits at 180 px and wide, bar values equal to the item\'s evidence', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 860 } });
     await openQueue(page);
