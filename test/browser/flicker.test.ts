@@ -1,12 +1,11 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { PNG } from 'pngjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MARK_COLORS } from '../../src/core/composite/compositePalette.ts';
 import { scoreCli } from '../cli/scoreRun.ts';
+import { demoOnDisk } from '../support/demoOnDisk.ts';
 import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
 
 // The flicker layer on the demo in real Chromium: what the screen shows at 1:1 (a screenshot, not the
@@ -24,9 +23,7 @@ let close: () => Promise<void>;
 let browser: Browser;
 
 beforeAll(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'hairline-flicker-'));
-  const gen = spawnSync(process.execPath, ['--import', 'tsx', 'src/cli/demo.ts', '--out', join(dir, 'kq'), '--frames', String(FRAMES), '--size', `${W}x${H}`], { encoding: 'utf8' });
-  if (gen.status !== 0) throw new Error(`demo generation failed: ${gen.stderr}`);
+  dir = demoOnDisk('hairline-flicker-', FRAMES, W, H);
   ({ url, close } = await appServeBuilt());
   browser = await browserLaunch();
 });

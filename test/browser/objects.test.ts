@@ -1,12 +1,11 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SCENE_KEYS } from '../cli/sceneKeys.ts';
 import { scoreCli } from '../cli/scoreRun.ts';
 import { reportDifferences } from '../reference/pythonRef.ts';
+import { demoOnDisk } from '../support/demoOnDisk.ts';
 import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
 
 // Flicker and objects in real Chromium on the demo: the page's frame jobs get the neighbouring
@@ -24,9 +23,7 @@ let close: () => Promise<void>;
 let browser: Browser;
 
 beforeAll(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'hairline-obj-'));
-  const gen = spawnSync(process.execPath, ['--import', 'tsx', 'src/cli/demo.ts', '--out', join(dir, 'kq'), '--frames', String(FRAMES), '--size', `${W}x${H}`], { encoding: 'utf8' });
-  if (gen.status !== 0) throw new Error(`demo generation failed: ${gen.stderr}`);
+  dir = demoOnDisk('hairline-obj-', FRAMES, W, H);
   ({ url, close } = await appServeBuilt());
   browser = await browserLaunch();
 });

@@ -1,11 +1,10 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { scoreCli } from '../cli/scoreRun.ts';
 import { reportDifferences } from '../reference/pythonRef.ts';
+import { demoOnDisk } from '../support/demoOnDisk.ts';
 import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
 
 // The page's "save report" (Shift+D) on the demo in real Chromium is the file the headless scorer
@@ -23,9 +22,7 @@ let close: () => Promise<void>;
 let browser: Browser;
 
 beforeAll(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'hairline-rep-'));
-  const gen = spawnSync(process.execPath, ['--import', 'tsx', 'src/cli/demo.ts', '--out', join(dir, 'kq'), '--frames', String(FRAMES), '--size', `${W}x${H}`], { encoding: 'utf8' });
-  if (gen.status !== 0) throw new Error(`demo generation failed: ${gen.stderr}`);
+  dir = demoOnDisk('hairline-rep-', FRAMES, W, H);
   ({ url, close } = await appServeBuilt());
   browser = await browserLaunch();
 });

@@ -1,6 +1,4 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { PNG } from 'pngjs';
 import type { Browser, Page } from 'playwright-core';
@@ -16,6 +14,7 @@ import { photoFromPng } from '../../src/core/png/decodePhoto.ts';
 import { reportDifferences } from '../reference/pythonRef.ts';
 import { SCENE_KEYS } from '../cli/sceneKeys.ts';
 import { scoreCli } from '../cli/scoreRun.ts';
+import { demoOnDisk } from '../support/demoOnDisk.ts';
 import { appServeBuilt, browserLaunch, pageErrors } from './harness.ts';
 
 // The workspace in real Chromium on the demo: scoring in web workers matches the headless scorer,
@@ -32,9 +31,7 @@ let close: () => Promise<void>;
 let browser: Browser;
 
 beforeAll(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'hairline-ws-'));
-  const gen = spawnSync(process.execPath, ['--import', 'tsx', 'src/cli/demo.ts', '--out', join(dir, 'kq'), '--frames', String(FRAMES), '--size', `${W}x${H}`], { encoding: 'utf8' });
-  if (gen.status !== 0) throw new Error(`demo generation failed: ${gen.stderr}`);
+  dir = demoOnDisk('hairline-ws-', FRAMES, W, H);
   ({ url, close } = await appServeBuilt());
   browser = await browserLaunch();
 });
